@@ -1,0 +1,24 @@
+/* cautions.h: the plain-language cautions that go with results a person could act on.
+ *
+ * Copyright (C) 2026 the dragarc developers. SPDX-License-Identifier: GPL-3.0-or-later
+ */
+#ifndef DRAGARC_CAUTIONS_H
+#define DRAGARC_CAUTIONS_H
+
+#include <stddef.h>
+
+#include "dragarc/flight.h"
+#include "dragarc/scenario.h"
+
+#ifdef __cplusplus
+extern "C" {
+#endif
+
+/* Point out[0..max-1] at static caution strings for this flight (model limits first, then what the
+ * flight's notes call for); returns how many were set. The strings are static: never free them. */
+size_t dragarc_cautions_flight(const dragarc_scenario *s, const dragarc_flight *f, const char **out, size_t max);
+
+#ifdef __cplusplus
+}
+#endif
+#endif

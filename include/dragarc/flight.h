@@ -1,0 +1,90 @@
+/* flight.h: fly one scenario from launch to ground impact.
+ *
+ * Copyright (C) 2026 the dragarc developers. SPDX-License-Identifier: GPL-3.0-or-later
+ *
+ * The integrator is SUNDIALS CVODE (Adams-Moulton or BDF). Ground impact is located by CVODE's root
+ * finding on z - z_ground (descending), the apex on vz (descending).
+ */
+#ifndef DRAGARC_FLIGHT_H
+#define DRAGARC_FLIGHT_H
+
+#include <stddef.h>
+
+#include "dragarc/dragarc.h"
+#include "dragarc/scenario.h"
+
+#ifdef __cplusplus
+extern "C" {
+#endif
+
+/* One sampled state. */
+typedef struct dragarc_flight_point {
+    double t;           /* s */
+    double pos[3];      /* m */
+    double vel[3];      /* m/s, ground-relative */
+    double speed;       /* m/s, ground-relative */
+    double mach;        /* air-relative speed / speed of sound */
+    double reynolds;    /* rho |v_rel| d / mu */
+} dragarc_flight_point;
+
+/* Observations about a flight that the cautions speak of (bit flags). */
+enum {
+    DRAGARC_NOTE_TABLE_CLAMPED = 1u << 0, /* a drag table was read beyond its first or last point */
+    DRAGARC_NOTE_TRANSONIC = 1u << 1,     /* Mach > 0.6 with a drag law that ignores Mach number */
+    DRAGARC_NOTE_DENSE_FLUID = 1u << 2,   /* fluid density > 1 % of the body's: added mass ignored */
+    DRAGARC_NOTE_DRAG_CRISIS = 1u << 3,   /* sphere model crossed Re 2e5..1e6: Cd drops sharply */
+    DRAGARC_NOTE_HIGH_ENERGY = 1u << 4,   /* impact energy >= 15 J */
+    DRAGARC_NOTE_NOT_TERMINAL = 1u << 5   /* ground reached well before the terminal speed */
+};
+
+typedef struct dragarc_flight {
+    /* summary */
+    double range;          /* m, horizontal distance launch -> impact */
+    double downrange;      /* m, along the launch azimuth */
+    double crossrange;     /* m, to the right of the launch azimuth */
+    double time_of_flight; /* s */
+    double apex_height;    /* m above the site datum (the launch height when the flight only descends) */
+    double apex_time;      /* s */
+    double impact_speed;   /* m/s, ground-relative */
+    double impact_angle;   /* rad below horizontal */
+    double impact_energy;  /* J, 1/2 m v^2 */
+    double launch_energy;  /* J */
+    double terminal_speed; /* m/s in still air at the launch height; NaN when there is none */
+    double vacuum_range;   /* m, same launch without air to the same ground; NaN if it never lands */
+    double impact[6];      /* state at impact */
+    double max_mach;
+    double max_reynolds;
+    double relaxation_time; /* s, terminal_speed / g: how fast drag acts; NaN without drag */
+    long steps;            /* integrator steps taken */
+    dragarc_method method; /* the method actually used */
+    unsigned notes;        /* DRAGARC_NOTE_* */
+    /* samples at a fixed interval, plus the exact impact row (when dt > 0) */
+    size_t npoints;
+    dragarc_flight_point *points; /* owned: dragarc_flight_clear */
+} dragarc_flight;
+
+/* Fly scenario s. dt > 0 samples the state every dt seconds (plus launch and impact); dt = 0 keeps
+ * only launch and impact. Fills *out (caller clears with dragarc_flight_clear, also after failure).
+ * Errors: DRAGARC_EINVAL (scenario fails dragarc_scenario_check), DRAGARC_ENOLAND (no impact
+ * within solver.max_time), DRAGARC_ESOLVER (CVODE failed; the message names the CVODE flag and t),
+ * DRAGARC_ERANGE (the atmosphere model was left, e.g. above 86 km). */
+int dragarc_flight_run(const dragarc_scenario *s, double dt, dragarc_flight *out, dragarc_error *err);
+
+/* Free the samples and zero the record. Safe on a zeroed record. */
+void dragarc_flight_clear(dragarc_flight *f);
+
+/* Still-air terminal speed (m/s) at height z of the scenario, where drag balances weight less
+ * buoyancy, solved with the drag model's own law (GSL Brent). *vt = NaN when the body does not sink
+ * or has no drag; returns an error only when the evaluation itself fails. */
+int dragarc_terminal_speed(const dragarc_scenario *s, double z, double *vt, dragarc_error *err);
+
+/* Horizontal range (m) of the same launch in vacuum to the scenario's ground; NaN if never lands. */
+double dragarc_vacuum_range(const dragarc_scenario *s);
+
+/* "adams", "bdf" or "auto". */
+const char *dragarc_method_name(dragarc_method m);
+
+#ifdef __cplusplus
+}
+#endif
+#endif

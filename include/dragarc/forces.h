@@ -1,0 +1,50 @@
+/* forces.h: the equations of motion of a point mass in a moving fluid.
+ *
+ * Copyright (C) 2026 the dragarc developers. SPDX-License-Identifier: GPL-3.0-or-later
+ *
+ * State y = (x, y, z, vx, vy, vz), local frame x east, y north, z up (m, m/s).
+ *   m dv/dt = -m g z^ + rho_f V g z^ - D(|v_rel|) v_rel,   v_rel = v - w(z - z_ground)
+ * gravity, buoyancy (Archimedes) and drag; D is the drag factor of drag.h.
+ */
+#ifndef DRAGARC_FORCES_H
+#define DRAGARC_FORCES_H
+
+#include "dragarc/atmosphere.h"
+#include "dragarc/projectile.h"
+#include "dragarc/wind.h"
+
+#ifdef __cplusplus
+extern "C" {
+#endif
+
+/* What the right-hand side needs; borrows every pointer. */
+typedef struct dragarc_forces {
+    const dragarc_projectile *projectile;
+    const dragarc_atmosphere *atmosphere;
+    const dragarc_wind *wind;
+    double gravity;          /* m/s^2 */
+    double ground_elevation; /* m above the datum: wind heights are measured from here */
+} dragarc_forces;
+
+/* What the right-hand side saw at one state, for diagnostics and output. */
+typedef struct dragarc_flow {
+    dragarc_air air;
+    double wind[3];     /* m/s */
+    double airspeed;    /* |v_rel|, m/s */
+    double mach;
+    double reynolds;
+    double drag_factor; /* kg/s */
+} dragarc_flow;
+
+/* dy/dt at state y (6 values) into dydt (6 values); fills *flow if not NULL. Returns DRAGARC_OK, or
+ * the atmosphere's error (e.g. DRAGARC_ERANGE above 86 km) with err filled. Pure: no I/O, no state. */
+int dragarc_forces_eval(const dragarc_forces *f, const double y[6], double dydt[6], dragarc_flow *flow,
+                        dragarc_error *err);
+
+/* Weight less buoyancy at height z (N; positive when the body sinks). */
+int dragarc_forces_net_weight(const dragarc_forces *f, double z, double *out, dragarc_error *err);
+
+#ifdef __cplusplus
+}
+#endif
+#endif

@@ -1,0 +1,81 @@
+/* scenario.h: one flight problem, as read from a scenario file, in SI units and radians.
+ *
+ * Copyright (C) 2026 the dragarc developers. SPDX-License-Identifier: GPL-3.0-or-later
+ *
+ * Frame: x east, y north, z up, metres, origin on the site datum below the launch point.
+ * The reader (dragarc_scenario_read*) converts degrees to radians and fills defaults; the file
+ * format is documented in docs/scenario.md.
+ */
+#ifndef DRAGARC_SCENARIO_H
+#define DRAGARC_SCENARIO_H
+
+#include <stddef.h>
+
+#include "dragarc/atmosphere.h"
+#include "dragarc/dragarc.h"
+#include "dragarc/projectile.h"
+#include "dragarc/wind.h"
+
+#ifdef __cplusplus
+extern "C" {
+#endif
+
+typedef enum dragarc_method {
+    DRAGARC_METHOD_AUTO = 0, /* Adams unless the drag relaxation time is short against the flight */
+    DRAGARC_METHOD_ADAMS,    /* non-stiff: variable-order Adams-Moulton, fixed-point iteration */
+    DRAGARC_METHOD_BDF       /* stiff: BDF with Newton iteration and a dense linear solver */
+} dragarc_method;
+
+typedef struct dragarc_launch {
+    double speed;     /* m/s, >= 0 */
+    double elevation; /* rad above horizontal, [-pi/2, pi/2] */
+    double azimuth;   /* rad clockwise from north */
+    double height;    /* m above the site datum */
+} dragarc_launch;
+
+typedef struct dragarc_solver_options {
+    double rtol;      /* relative tolerance (default 1e-8) */
+    double atol;      /* absolute tolerance, m and m/s (default 1e-6) */
+    double max_time;  /* s, flight-time limit (default 3600) */
+    long max_steps;   /* integrator steps allowed in all (default 1000000) */
+    dragarc_method method;
+} dragarc_solver_options;
+
+typedef struct dragarc_scenario {
+    char name[128];
+    dragarc_projectile projectile; /* owned */
+    dragarc_launch launch;
+    double gravity;                /* m/s^2, > 0 (default 9.80665) */
+    dragarc_atmosphere atmosphere;
+    dragarc_wind wind;             /* owned */
+    double ground_elevation;       /* m above the site datum: the impact plane */
+    dragarc_solver_options solver;
+} dragarc_scenario;
+
+/* Fill every field with its documented default (no projectile: mass and diameter 0). */
+void dragarc_scenario_default(dragarc_scenario *s);
+
+/* Validate a whole scenario; err->field is the full path ("launch.elevation"). */
+int dragarc_scenario_check(const dragarc_scenario *s, dragarc_error *err);
+
+/* Deep copy. */
+int dragarc_scenario_copy(dragarc_scenario *dst, const dragarc_scenario *src, dragarc_error *err);
+
+/* Free what the scenario owns and reset it to defaults. */
+void dragarc_scenario_clear(dragarc_scenario *s);
+
+/* Parse a scenario from JSON text into *out (caller clears it with dragarc_scenario_clear).
+ * `base_dir` resolves a projectile given as a relative path; `profile_path` is a ':'-separated list
+ * of folders searched for a projectile given by profile name (either may be NULL). On failure *out is
+ * left cleared and err names the field path. */
+int dragarc_scenario_parse(const char *json, const char *base_dir, const char *profile_path,
+                           dragarc_scenario *out, dragarc_error *err);
+
+/* Read and parse a scenario file; the base directory is the file's own. */
+int dragarc_scenario_read(const char *path, const char *profile_path, dragarc_scenario *out,
+                          dragarc_error *err);
+
+#ifdef __cplusplus
+}
+#endif
+#endif

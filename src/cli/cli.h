@@ -1,0 +1,48 @@
+/* cli.h: shared pieces of the dragarc command-line program.
+ * SPDX-License-Identifier: GPL-3.0-or-later
+ */
+#ifndef DRAGARC_CLI_H
+#define DRAGARC_CLI_H
+
+#include <stdio.h>
+
+#include "dragarc/dragarc.h"
+#include "dragarc/flight.h"
+#include "dragarc/scenario.h"
+
+/* Exit statuses (documented in docs/cli.md). */
+enum { EXIT_OK = 0, EXIT_NO_SOLUTION = 1, EXIT_BAD_INPUT = 2, EXIT_FAILED = 3 };
+
+/* Print "dragarc: WHERE: field: message" on stderr (WHERE and field omitted when empty) and return
+ * the exit status that goes with err->code. */
+int cli_report(const char *where, const dragarc_error *err);
+
+/* Print "dragarc: message" for a usage error and return EXIT_BAD_INPUT. */
+int cli_usage_error(const char *cmd, const char *fmt, ...) __attribute__((format(printf, 2, 3)));
+
+/* Parse a finite double from an option value; 0 on success. */
+int cli_parse_double(const char *text, double *out);
+
+/* The ':'-separated profile folders: $DRAGARC_PROFILE_PATH first, then the built-in ones. The
+ * returned string is static storage in the CLI. */
+const char *cli_profile_path(void);
+
+/* Print the human summary of a flight to fp, and its cautions when cautions_too. */
+void cli_print_flight(FILE *fp, const char *label, const dragarc_scenario *s, const dragarc_flight *f, int cautions_too);
+
+/* Print text indented by `indent` spaces, wrapped at `width` columns, after a first-line prefix. */
+void cli_print_wrapped(FILE *fp, const char *prefix, int indent, int width, const char *text);
+
+/* Fly a scenario and write its outputs; shared by `fly` and `demo`. */
+typedef struct cli_fly_options {
+    int json;
+    const char *trajectory; /* CSV path or NULL */
+    double dt;              /* s, sampling interval for the trajectory */
+} cli_fly_options;
+int cli_fly_scenario(const char *where, const dragarc_scenario *s, const cli_fly_options *o);
+
+int cmd_fly(int argc, char **argv);
+int cmd_atmosphere(int argc, char **argv);
+int cmd_demo(int argc, char **argv);
+
+#endif

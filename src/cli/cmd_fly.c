@@ -1,0 +1,61 @@
+/* cmd_fly.c: `dragarc fly SCENARIO [--json] [--trajectory FILE.csv] [--dt SECONDS]`.
+ * SPDX-License-Identifier: GPL-3.0-or-later
+ */
+#include <stdio.h>
+#include <string.h>
+
+#include "cli/cli.h"
+
+static const char HELP[] =
+    "usage: dragarc fly SCENARIO [--json] [--trajectory FILE.csv] [--dt SECONDS]\n"
+    "\n"
+    "Fly the scenario file SCENARIO (JSON, see docs/scenario.md) from launch to ground impact and print\n"
+    "range, downrange and crossrange, time of flight, apex, impact speed, angle and energy, the still-air\n"
+    "terminal speed and the vacuum range, with cautions.\n"
+    "\n"
+    "  --json               print one JSON object instead of the summary\n"
+    "  --trajectory FILE    write t,x,y,z,vx,vy,vz,speed,mach,reynolds (SI) every --dt seconds, plus the\n"
+    "                       exact impact row; written whole or not at all\n"
+    "  --dt SECONDS         sampling interval for --trajectory (default 0.05)\n"
+    "  -h, --help           this help\n"
+    "\n"
+    "Profiles named in a scenario are searched in $DRAGARC_PROFILE_PATH, then the built-in folders.\n"
+    "exit status: 0 success, 2 bad usage or input, 3 the computation failed (solver failure,\n"
+    "no impact within solver.max_time, atmosphere left).\n";
+
+int cmd_fly(int argc, char **argv)
+{
+    cli_fly_options o = {.json = 0, .trajectory = NULL, .dt = 0.05};
+    const char *file = NULL;
+    for (int i = 1; i < argc; i++) {
+        const char *a = argv[i];
+        if (strcmp(a, "-h") == 0 || strcmp(a, "--help") == 0) {
+            fputs(HELP, stdout);
+            return EXIT_OK;
+        } else if (strcmp(a, "--json") == 0) {
+            o.json = 1;
+        } else if (strcmp(a, "--trajectory") == 0) {
+            if (++i >= argc)
+                return cli_usage_error("fly", "--trajectory needs a file name");
+            o.trajectory = argv[i];
+        } else if (strcmp(a, "--dt") == 0) {
+            if (++i >= argc || cli_parse_double(argv[i], &o.dt) != 0 || !(o.dt > 0.0))
+                return cli_usage_error("fly", "--dt needs a positive number of seconds");
+        } else if (a[0] == '-' && a[1] != '\0') {
+            return cli_usage_error("fly", "unknown option '%s'", a);
+        } else if (!file) {
+            file = a;
+        } else {
+            return cli_usage_error("fly", "only one scenario file, got '%s' and '%s'", file, a);
+        }
+    }
+    if (!file)
+        return cli_usage_error("fly", "needs a scenario file");
+    dragarc_scenario s;
+    dragarc_error err;
+    if (dragarc_scenario_read(file, cli_profile_path(), &s, &err) != DRAGARC_OK)
+        return cli_report(file, &err);
+    int status = cli_fly_scenario(file, &s, &o);
+    dragarc_scenario_clear(&s);
+    return status;
+}

@@ -1,0 +1,50 @@
+/* main.c: the dragarc command-line program: dispatch to one command, decide the exit status.
+ * SPDX-License-Identifier: GPL-3.0-or-later
+ */
+#include <stdio.h>
+#include <string.h>
+
+#include "cli/cli.h"
+
+static const char USAGE[] =
+    "usage: dragarc COMMAND [ARGS...]\n"
+    "\n"
+    "Predicts where things launched, sprayed or shed through the air come down.\n"
+    "\n"
+    "commands:\n"
+    "  fly SCENARIO          fly one scenario file to ground impact; summary, JSON or trajectory CSV\n"
+    "  atmosphere ALT...     U.S. Standard Atmosphere 1976 at geometric altitudes in metres\n"
+    "  demo                  fly built-in example scenarios and explain what they show\n"
+    "\n"
+    "options:\n"
+    "  -h, --help            this help; 'dragarc COMMAND --help' for a command's own\n"
+    "  -V, --version         print the version\n"
+    "\n"
+    "exit status: 0 success, 1 no solution, 2 bad usage or input, 3 the computation failed.\n"
+    "Scenario files, models and sources: see docs/ in the source tree.\n";
+
+int main(int argc, char **argv)
+{
+    dragarc_init();
+    if (argc < 2) {
+        fputs(USAGE, stderr);
+        return EXIT_BAD_INPUT;
+    }
+    const char *cmd = argv[1];
+    if (strcmp(cmd, "-h") == 0 || strcmp(cmd, "--help") == 0 || strcmp(cmd, "help") == 0) {
+        fputs(USAGE, stdout);
+        return EXIT_OK;
+    }
+    if (strcmp(cmd, "-V") == 0 || strcmp(cmd, "--version") == 0) {
+        printf("dragarc %s\n", dragarc_version());
+        return EXIT_OK;
+    }
+    if (strcmp(cmd, "fly") == 0)
+        return cmd_fly(argc - 1, argv + 1);
+    if (strcmp(cmd, "atmosphere") == 0)
+        return cmd_atmosphere(argc - 1, argv + 1);
+    if (strcmp(cmd, "demo") == 0)
+        return cmd_demo(argc - 1, argv + 1);
+    fprintf(stderr, "dragarc: unknown command '%s' (see 'dragarc --help')\n", cmd);
+    return EXIT_BAD_INPUT;
+}

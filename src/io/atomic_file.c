@@ -1,0 +1,132 @@
+/* atomic_file.c: whole-file reads, and writes that land whole or not at all (temporary file + rename).
+ * SPDX-License-Identifier: GPL-3.0-or-later
+ */
+#define _POSIX_C_SOURCE 200809L
+#include <errno.h>
+#include <stdio.h>
+#include <stdlib.h>
+#include <string.h>
+#include <sys/stat.h>
+#include <unistd.h>
+
+#include "dragarc/output.h"
+
+int dragarc_text_file_read(const char *path, size_t max_bytes, char **out, dragarc_error *err)
+{
+    *out = NULL;
+    FILE *f = fopen(path, "rb");
+    if (!f)
+        return dragarc_error_set(err, DRAGARC_EIO, "", "cannot open %s: %s", path, strerror(errno));
+    size_t cap = 4096, len = 0;
+    char *buf = malloc(cap);
+    int rc = DRAGARC_OK;
+    if (!buf) {
+        fclose(f);
+        return dragarc_error_set(err, DRAGARC_ENOMEM, "", "out of memory reading %s", path);
+    }
+    for (;;) {
+        if (len + 1 >= cap) {
+            if (cap > max_bytes) {
+                rc = dragarc_error_set(err, DRAGARC_EIO, "", "%s is larger than %zu bytes", path, max_bytes);
+                break;
+            }
+            char *nb = realloc(buf, cap * 2);
+            if (!nb) {
+                rc = dragarc_error_set(err, DRAGARC_ENOMEM, "", "out of memory reading %s", path);
+                break;
+            }
+            buf = nb;
+            cap *= 2;
+        }
+        size_t got = fread(buf + len, 1, cap - 1 - len, f);
+        len += got;
+        if (got == 0) {
+            if (ferror(f))
+                rc = dragarc_error_set(err, DRAGARC_EIO, "", "cannot read %s: %s", path, strerror(errno));
+            break;
+        }
+    }
+    fclose(f);
+    if (rc == DRAGARC_OK && len > max_bytes)
+        rc = dragarc_error_set(err, DRAGARC_EIO, "", "%s is larger than %zu bytes", path, max_bytes);
+    if (rc == DRAGARC_OK && memchr(buf, '\0', len))
+        rc = dragarc_error_set(err, DRAGARC_EIO, "", "%s contains a NUL byte: not a text file", path);
+    if (rc != DRAGARC_OK) {
+        free(buf);
+        return rc;
+    }
+    buf[len] = '\0';
+    *out = buf;
+    return DRAGARC_OK;
+}
+
+int dragarc_output_open(dragarc_output *o, const char *path, dragarc_error *err)
+{
+    memset(o, 0, sizeof *o);
+    if (strcmp(path, "-") == 0) {
+        o->fp = stdout;
+        snprintf(o->path, sizeof o->path, "-");
+        return DRAGARC_OK;
+    }
+    if (strlen(path) + 16 >= sizeof o->tmp_path)
+        return dragarc_error_set(err, DRAGARC_EIO, "", "output path is too long: %s", path);
+    snprintf(o->path, sizeof o->path, "%s", path);
+    snprintf(o->tmp_path, sizeof o->tmp_path, "%s.tmp-XXXXXX", path);
+    int fd = mkstemp(o->tmp_path);
+    if (fd < 0) {
+        int e = errno;
+        o->tmp_path[0] = '\0';
+        return dragarc_error_set(err, DRAGARC_EIO, "", "cannot write %s: %s", path, strerror(e));
+    }
+    /* mkstemp makes the file private (0600); results are ordinary documents, readable by others. */
+    (void)fchmod(fd, 0644);
+    o->fp = fdopen(fd, "w");
+    if (!o->fp) {
+        int e = errno;
+        close(fd);
+        unlink(o->tmp_path);
+        o->tmp_path[0] = '\0';
+        return dragarc_error_set(err, DRAGARC_EIO, "", "cannot write %s: %s", path, strerror(e));
+    }
+    return DRAGARC_OK;
+}
+
+int dragarc_output_commit(dragarc_output *o, dragarc_error *err)
+{
+    if (!o->fp)
+        return dragarc_error_set(err, DRAGARC_EIO, "", "output %s is not open", o->path);
+    if (o->fp == stdout) {
+        o->fp = NULL;
+        if (fflush(stdout) != 0)
+            return dragarc_error_set(err, DRAGARC_EIO, "", "cannot write to standard output: %s", strerror(errno));
+        return DRAGARC_OK;
+    }
+    int bad = ferror(o->fp) || fflush(o->fp) != 0 || fsync(fileno(o->fp)) != 0;
+    int e = errno;
+    if (fclose(o->fp) != 0 && !bad) {
+        bad = 1;
+        e = errno;
+    }
+    o->fp = NULL;
+    if (!bad && rename(o->tmp_path, o->path) != 0) {
+        bad = 1;
+        e = errno;
+    }
+    if (bad) {
+        unlink(o->tmp_path);
+        o->tmp_path[0] = '\0';
+        return dragarc_error_set(err, DRAGARC_EIO, "", "cannot write %s: %s", o->path, strerror(e));
+    }
+    o->tmp_path[0] = '\0';
+    return DRAGARC_OK;
+}
+
+void dragarc_output_abort(dragarc_output *o)
+{
+    if (o->fp && o->fp != stdout)
+        fclose(o->fp);
+    o->fp = NULL;
+    if (o->tmp_path[0])
+        unlink(o->tmp_path);
+    o->tmp_path[0] = '\0';
+}

@@ -1,0 +1,49 @@
+/* cautions.c: plain-language cautions for results a person could act on.
+ * SPDX-License-Identifier: GPL-3.0-or-later
+ */
+#include "dragarc/cautions.h"
+
+static const char LIMITS[] =
+    "Model limits: a point mass with drag, gravity and buoyancy only, on a flat, non-rotating Earth; no spin "
+    "lift, no gusts or turbulence, no tumbling. Treat results as estimates and check them against measurement "
+    "before relying on them.";
+static const char DECIDE[] =
+    "Safety distances, spectator and worker exclusion zones, spray buffer zones and debris hazard areas are set "
+    "by local codes, product labels, regulations and licensed practice, not by this estimate.";
+static const char ENERGY[] =
+    "The impact energy is at or above 15 J, a level often used as a threshold for serious injury from falling "
+    "objects (common practice, no source): keep people out of the landing area.";
+static const char TRANSONIC[] =
+    "The flight reaches Mach 0.6 or more but the drag law ignores Mach number: drag rises steeply near Mach 1, "
+    "so use a Mach table for this projectile.";
+static const char CLAMPED[] =
+    "The flight left the range of the drag table; Cd was held at the table's end value there.";
+static const char CRISIS[] =
+    "The Reynolds number passed through the drag crisis of a smooth sphere (2e5 to 1e6), where Cd falls sharply "
+    "and depends on surface roughness and turbulence: ranges there are sensitive to the ball's surface.";
+static const char DENSE[] =
+    "The fluid's density is more than 1 % of the body's: buoyancy is included, but added mass and unsteady "
+    "(history) forces are not, so the acceleration phase is only approximate.";
+
+size_t dragarc_cautions_flight(const dragarc_scenario *s, const dragarc_flight *f, const char **out, size_t max)
+{
+    (void)s;
+    const char *all[8];
+    size_t n = 0;
+    all[n++] = LIMITS;
+    all[n++] = DECIDE;
+    if (f->notes & DRAGARC_NOTE_HIGH_ENERGY)
+        all[n++] = ENERGY;
+    if (f->notes & DRAGARC_NOTE_TRANSONIC)
+        all[n++] = TRANSONIC;
+    if (f->notes & DRAGARC_NOTE_TABLE_CLAMPED)
+        all[n++] = CLAMPED;
+    if (f->notes & DRAGARC_NOTE_DRAG_CRISIS)
+        all[n++] = CRISIS;
+    if (f->notes & DRAGARC_NOTE_DENSE_FLUID)
+        all[n++] = DENSE;
+    size_t k = n < max ? n : max;
+    for (size_t i = 0; i < k; i++)
+        out[i] = all[i];
+    return k;
+}

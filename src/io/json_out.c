@@ -1,0 +1,114 @@
+/* json_out.c: JSON documents of results (cJSON builds them; numbers print in the C locale).
+ * SPDX-License-Identifier: GPL-3.0-or-later
+ *
+ * A value that is not finite (no terminal speed, a vacuum flight that never lands) is written as
+ * null, never as NaN or Infinity, which are not JSON.
+ */
+#include <math.h>
+#include <stdlib.h>
+
+#include <cjson/cJSON.h>
+
+#include "core/constants.h"
+#include "dragarc/cautions.h"
+#include "dragarc/output.h"
+
+static void add_num(cJSON *o, const char *key, double v)
+{
+    if (isfinite(v))
+        cJSON_AddNumberToObject(o, key, v);
+    else
+        cJSON_AddNullToObject(o, key);
+}
+
+static cJSON *vec3(const double *v)
+{
+    cJSON *o = cJSON_CreateObject();
+    add_num(o, "x", v[0]);
+    add_num(o, "y", v[1]);
+    add_num(o, "z", v[2]);
+    return o;
+}
+
+static void add_units(cJSON *doc, const char *const *pairs)
+{
+    cJSON *u = cJSON_AddObjectToObject(doc, "units");
+    for (; pairs[0]; pairs += 2)
+        cJSON_AddStringToObject(u, pairs[0], pairs[1]);
+}
+
+static char *finish(cJSON *doc)
+{
+    char *text = doc ? cJSON_Print(doc) : NULL;
+    cJSON_Delete(doc);
+    return text;
+}
+
+char *dragarc_flight_json(const dragarc_scenario *s, const dragarc_flight *f)
+{
+    cJSON *doc = cJSON_CreateObject();
+    if (!doc)
+        return NULL;
+    cJSON_AddStringToObject(doc, "scenario", s->name);
+    cJSON_AddStringToObject(doc, "dragarc_version", DRAGARC_VERSION_STRING);
+    cJSON *sum = cJSON_AddObjectToObject(doc, "summary");
+    add_num(sum, "range", f->range);
+    add_num(sum, "downrange", f->downrange);
+    add_num(sum, "crossrange", f->crossrange);
+    add_num(sum, "time_of_flight", f->time_of_flight);
+    add_num(sum, "apex_height", f->apex_height);
+    add_num(sum, "apex_time", f->apex_time);
+    add_num(sum, "impact_speed", f->impact_speed);
+    add_num(sum, "impact_angle", f->impact_angle / DRAGARC_DEG);
+    add_num(sum, "impact_energy", f->impact_energy);
+    add_num(sum, "launch_energy", f->launch_energy);
+    add_num(sum, "terminal_speed", f->terminal_speed);
+    add_num(sum, "vacuum_range", f->vacuum_range);
+    cJSON_AddItemToObject(sum, "impact_position", vec3(f->impact));
+    cJSON_AddItemToObject(sum, "impact_velocity", vec3(f->impact + 3));
+    add_num(sum, "max_mach", f->max_mach);
+    add_num(sum, "max_reynolds", f->max_reynolds);
+    cJSON *sol = cJSON_AddObjectToObject(doc, "solver");
+    cJSON_AddStringToObject(sol, "method", dragarc_method_name(f->method));
+    cJSON_AddNumberToObject(sol, "steps", (double)f->steps);
+    cJSON_AddNumberToObject(sol, "rtol", s->solver.rtol);
+    cJSON_AddNumberToObject(sol, "atol", s->solver.atol);
+    add_num(sol, "relaxation_time", f->relaxation_time);
+    static const char *const units[] = {"range", "m", "downrange", "m", "crossrange", "m", "time_of_flight", "s",
+                                        "apex_height", "m", "apex_time", "s", "impact_speed", "m/s",
+                                        "impact_angle", "degree", "impact_energy", "J", "launch_energy", "J",
+                                        "terminal_speed", "m/s", "vacuum_range", "m", "impact_position", "m",
+                                        "impact_velocity", "m/s", "relaxation_time", "s", NULL};
+    add_units(doc, units);
+    const char *cautions[8];
+    size_t nc = dragarc_cautions_flight(s, f, cautions, 8);
+    cJSON *ca = cJSON_AddArrayToObject(doc, "cautions");
+    for (size_t i = 0; i < nc; i++)
+        cJSON_AddItemToArray(ca, cJSON_CreateString(cautions[i]));
+    return finish(doc);
+}
+
+char *dragarc_atmosphere_json(const double *altitudes, const dragarc_air *levels, size_t n, double temperature_offset)
+{
+    cJSON *doc = cJSON_CreateObject();
+    if (!doc)
+        return NULL;
+    cJSON_AddStringToObject(doc, "model", "U.S. Standard Atmosphere 1976");
+    cJSON_AddNumberToObject(doc, "temperature_offset", temperature_offset);
+    cJSON *arr = cJSON_AddArrayToObject(doc, "levels");
+    for (size_t i = 0; i < n; i++) {
+        cJSON *l = cJSON_CreateObject();
+        add_num(l, "altitude", altitudes[i]);
+        add_num(l, "temperature", levels[i].temperature);
+        add_num(l, "pressure", levels[i].pressure);
+        add_num(l, "density", levels[i].density);
+        add_num(l, "speed_of_sound", levels[i].speed_of_sound);
+        add_num(l, "viscosity", levels[i].viscosity);
+        cJSON_AddItemToArray(arr, l);
+    }
+    static const char *const units[] = {"altitude", "m", "temperature", "K", "temperature_offset", "K",
+                                        "pressure", "Pa", "density", "kg/m^3", "speed_of_sound", "m/s",
+                                        "viscosity", "Pa s", NULL};
+    add_units(doc, units);
+    return finish(doc);
+}

@@ -1,0 +1,639 @@
+/* scenario_json.c: the scenario file reader (the only place that includes cJSON).
+ * SPDX-License-Identifier: GPL-3.0-or-later
+ *
+ * Parse, validate every key against the documented schema (docs/scenario.md), copy into plain
+ * structs in SI units and radians, delete the cJSON tree. Every error names the field path.
+ */
+#include <errno.h>
+#include <math.h>
+#include <stdio.h>
+#include <stdlib.h>
+#include <string.h>
+
+#include <cjson/cJSON.h>
+
+#include "core/constants.h"
+#include "dragarc/scenario.h"
+#include "dragarc/output.h"
+
+#define PATH_MAX_LEN 128
+
+/* ---- small helpers ------------------------------------------------------------------------ */
+
+static void join(char *dst, size_t n, const char *path, const char *key)
+{
+    if (!path || !*path)
+        snprintf(dst, n, "%s", key);
+    else
+        snprintf(dst, n, "%s.%s", path, key);
+}
+
+static const char *type_name(const cJSON *j)
+{
+    if (cJSON_IsNumber(j)) return "a number";
+    if (cJSON_IsString(j)) return "a string";
+    if (cJSON_IsBool(j)) return "a boolean";
+    if (cJSON_IsNull(j)) return "null";
+    if (cJSON_IsArray(j)) return "an array";
+    if (cJSON_IsObject(j)) return "an object";
+    return "an unknown value";
+}
+
+/* Every key of obj must be in allowed (NULL-terminated) and appear once. */
+static int check_keys(const cJSON *obj, const char *path, const char *const *allowed, dragarc_error *err)
+{
+    for (const cJSON *it = obj->child; it; it = it->next) {
+        char field[PATH_MAX_LEN];
+        join(field, sizeof field, path, it->string ? it->string : "");
+        int known = 0;
+        for (const char *const *a = allowed; *a; a++)
+            if (it->string && strcmp(it->string, *a) == 0)
+                known = 1;
+        if (!known) {
+            char list[256] = "";
+            for (const char *const *a = allowed; *a; a++) {
+                strncat(list, *a, sizeof list - strlen(list) - 1);
+                if (a[1])
+                    strncat(list, ", ", sizeof list - strlen(list) - 1);
+            }
+            return dragarc_error_set(err, DRAGARC_EINVAL, field, "unknown key (allowed here: %s)", list);
+        }
+        for (const cJSON *jt = it->next; jt; jt = jt->next)
+            if (jt->string && strcmp(jt->string, it->string) == 0)
+                return dragarc_error_set(err, DRAGARC_EINVAL, field, "key appears more than once");
+    }
+    return DRAGARC_OK;
+}
+
+static int want_object(const cJSON *j, const char *field, dragarc_error *err)
+{
+    if (!cJSON_IsObject(j))
+        return dragarc_error_set(err, DRAGARC_EINVAL, field, "must be an object, not %s", type_name(j));
+    return DRAGARC_OK;
+}
+
+/* Number at obj[key]: *present = 0 when absent (and not required). */
+static int get_number(const cJSON *obj, const char *path, const char *key, int required, double *out,
+                      int *present, dragarc_error *err)
+{
+    char field[PATH_MAX_LEN];
+    join(field, sizeof field, path, key);
+    const cJSON *j = cJSON_GetObjectItemCaseSensitive(obj, key);
+    if (present)
+        *present = j != NULL;
+    if (!j) {
+        if (required)
+            return dragarc_error_set(err, DRAGARC_EINVAL, field, "is required");
+        return DRAGARC_OK;
+    }
+    if (!cJSON_IsNumber(j))
+        return dragarc_error_set(err, DRAGARC_EINVAL, field, "must be a number, not %s", type_name(j));
+    if (!isfinite(j->valuedouble))
+        return dragarc_error_set(err, DRAGARC_EINVAL, field, "must be a finite number");
+    *out = j->valuedouble;
+    return DRAGARC_OK;
+}
+
+static int get_string(const cJSON *obj, const char *path, const char *key, int required, const char **out,
+                      dragarc_error *err)
+{
+    char field[PATH_MAX_LEN];
+    join(field, sizeof field, path, key);
+    const cJSON *j = cJSON_GetObjectItemCaseSensitive(obj, key);
+    if (!j) {
+        if (required)
+            return dragarc_error_set(err, DRAGARC_EINVAL, field, "is required");
+        return DRAGARC_OK;
+    }
+    if (!cJSON_IsString(j) || !j->valuestring)
+        return dragarc_error_set(err, DRAGARC_EINVAL, field, "must be a string, not %s", type_name(j));
+    *out = j->valuestring;
+    return DRAGARC_OK;
+}
+
+#define TRY(expr)                                                                                              \
+    do {                                                                                                       \
+        int rc_ = (expr);                                                                                      \
+        if (rc_ != DRAGARC_OK)                                                                                 \
+            return rc_;                                                                                        \
+    } while (0)
+
+/* Parse JSON text, reporting a syntax error by line and column. */
+static int parse_text(const char *text, const char *what, cJSON **out, dragarc_error *err)
+{
+    const char *end = NULL;
+    cJSON *root = cJSON_ParseWithOpts(text, &end, 1);
+    if (!root) {
+        int line = 1, col = 1;
+        for (const char *p = text; end && p < end && *p; p++) {
+            if (*p == '\n')
+                line++, col = 1;
+            else
+                col++;
+        }
+        return dragarc_error_set(err, DRAGARC_EINVAL, "", "%s is not valid JSON (line %d, column %d)", what, line, col);
+    }
+    *out = root;
+    return DRAGARC_OK;
+}
+
+/* ---- drag ----------------------------------------------------------------------------------- */
+
+static int read_drag(const cJSON *j, const char *path, dragarc_drag *d, dragarc_error *err)
+{
+    TRY(want_object(j, path, err));
+    const char *model = NULL;
+    TRY(get_string(j, path, "model", 1, &model, err));
+    char field[PATH_MAX_LEN];
+    join(field, sizeof field, path, "model");
+    dragarc_drag_model m;
+    if (dragarc_drag_model_from_name(model, &m) != DRAGARC_OK)
+        return dragarc_error_set(err, DRAGARC_EINVAL, field,
+                                 "unknown drag model \"%s\" (none, constant, linear, quadratic, sphere, table)", model);
+    memset(d, 0, sizeof *d);
+    d->model = m;
+    switch (m) {
+    case DRAGARC_DRAG_NONE:
+    case DRAGARC_DRAG_SPHERE: {
+        static const char *const keys[] = {"model", "source", NULL};
+        TRY(check_keys(j, path, keys, err));
+        break;
+    }
+    case DRAGARC_DRAG_CONSTANT: {
+        static const char *const keys[] = {"model", "cd", "source", NULL};
+        TRY(check_keys(j, path, keys, err));
+        TRY(get_number(j, path, "cd", 1, &d->cd, NULL, err));
+        break;
+    }
+    case DRAGARC_DRAG_LINEAR: {
+        static const char *const keys[] = {"model", "k", "source", NULL};
+        TRY(check_keys(j, path, keys, err));
+        TRY(get_number(j, path, "k", 1, &d->k, NULL, err));
+        break;
+    }
+    case DRAGARC_DRAG_QUADRATIC: {
+        static const char *const keys[] = {"model", "c", "source", NULL};
+        TRY(check_keys(j, path, keys, err));
+        TRY(get_number(j, path, "c", 1, &d->c, NULL, err));
+        break;
+    }
+    case DRAGARC_DRAG_TABLE: {
+        static const char *const keys[] = {"model", "x", "points", "source", NULL};
+        TRY(check_keys(j, path, keys, err));
+        const char *axis = NULL;
+        TRY(get_string(j, path, "x", 1, &axis, err));
+        dragarc_drag_axis ax;
+        join(field, sizeof field, path, "x");
+        if (dragarc_drag_axis_from_name(axis, &ax) != DRAGARC_OK)
+            return dragarc_error_set(err, DRAGARC_EINVAL, field, "unknown table axis \"%s\" (reynolds, mach, speed)", axis);
+        const cJSON *pts = cJSON_GetObjectItemCaseSensitive(j, "points");
+        join(field, sizeof field, path, "points");
+        if (!pts)
+            return dragarc_error_set(err, DRAGARC_EINVAL, field, "is required");
+        if (!cJSON_IsArray(pts))
+            return dragarc_error_set(err, DRAGARC_EINVAL, field, "must be an array of [x, cd] pairs, not %s", type_name(pts));
+        int n = cJSON_GetArraySize(pts);
+        if (n < 2)
+            return dragarc_error_set(err, DRAGARC_EINVAL, field, "needs at least 2 points (got %d)", n);
+        if (n > 100000)
+            return dragarc_error_set(err, DRAGARC_EINVAL, field, "has %d points; at most 100000 are allowed", n);
+        double *x = malloc((size_t)n * sizeof *x), *y = malloc((size_t)n * sizeof *y);
+        if (!x || !y) {
+            free(x), free(y);
+            return dragarc_error_set(err, DRAGARC_ENOMEM, field, "out of memory");
+        }
+        int i = 0, rc = DRAGARC_OK;
+        for (const cJSON *p = pts->child; p; p = p->next, i++) {
+            char pf[PATH_MAX_LEN];
+            snprintf(pf, sizeof pf, "%s[%d]", field, i);
+            if (!cJSON_IsArray(p) || cJSON_GetArraySize(p) != 2 || !cJSON_IsNumber(p->child) ||
+                !cJSON_IsNumber(p->child->next)) {
+                rc = dragarc_error_set(err, DRAGARC_EINVAL, pf, "must be a pair of numbers [x, cd]");
+                break;
+            }
+            x[i] = p->child->valuedouble;
+            y[i] = p->child->next->valuedouble;
+        }
+        if (rc == DRAGARC_OK) {
+            rc = dragarc_drag_table_set(d, ax, x, y, (size_t)n, err);
+            if (rc != DRAGARC_OK)
+                dragarc_error_prefix(err, path);
+        }
+        free(x), free(y);
+        if (rc != DRAGARC_OK)
+            return rc;
+        break;
+    }
+    }
+    int rc = dragarc_drag_check(d, err);
+    if (rc != DRAGARC_OK)
+        dragarc_error_prefix(err, path);
+    return rc;
+}
+
+/* ---- projectile ----------------------------------------------------------------------------- */
+
+static int read_projectile_object(const cJSON *j, const char *path, dragarc_projectile *p, dragarc_error *err)
+{
+    static const char *const keys[] = {"name", "description", "source", "mass", "density", "diameter",
+                                       "area", "volume", "drag", NULL};
+    TRY(want_object(j, path, err));
+    TRY(check_keys(j, path, keys, err));
+    const char *name = NULL;
+    TRY(get_string(j, path, "name", 0, &name, err));
+    if (name)
+        snprintf(p->name, sizeof p->name, "%s", name);
+    double mass = 0.0, density = 0.0;
+    int has_mass = 0, has_density = 0, has_area = 0, has_volume = 0;
+    TRY(get_number(j, path, "mass", 0, &mass, &has_mass, err));
+    TRY(get_number(j, path, "density", 0, &density, &has_density, err));
+    TRY(get_number(j, path, "diameter", 1, &p->diameter, NULL, err));
+    TRY(get_number(j, path, "area", 0, &p->area, &has_area, err));
+    TRY(get_number(j, path, "volume", 0, &p->volume, &has_volume, err));
+    char field[PATH_MAX_LEN];
+    if (has_mass == has_density) {
+        join(field, sizeof field, path, has_mass ? "density" : "mass");
+        return dragarc_error_set(err, DRAGARC_EINVAL, field,
+                                 has_mass ? "give either mass or density, not both" : "is required (or give density)");
+    }
+    if (!(p->diameter > 0.0)) {
+        join(field, sizeof field, path, "diameter");
+        return dragarc_error_set(err, DRAGARC_EINVAL, field, "must be positive, in m (got %g)", p->diameter);
+    }
+    if (!has_area)
+        p->area = 0.25 * DRAGARC_PI * p->diameter * p->diameter;
+    if (!has_volume)
+        p->volume = DRAGARC_PI * p->diameter * p->diameter * p->diameter / 6.0;
+    if (has_density) {
+        join(field, sizeof field, path, "density");
+        if (!(density > 0.0))
+            return dragarc_error_set(err, DRAGARC_EINVAL, field, "must be positive, in kg/m^3 (got %g)", density);
+        if (!(p->volume > 0.0))
+            return dragarc_error_set(err, DRAGARC_EINVAL, field, "needs a positive volume to give a mass");
+        mass = density * p->volume;
+    }
+    p->mass = mass;
+    const cJSON *dj = cJSON_GetObjectItemCaseSensitive(j, "drag");
+    join(field, sizeof field, path, "drag");
+    if (!dj)
+        return dragarc_error_set(err, DRAGARC_EINVAL, field, "is required (e.g. {\"model\": \"sphere\"})");
+    TRY(read_drag(dj, field, &p->drag, err));
+    int rc = dragarc_projectile_check(p, err);
+    if (rc != DRAGARC_OK)
+        dragarc_error_prefix(err, path);
+    return rc;
+}
+
+static int is_path_like(const char *s)
+{
+    size_t n = strlen(s);
+    return strchr(s, '/') != NULL || (n > 5 && strcmp(s + n - 5, ".json") == 0);
+}
+
+static int read_projectile_file(const char *file, dragarc_projectile *p, dragarc_error *err)
+{
+    char *text = NULL;
+    int rc = dragarc_text_file_read(file, 4u << 20, &text, err);
+    if (rc != DRAGARC_OK) {
+        if (err) {
+            char msg[sizeof err->message];
+            snprintf(msg, sizeof msg, "%s", err->message);
+            dragarc_error_set(err, rc, "projectile", "cannot read profile: %s", msg);
+        }
+        return rc;
+    }
+    cJSON *root = NULL;
+    rc = parse_text(text, "the profile", &root, err);
+    free(text);
+    if (rc != DRAGARC_OK) {
+        if (err) {
+            char msg[sizeof err->message];
+            snprintf(msg, sizeof msg, "%s: %s", file, err->message);
+            dragarc_error_set(err, rc, "projectile", "%s", msg);
+        }
+        return rc;
+    }
+    rc = read_projectile_object(root, "projectile", p, err);
+    cJSON_Delete(root);
+    if (rc != DRAGARC_OK && err) {
+        char msg[sizeof err->message];
+        snprintf(msg, sizeof msg, "%s (in profile %s)", err->message, file);
+        snprintf(err->message, sizeof err->message, "%s", msg);
+    }
+    return rc;
+}
+
+static int read_projectile(const cJSON *j, const char *base_dir, const char *profile_path, dragarc_projectile *p,
+                           dragarc_error *err)
+{
+    if (!cJSON_IsString(j))
+        return read_projectile_object(j, "projectile", p, err);
+    const char *ref = j->valuestring;
+    char file[4096];
+    if (is_path_like(ref)) {
+        if (ref[0] == '/' || !base_dir || !*base_dir)
+            snprintf(file, sizeof file, "%s", ref);
+        else
+            snprintf(file, sizeof file, "%s/%s", base_dir, ref);
+        return read_projectile_file(file, p, err);
+    }
+    for (const char *c = ref; *c; c++)
+        if (!((*c >= 'a' && *c <= 'z') || (*c >= 'A' && *c <= 'Z') || (*c >= '0' && *c <= '9') || *c == '-' ||
+              *c == '_' || *c == '.'))
+            return dragarc_error_set(err, DRAGARC_EINVAL, "projectile",
+                                     "\"%s\" is neither a profile name (letters, digits, '-', '_', '.') nor a path", ref);
+    const char *dirs = profile_path ? profile_path : "";
+    while (*dirs) {
+        const char *colon = strchr(dirs, ':');
+        size_t len = colon ? (size_t)(colon - dirs) : strlen(dirs);
+        if (len > 0 && len < 3000) {
+            snprintf(file, sizeof file, "%.*s/%s.json", (int)len, dirs, ref);
+            FILE *f = fopen(file, "rb");
+            if (f) {
+                fclose(f);
+                int rc = read_projectile_file(file, p, err);
+                if (rc == DRAGARC_OK && !p->name[0])
+                    snprintf(p->name, sizeof p->name, "%s", ref);
+                return rc;
+            }
+        }
+        dirs += len;
+        if (*dirs == ':')
+            dirs++;
+    }
+    return dragarc_error_set(err, DRAGARC_EINVAL, "projectile", "no profile named \"%s\" in the profile folders (%s)", ref,
+                             profile_path && *profile_path ? profile_path : "none set");
+}
+
+/* ---- launch, environment, ground, solver ----------------------------------------------------- */
+
+static int read_launch(const cJSON *j, dragarc_launch *l, dragarc_error *err)
+{
+    static const char *const keys[] = {"speed", "elevation", "azimuth", "height", NULL};
+    TRY(want_object(j, "launch", err));
+    TRY(check_keys(j, "launch", keys, err));
+    double elev = 0.0, az = 0.0;
+    TRY(get_number(j, "launch", "speed", 1, &l->speed, NULL, err));
+    TRY(get_number(j, "launch", "elevation", 1, &elev, NULL, err));
+    TRY(get_number(j, "launch", "azimuth", 0, &az, NULL, err));
+    TRY(get_number(j, "launch", "height", 0, &l->height, NULL, err));
+    if (!(l->speed >= 0.0))
+        return dragarc_error_set(err, DRAGARC_EINVAL, "launch.speed", "must be zero or positive, in m/s (got %g)", l->speed);
+    if (!(elev >= -90.0 && elev <= 90.0))
+        return dragarc_error_set(err, DRAGARC_EINVAL, "launch.elevation", "must be between -90 and 90 degrees (got %g)", elev);
+    if (!(az >= -360.0 && az <= 360.0))
+        return dragarc_error_set(err, DRAGARC_EINVAL, "launch.azimuth", "must be between -360 and 360 degrees (got %g)", az);
+    l->elevation = elev * DRAGARC_DEG;
+    l->azimuth = az * DRAGARC_DEG;
+    return DRAGARC_OK;
+}
+
+static int read_atmosphere(const cJSON *j, dragarc_atmosphere *a, dragarc_error *err)
+{
+    const char *path = "environment.atmosphere";
+    TRY(want_object(j, path, err));
+    const char *model = "isa";
+    TRY(get_string(j, path, "model", 0, &model, err));
+    dragarc_atmosphere_default(a);
+    if (strcmp(model, "isa") == 0) {
+        static const char *const keys[] = {"model", "site_elevation", "temperature_offset", NULL};
+        TRY(check_keys(j, path, keys, err));
+        a->model = DRAGARC_ATMOSPHERE_ISA;
+        TRY(get_number(j, path, "site_elevation", 0, &a->site_elevation, NULL, err));
+        TRY(get_number(j, path, "temperature_offset", 0, &a->temperature_offset, NULL, err));
+    } else if (strcmp(model, "constant") == 0) {
+        static const char *const keys[] = {"model", "density", "viscosity", "temperature", "speed_of_sound", NULL};
+        TRY(check_keys(j, path, keys, err));
+        a->model = DRAGARC_ATMOSPHERE_CONSTANT;
+        TRY(get_number(j, path, "density", 1, &a->density, NULL, err));
+        TRY(get_number(j, path, "viscosity", 1, &a->viscosity, NULL, err));
+        a->temperature = 293.15;
+        TRY(get_number(j, path, "temperature", 0, &a->temperature, NULL, err));
+        TRY(get_number(j, path, "speed_of_sound", 0, &a->speed_of_sound, NULL, err));
+    } else if (strcmp(model, "exponential") == 0) {
+        static const char *const keys[] = {"model", "density", "scale_height", "temperature", "site_elevation", NULL};
+        TRY(check_keys(j, path, keys, err));
+        a->model = DRAGARC_ATMOSPHERE_EXPONENTIAL;
+        TRY(get_number(j, path, "density", 1, &a->density, NULL, err));
+        TRY(get_number(j, path, "scale_height", 1, &a->scale_height, NULL, err));
+        TRY(get_number(j, path, "temperature", 0, &a->temperature, NULL, err));
+        TRY(get_number(j, path, "site_elevation", 0, &a->site_elevation, NULL, err));
+    } else {
+        return dragarc_error_set(err, DRAGARC_EINVAL, "environment.atmosphere.model",
+                                 "unknown atmosphere model \"%s\" (isa, constant, exponential)", model);
+    }
+    int rc = dragarc_atmosphere_check(a, err);
+    if (rc != DRAGARC_OK)
+        dragarc_error_prefix(err, path);
+    return rc;
+}
+
+static int read_direction(const cJSON *j, const char *path, const char *key, int required, double *out,
+                          dragarc_error *err)
+{
+    double deg = 0.0;
+    int present = 0;
+    TRY(get_number(j, path, key, required, &deg, &present, err));
+    if (present && !(deg >= -360.0 && deg <= 360.0)) {
+        char field[PATH_MAX_LEN];
+        join(field, sizeof field, path, key);
+        return dragarc_error_set(err, DRAGARC_EINVAL, field, "must be between -360 and 360 degrees (got %g)", deg);
+    }
+    if (present)
+        *out = deg * DRAGARC_DEG;
+    return DRAGARC_OK;
+}
+
+static int read_layers(const cJSON *arr, const char *path, dragarc_wind *w, dragarc_error *err)
+{
+    char field[PATH_MAX_LEN];
+    join(field, sizeof field, path, "layers");
+    if (!arr)
+        return dragarc_error_set(err, DRAGARC_EINVAL, field, "is required for a layered wind");
+    if (!cJSON_IsArray(arr))
+        return dragarc_error_set(err, DRAGARC_EINVAL, field, "must be an array of {height, speed, from}, not %s",
+                                 type_name(arr));
+    int n = cJSON_GetArraySize(arr);
+    if (n < 1 || n > 100000)
+        return dragarc_error_set(err, DRAGARC_EINVAL, field, "needs between 1 and 100000 rows (got %d)", n);
+    w->layers = calloc((size_t)n, sizeof *w->layers);
+    if (!w->layers)
+        return dragarc_error_set(err, DRAGARC_ENOMEM, field, "out of memory");
+    w->nlayers = (size_t)n;
+    int i = 0;
+    for (const cJSON *row = arr->child; row; row = row->next, i++) {
+        static const char *const keys[] = {"height", "speed", "from", NULL};
+        char rf[PATH_MAX_LEN];
+        snprintf(rf, sizeof rf, "%s[%d]", field, i);
+        TRY(want_object(row, rf, err));
+        TRY(check_keys(row, rf, keys, err));
+        TRY(get_number(row, rf, "height", 1, &w->layers[i].height, NULL, err));
+        TRY(get_number(row, rf, "speed", 1, &w->layers[i].speed, NULL, err));
+        TRY(read_direction(row, rf, "from", 1, &w->layers[i].from, err));
+    }
+    return DRAGARC_OK;
+}
+
+static int read_wind(const cJSON *j, dragarc_wind *w, dragarc_error *err)
+{
+    const char *path = "environment.wind";
+    TRY(want_object(j, path, err));
+    const char *model = NULL;
+    TRY(get_string(j, path, "model", 0, &model, err));
+    if (!model)
+        model = cJSON_GetObjectItemCaseSensitive(j, "layers") ? "layered" : "constant";
+    dragarc_wind_default(w);
+    if (strcmp(model, "none") == 0) {
+        static const char *const keys[] = {"model", NULL};
+        TRY(check_keys(j, path, keys, err));
+        return DRAGARC_OK;
+    } else if (strcmp(model, "constant") == 0) {
+        static const char *const keys[] = {"model", "speed", "from", NULL};
+        TRY(check_keys(j, path, keys, err));
+        w->model = DRAGARC_WIND_CONSTANT;
+        TRY(get_number(j, path, "speed", 1, &w->speed, NULL, err));
+        TRY(read_direction(j, path, "from", 1, &w->from, err));
+    } else if (strcmp(model, "layered") == 0) {
+        static const char *const keys[] = {"model", "layers", NULL};
+        TRY(check_keys(j, path, keys, err));
+        w->model = DRAGARC_WIND_LAYERED;
+        TRY(read_layers(cJSON_GetObjectItemCaseSensitive(j, "layers"), path, w, err));
+    } else if (strcmp(model, "power") == 0) {
+        static const char *const keys[] = {"model", "speed", "from", "ref_height", "exponent", NULL};
+        TRY(check_keys(j, path, keys, err));
+        w->model = DRAGARC_WIND_POWER;
+        TRY(get_number(j, path, "speed", 1, &w->speed, NULL, err));
+        TRY(read_direction(j, path, "from", 1, &w->from, err));
+        TRY(get_number(j, path, "ref_height", 0, &w->ref_height, NULL, err));
+        TRY(get_number(j, path, "exponent", 0, &w->exponent, NULL, err));
+    } else if (strcmp(model, "log") == 0) {
+        static const char *const keys[] = {"model", "speed", "from", "ref_height", "roughness", NULL};
+        TRY(check_keys(j, path, keys, err));
+        w->model = DRAGARC_WIND_LOG;
+        TRY(get_number(j, path, "speed", 1, &w->speed, NULL, err));
+        TRY(read_direction(j, path, "from", 1, &w->from, err));
+        TRY(get_number(j, path, "ref_height", 0, &w->ref_height, NULL, err));
+        TRY(get_number(j, path, "roughness", 0, &w->roughness, NULL, err));
+    } else {
+        return dragarc_error_set(err, DRAGARC_EINVAL, "environment.wind.model",
+                                 "unknown wind model \"%s\" (none, constant, layered, power, log)", model);
+    }
+    int rc = dragarc_wind_check(w, err);
+    if (rc != DRAGARC_OK)
+        dragarc_error_prefix(err, path);
+    return rc;
+}
+
+static int read_environment(const cJSON *j, dragarc_scenario *s, dragarc_error *err)
+{
+    static const char *const keys[] = {"gravity", "atmosphere", "wind", NULL};
+    TRY(want_object(j, "environment", err));
+    TRY(check_keys(j, "environment", keys, err));
+    TRY(get_number(j, "environment", "gravity", 0, &s->gravity, NULL, err));
+    const cJSON *a = cJSON_GetObjectItemCaseSensitive(j, "atmosphere");
+    if (a)
+        TRY(read_atmosphere(a, &s->atmosphere, err));
+    const cJSON *w = cJSON_GetObjectItemCaseSensitive(j, "wind");
+    if (w)
+        TRY(read_wind(w, &s->wind, err));
+    return DRAGARC_OK;
+}
+
+static int read_solver(const cJSON *j, dragarc_solver_options *o, dragarc_error *err)
+{
+    static const char *const keys[] = {"rtol", "atol", "max_time", "max_steps", "method", NULL};
+    TRY(want_object(j, "solver", err));
+    TRY(check_keys(j, "solver", keys, err));
+    TRY(get_number(j, "solver", "rtol", 0, &o->rtol, NULL, err));
+    TRY(get_number(j, "solver", "atol", 0, &o->atol, NULL, err));
+    TRY(get_number(j, "solver", "max_time", 0, &o->max_time, NULL, err));
+    double steps = (double)o->max_steps;
+    TRY(get_number(j, "solver", "max_steps", 0, &steps, NULL, err));
+    if (!(steps >= 10.0 && steps <= 1e8 && steps == floor(steps)))
+        return dragarc_error_set(err, DRAGARC_EINVAL, "solver.max_steps", "must be a whole number from 10 to 1e8 (got %g)", steps);
+    o->max_steps = (long)steps;
+    const char *method = NULL;
+    TRY(get_string(j, "solver", "method", 0, &method, err));
+    if (method) {
+        if (strcmp(method, "auto") == 0)
+            o->method = DRAGARC_METHOD_AUTO;
+        else if (strcmp(method, "adams") == 0)
+            o->method = DRAGARC_METHOD_ADAMS;
+        else if (strcmp(method, "bdf") == 0)
+            o->method = DRAGARC_METHOD_BDF;
+        else
+            return dragarc_error_set(err, DRAGARC_EINVAL, "solver.method", "unknown method \"%s\" (auto, adams, bdf)", method);
+    }
+    return DRAGARC_OK;
+}
+
+static int read_scenario(const cJSON *root, const char *base_dir, const char *profile_path, dragarc_scenario *s,
+                         dragarc_error *err)
+{
+    static const char *const keys[] = {"name", "description", "projectile", "launch", "environment", "ground", "solver",
+                                       NULL};
+    if (!cJSON_IsObject(root))
+        return dragarc_error_set(err, DRAGARC_EINVAL, "", "a scenario must be a JSON object, not %s", type_name(root));
+    TRY(check_keys(root, "", keys, err));
+    const char *name = NULL, *desc = NULL;
+    TRY(get_string(root, "", "name", 0, &name, err));
+    TRY(get_string(root, "", "description", 0, &desc, err));
+    if (name)
+        snprintf(s->name, sizeof s->name, "%s", name);
+    const cJSON *p = cJSON_GetObjectItemCaseSensitive(root, "projectile");
+    if (!p)
+        return dragarc_error_set(err, DRAGARC_EINVAL, "projectile", "is required");
+    TRY(read_projectile(p, base_dir, profile_path, &s->projectile, err));
+    const cJSON *l = cJSON_GetObjectItemCaseSensitive(root, "launch");
+    if (!l)
+        return dragarc_error_set(err, DRAGARC_EINVAL, "launch", "is required");
+    TRY(read_launch(l, &s->launch, err));
+    const cJSON *e = cJSON_GetObjectItemCaseSensitive(root, "environment");
+    if (e)
+        TRY(read_environment(e, s, err));
+    const cJSON *g = cJSON_GetObjectItemCaseSensitive(root, "ground");
+    if (g) {
+        static const char *const gkeys[] = {"elevation", NULL};
+        TRY(want_object(g, "ground", err));
+        TRY(check_keys(g, "ground", gkeys, err));
+        TRY(get_number(g, "ground", "elevation", 0, &s->ground_elevation, NULL, err));
+    }
+    const cJSON *so = cJSON_GetObjectItemCaseSensitive(root, "solver");
+    if (so)
+        TRY(read_solver(so, &s->solver, err));
+    return dragarc_scenario_check(s, err);
+}
+
+int dragarc_scenario_parse(const char *json, const char *base_dir, const char *profile_path, dragarc_scenario *out,
+                           dragarc_error *err)
+{
+    dragarc_scenario_default(out);
+    cJSON *root = NULL;
+    int rc = parse_text(json, "the scenario", &root, err);
+    if (rc != DRAGARC_OK)
+        return rc;
+    rc = read_scenario(root, base_dir, profile_path, out, err);
+    cJSON_Delete(root);
+    if (rc != DRAGARC_OK)
+        dragarc_scenario_clear(out);
+    return rc;
+}
+
+int dragarc_scenario_read(const char *path, const char *profile_path, dragarc_scenario *out, dragarc_error *err)
+{
+    dragarc_scenario_default(out);
+    char *text = NULL;
+    int rc = dragarc_text_file_read(path, 16u << 20, &text, err);
+    if (rc != DRAGARC_OK)
+        return rc;
+    char dir[4096];
+    snprintf(dir, sizeof dir, "%s", path);
+    char *slash = strrchr(dir, '/');
+    if (slash)
+        *slash = '\0';
+    else
+        snprintf(dir, sizeof dir, ".");
+    rc = dragarc_scenario_parse(text, dir, profile_path, out, err);
+    free(text);
+    return rc;
+}

@@ -1,0 +1,400 @@
+/* flight.c: the integrator driver. Flies a scenario from launch to ground impact with SUNDIALS CVODE.
+ * SPDX-License-Identifier: GPL-3.0-or-later
+ *
+ * Methods (Hindmarsh et al. 2005, "SUNDIALS: Suite of nonlinear and differential/algebraic equation
+ * solvers", ACM TOMS 31:363): variable-order Adams-Moulton with fixed-point iteration for non-stiff
+ * flights, BDF with Newton iteration and a dense difference-quotient Jacobian when drag relaxes the
+ * velocity much faster than the flight lasts (fine droplets, light debris on a long fall).
+ * Events by CVODE's root finding: g0 = z - z_ground (impact, descending), g1 = vz (apex, descending).
+ * The integrator runs one step at a time; fixed-interval samples come from CVODE's dense output
+ * (CVodeGetDky), so sampling does not shorten the steps.
+ */
+#include <math.h>
+#include <stdio.h>
+#include <stdlib.h>
+#include <string.h>
+
+#include <cvode/cvode.h>
+#include <nvector/nvector_serial.h>
+#include <sundials/sundials_context.h>
+#include <sunlinsol/sunlinsol_dense.h>
+#include <sunmatrix/sunmatrix_dense.h>
+#include <sunnonlinsol/sunnonlinsol_fixedpoint.h>
+#include <sunnonlinsol/sunnonlinsol_newton.h>
+
+#include "core/constants.h"
+#include "dragarc/flight.h"
+#include "dragarc/forces.h"
+
+/* Flights whose estimated duration exceeds this many drag relaxation times go to BDF. Adams with
+ * fixed-point iteration needs steps below about one relaxation time to converge, BDF does not. */
+#define STIFF_RATIO 100.0
+
+typedef struct flight_ctx {
+    dragarc_forces forces;
+    dragarc_error rhs_err; /* first failure seen inside the right-hand side */
+    int rhs_failed;
+    char cvode_msg[256];   /* last message from CVODE's error handler */
+} flight_ctx;
+
+static int rhs(sunrealtype t, N_Vector y, N_Vector ydot, void *user)
+{
+    (void)t;
+    flight_ctx *c = user;
+    const double *yv = N_VGetArrayPointer(y);
+    double *dv = N_VGetArrayPointer(ydot);
+    dragarc_error e;
+    int rc = dragarc_forces_eval(&c->forces, yv, dv, NULL, &e);
+    if (rc != DRAGARC_OK) {
+        if (!c->rhs_failed) {
+            c->rhs_err = e;
+            c->rhs_failed = 1;
+        }
+        return 1; /* recoverable: CVODE shrinks the step; a true excursion fails repeatedly */
+    }
+    for (int i = 0; i < 6; i++)
+        if (!isfinite(dv[i])) {
+            if (!c->rhs_failed) {
+                dragarc_error_set(&c->rhs_err, DRAGARC_ESOLVER, "", "the equations of motion gave a non-finite value");
+                c->rhs_failed = 1;
+            }
+            return 1;
+        }
+    return 0;
+}
+
+static int roots(sunrealtype t, N_Vector y, sunrealtype *g, void *user)
+{
+    (void)t;
+    const flight_ctx *c = user;
+    const double *yv = N_VGetArrayPointer(y);
+    g[0] = yv[2] - c->forces.ground_elevation;
+    g[1] = yv[5];
+    return 0;
+}
+
+static void on_cvode_error(int code, const char *module, const char *function, char *msg, void *user)
+{
+    (void)code;
+    flight_ctx *c = user;
+    snprintf(c->cvode_msg, sizeof c->cvode_msg, "%s/%s: %s", module, function, msg);
+}
+
+const char *dragarc_method_name(dragarc_method m)
+{
+    switch (m) {
+    case DRAGARC_METHOD_ADAMS: return "adams";
+    case DRAGARC_METHOD_BDF: return "bdf";
+    default: return "auto";
+    }
+}
+
+void dragarc_flight_clear(dragarc_flight *f)
+{
+    if (!f)
+        return;
+    free(f->points);
+    memset(f, 0, sizeof *f);
+}
+
+static void launch_state(const dragarc_scenario *s, double y[6])
+{
+    const dragarc_launch *l = &s->launch;
+    double ch = cos(l->elevation);
+    y[0] = 0.0;
+    y[1] = 0.0;
+    y[2] = l->height;
+    y[3] = l->speed * ch * sin(l->azimuth);
+    y[4] = l->speed * ch * cos(l->azimuth);
+    y[5] = l->speed * sin(l->elevation);
+}
+
+/* Time to fall from the launch to the ground in vacuum; NaN if it never gets there. */
+static double vacuum_time(const dragarc_scenario *s)
+{
+    double y[6];
+    launch_state(s, y);
+    double dz = y[2] - s->ground_elevation, g = s->gravity;
+    double disc = y[5] * y[5] + 2.0 * g * dz;
+    if (disc < 0.0)
+        return NAN;
+    return (y[5] + sqrt(disc)) / g;
+}
+
+double dragarc_vacuum_range(const dragarc_scenario *s)
+{
+    double t = vacuum_time(s);
+    return s->launch.speed * cos(s->launch.elevation) * t;
+}
+
+static int push_point(dragarc_flight *f, size_t *cap, const flight_ctx *c, double t, const double *y)
+{
+    if (f->npoints == *cap) {
+        size_t nc = *cap ? 2 * *cap : 64;
+        dragarc_flight_point *np = realloc(f->points, nc * sizeof *np);
+        if (!np)
+            return DRAGARC_ENOMEM;
+        f->points = np;
+        *cap = nc;
+    }
+    dragarc_flight_point *p = &f->points[f->npoints++];
+    double d[6];
+    dragarc_flow flow;
+    p->t = t;
+    for (int i = 0; i < 3; i++) {
+        p->pos[i] = y[i];
+        p->vel[i] = y[i + 3];
+    }
+    p->speed = sqrt(y[3] * y[3] + y[4] * y[4] + y[5] * y[5]);
+    if (dragarc_forces_eval(&c->forces, y, d, &flow, NULL) == DRAGARC_OK) {
+        p->mach = flow.mach;
+        p->reynolds = flow.reynolds;
+    } else {
+        p->mach = p->reynolds = NAN;
+    }
+    return DRAGARC_OK;
+}
+
+/* Record what the cautions need to know about the state reached by an accepted step. */
+static void observe(dragarc_flight *f, const flight_ctx *c, const double *y)
+{
+    double d[6];
+    dragarc_flow flow;
+    if (dragarc_forces_eval(&c->forces, y, d, &flow, NULL) != DRAGARC_OK)
+        return;
+    const dragarc_drag *dr = &c->forces.projectile->drag;
+    if (flow.mach > f->max_mach)
+        f->max_mach = flow.mach;
+    if (flow.reynolds > f->max_reynolds)
+        f->max_reynolds = flow.reynolds;
+    if (flow.mach > 0.6 && !(dr->model == DRAGARC_DRAG_TABLE && dr->axis == DRAGARC_AXIS_MACH) &&
+        dr->model != DRAGARC_DRAG_NONE)
+        f->notes |= DRAGARC_NOTE_TRANSONIC;
+    if (dr->model == DRAGARC_DRAG_SPHERE && flow.reynolds > 2e5 && flow.reynolds < 1e6)
+        f->notes |= DRAGARC_NOTE_DRAG_CRISIS;
+    if (dr->model == DRAGARC_DRAG_TABLE && flow.air.density > 0.0) {
+        double x = dr->axis == DRAGARC_AXIS_REYNOLDS ? flow.reynolds : dr->axis == DRAGARC_AXIS_MACH ? flow.mach : flow.airspeed;
+        /* Launch from rest and the last instants near zero airspeed always read below the table;
+         * only note a clamp when the body actually moves through the air. */
+        if ((x < dr->x[0] && flow.airspeed > 0.5) || x > dr->x[dr->npoints - 1])
+            f->notes |= DRAGARC_NOTE_TABLE_CLAMPED;
+    }
+}
+
+static int cvode_failure(flight_ctx *c, int flag, double t, dragarc_error *err)
+{
+    if (c->rhs_failed && (flag == CV_RHSFUNC_FAIL || flag == CV_REPTD_RHSFUNC_ERR || flag == CV_FIRST_RHSFUNC_ERR ||
+                          flag == CV_UNREC_RHSFUNC_ERR || flag == CV_CONV_FAILURE || flag == CV_ERR_FAILURE)) {
+        return dragarc_error_set(err, c->rhs_err.code == DRAGARC_ERANGE ? DRAGARC_ERANGE : DRAGARC_ESOLVER,
+                                 c->rhs_err.field, "at t = %.6g s: %s", t, c->rhs_err.message);
+    }
+    char *name = CVodeGetReturnFlagName(flag);
+    int rc = dragarc_error_set(err, DRAGARC_ESOLVER, "", "CVode: %s at t = %.6g s%s%s", name ? name : "unknown flag", t,
+                               c->cvode_msg[0] ? " (" : "", c->cvode_msg[0] ? ")" : "");
+    if (err && c->cvode_msg[0]) {
+        /* Put CVODE's own words inside the brackets, trimmed to fit. */
+        size_t len = strlen(err->message);
+        if (len >= 1) {
+            err->message[len - 1] = '\0';
+            strncat(err->message, c->cvode_msg, sizeof err->message - strlen(err->message) - 2);
+            strcat(err->message, ")");
+        }
+    }
+    free(name);
+    return rc;
+}
+
+int dragarc_flight_run(const dragarc_scenario *s, double dt, dragarc_flight *out, dragarc_error *err)
+{
+    memset(out, 0, sizeof *out);
+    out->terminal_speed = out->vacuum_range = out->relaxation_time = NAN;
+    int rc = dragarc_scenario_check(s, err);
+    if (rc != DRAGARC_OK)
+        return rc;
+    if (!(dt >= 0.0 && isfinite(dt)))
+        return dragarc_error_set(err, DRAGARC_EINVAL, "dt", "sampling interval must be zero or positive (got %g)", dt);
+    if (dt > 0.0 && s->solver.max_time / dt > 5e7)
+        return dragarc_error_set(err, DRAGARC_EINVAL, "dt", "sampling interval %g s would give over 5e7 rows", dt);
+
+    flight_ctx c;
+    memset(&c, 0, sizeof c);
+    c.forces.projectile = &s->projectile;
+    c.forces.atmosphere = &s->atmosphere;
+    c.forces.wind = &s->wind;
+    c.forces.gravity = s->gravity;
+    c.forces.ground_elevation = s->ground_elevation;
+
+    double y0[6];
+    launch_state(s, y0);
+    out->launch_energy = 0.5 * s->projectile.mass * s->launch.speed * s->launch.speed;
+    out->vacuum_range = dragarc_vacuum_range(s);
+    rc = dragarc_terminal_speed(s, s->launch.height, &out->terminal_speed, err);
+    if (rc != DRAGARC_OK)
+        return rc;
+    out->relaxation_time = out->terminal_speed / s->gravity;
+
+    dragarc_method method = s->solver.method;
+    if (method == DRAGARC_METHOD_AUTO) {
+        method = DRAGARC_METHOD_ADAMS;
+        if (isfinite(out->terminal_speed)) {
+            double rise = y0[5] > 0.0 ? y0[5] * y0[5] / (2.0 * s->gravity) : 0.0;
+            double t_fall = (s->launch.height + rise - s->ground_elevation) / out->terminal_speed;
+            double t_est = fmax(vacuum_time(s), t_fall);
+            if (t_est > STIFF_RATIO * out->relaxation_time)
+                method = DRAGARC_METHOD_BDF;
+        }
+    }
+    out->method = method;
+    {
+        dragarc_air air;
+        if (dragarc_atmosphere_eval(&s->atmosphere, s->launch.height, &air, NULL) == DRAGARC_OK &&
+            s->projectile.volume > 0.0 && air.density > 0.01 * s->projectile.mass / s->projectile.volume)
+            out->notes |= DRAGARC_NOTE_DENSE_FLUID;
+    }
+
+    SUNContext sun = NULL;
+    N_Vector y = NULL, ytmp = NULL;
+    SUNMatrix A = NULL;
+    SUNLinearSolver LS = NULL;
+    SUNNonlinearSolver NLS = NULL;
+    void *mem = NULL;
+    size_t cap = 0;
+
+    if (SUNContext_Create(NULL, &sun) != 0) {
+        rc = dragarc_error_set(err, DRAGARC_ENOMEM, "", "could not create a SUNDIALS context");
+        goto done;
+    }
+    y = N_VNew_Serial(6, sun);
+    ytmp = N_VNew_Serial(6, sun);
+    mem = CVodeCreate(method == DRAGARC_METHOD_BDF ? CV_BDF : CV_ADAMS, sun);
+    if (!y || !ytmp || !mem) {
+        rc = dragarc_error_set(err, DRAGARC_ENOMEM, "", "could not allocate the integrator");
+        goto done;
+    }
+    memcpy(N_VGetArrayPointer(y), y0, sizeof y0);
+    int flag = CVodeSetErrHandlerFn(mem, on_cvode_error, &c);
+    if (flag == CV_SUCCESS)
+        flag = CVodeInit(mem, rhs, 0.0, y);
+    if (flag == CV_SUCCESS)
+        flag = CVodeSetUserData(mem, &c);
+    if (flag == CV_SUCCESS)
+        flag = CVodeSStolerances(mem, s->solver.rtol, s->solver.atol);
+    if (flag == CV_SUCCESS)
+        flag = CVodeSetStopTime(mem, s->solver.max_time);
+    if (flag == CV_SUCCESS)
+        flag = CVodeSetMaxNumSteps(mem, s->solver.max_steps);
+    if (flag == CV_SUCCESS)
+        flag = CVodeRootInit(mem, 2, roots);
+    int dirs[2] = {-1, -1};
+    if (flag == CV_SUCCESS)
+        flag = CVodeSetRootDirection(mem, dirs);
+    if (flag == CV_SUCCESS)
+        flag = CVodeSetNoInactiveRootWarn(mem);
+    if (flag == CV_SUCCESS) {
+        if (method == DRAGARC_METHOD_BDF) {
+            A = SUNDenseMatrix(6, 6, sun);
+            LS = A ? SUNLinSol_Dense(y, A, sun) : NULL;
+            flag = LS ? CVodeSetLinearSolver(mem, LS, A) : CV_MEM_FAIL;
+        } else {
+            NLS = SUNNonlinSol_FixedPoint(y, 0, sun);
+            flag = NLS ? CVodeSetNonlinearSolver(mem, NLS) : CV_MEM_FAIL;
+        }
+    }
+    if (flag != CV_SUCCESS) {
+        rc = cvode_failure(&c, flag, 0.0, err);
+        goto done;
+    }
+
+    if ((rc = push_point(out, &cap, &c, 0.0, y0)) != DRAGARC_OK)
+        goto nomem;
+    observe(out, &c, y0);
+    out->apex_height = y0[2];
+    out->apex_time = 0.0;
+
+    long k = 1; /* index of the next sample */
+    double t = 0.0;
+    int landed = 0;
+    while (!landed) {
+        flag = CVode(mem, s->solver.max_time, y, &t, CV_ONE_STEP);
+        if (flag < 0) {
+            rc = cvode_failure(&c, flag, t, err);
+            goto done;
+        }
+        c.rhs_failed = 0; /* a recovered trial failure is not an error */
+        const double *yv = N_VGetArrayPointer(y);
+        while (dt > 0.0 && k * dt < t) {
+            double ts = k * dt;
+            if (CVodeGetDky(mem, ts, 0, ytmp) != CV_SUCCESS)
+                break;
+            if ((rc = push_point(out, &cap, &c, ts, N_VGetArrayPointer(ytmp))) != DRAGARC_OK)
+                goto nomem;
+            k++;
+        }
+        observe(out, &c, yv);
+        if (flag == CV_ROOT_RETURN) {
+            int found[2] = {0, 0};
+            CVodeGetRootInfo(mem, found);
+            if (found[1] && yv[2] > out->apex_height) {
+                out->apex_height = yv[2];
+                out->apex_time = t;
+            }
+            if (found[0])
+                landed = 1;
+        } else if (flag == CV_TSTOP_RETURN || t >= s->solver.max_time) {
+            rc = dragarc_error_set(err, DRAGARC_ENOLAND, "solver.max_time",
+                                   "no ground impact within %g s (height %.6g m, still %.6g m above the ground); "
+                                   "raise solver.max_time or check buoyancy and wind",
+                                   s->solver.max_time, yv[2], yv[2] - s->ground_elevation);
+            goto done;
+        }
+        if (!landed && yv[2] > out->apex_height) { /* a flight that climbs to the end of a step */
+            out->apex_height = yv[2];
+            out->apex_time = t;
+        }
+    }
+
+    const double *yi = N_VGetArrayPointer(y);
+    memcpy(out->impact, yi, sizeof out->impact);
+    out->impact[2] = s->ground_elevation; /* the root finder leaves |z - z_g| at round-off level */
+    if (dt > 0.0 && (rc = push_point(out, &cap, &c, t, out->impact)) != DRAGARC_OK)
+        goto nomem;
+    if (dt == 0.0 && (rc = push_point(out, &cap, &c, t, out->impact)) != DRAGARC_OK)
+        goto nomem;
+    CVodeGetNumSteps(mem, &out->steps);
+
+    double ex = out->impact[0], ny = out->impact[1];
+    double az = s->launch.azimuth;
+    out->time_of_flight = t;
+    out->range = hypot(ex, ny);
+    out->downrange = ex * sin(az) + ny * cos(az);
+    out->crossrange = ex * cos(az) - ny * sin(az);
+    double vh = hypot(out->impact[3], out->impact[4]);
+    out->impact_speed = sqrt(vh * vh + out->impact[5] * out->impact[5]);
+    out->impact_angle = atan2(-out->impact[5], vh);
+    out->impact_energy = 0.5 * s->projectile.mass * out->impact_speed * out->impact_speed;
+    if (out->impact_energy >= 15.0)
+        out->notes |= DRAGARC_NOTE_HIGH_ENERGY;
+    if (isfinite(out->terminal_speed) && out->impact_speed < 0.9 * out->terminal_speed && -out->impact[5] < 0.9 * out->terminal_speed &&
+        out->impact_angle > 45.0 * DRAGARC_DEG)
+        out->notes |= DRAGARC_NOTE_NOT_TERMINAL;
+    rc = DRAGARC_OK;
+    goto done;
+nomem:
+    rc = dragarc_error_set(err, DRAGARC_ENOMEM, "", "out of memory for trajectory samples");
+done:
+    if (mem)
+        CVodeFree(&mem);
+    if (NLS)
+        SUNNonlinSolFree(NLS);
+    if (LS)
+        SUNLinSolFree(LS);
+    if (A)
+        SUNMatDestroy(A);
+    if (y)
+        N_VDestroy(y);
+    if (ytmp)
+        N_VDestroy(ytmp);
+    if (sun)
+        SUNContext_Free(&sun);
+    return rc;
+}

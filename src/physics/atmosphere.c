@@ -1,0 +1,191 @@
+/* atmosphere.c: the U.S. Standard Atmosphere 1976 below 86 km, a constant fluid, and an isothermal
+ * exponential atmosphere.
+ * SPDX-License-Identifier: GPL-3.0-or-later
+ *
+ * U.S. Standard Atmosphere 1976 (NOAA, NASA, USAF; NASA-TM-X-74335), sections 1.2-1.3: with the
+ * geopotential altitude H = r0 Z / (r0 + Z) and the molecular-scale temperature linear in H within each
+ * of seven layers (bases b, lapse rates L_b),
+ *   T = T_b + L_b (H - H_b)
+ *   p = p_b [T_b / T]^(g0 M0 / (R* L_b))        (L_b != 0)      eq. 33a
+ *   p = p_b exp(-g0 M0 (H - H_b) / (R* T_b))    (L_b == 0)      eq. 33b
+ *   rho = p M0 / (R* T)                                          eq. 42
+ *   a = sqrt(gamma R* T / M0)                                    eq. 50
+ *   mu = beta T^1.5 / (T + S)  (Sutherland)                      eq. 51
+ * Density, pressure and the speed of sound follow from the molecular-scale temperature T_M. From 80 to
+ * 86 km the mean molecular weight falls slightly (Table 8 of the standard, M/M0 from 1 to 0.999579), so
+ * the kinetic temperature T = T_M M/M0 (eq. 21) is up to 0.04 % below T_M; the viscosity uses T.
+ * The M/M0 values below are the standard's Table 8 at 0.5 km steps (recalled; the 86 km end,
+ * T = 186.8673 K, is checked in tests/reference/test_isa_1976.c), interpolated linearly.
+ * The base pressures p_b are computed from p0 = 101325 Pa by the same formulas, once, at compile time
+ * of the table below (each value carries its derivation in the comment).
+ */
+#include <math.h>
+#include <stddef.h>
+
+#include "dragarc/atmosphere.h"
+
+#define R_STAR 8314.32  /* J/(kmol K) */
+#define M0 28.9644      /* kg/kmol */
+#define SUTH_BETA 1.458e-6
+#define SUTH_S 110.4
+
+typedef struct layer {
+    double h;     /* m', geopotential base */
+    double t;     /* K, base temperature */
+    double lapse; /* K/m' */
+} layer;
+
+static const layer LAYERS[] = {
+    {0.0, 288.15, -0.0065},  {11000.0, 216.65, 0.0},    {20000.0, 216.65, 0.001}, {32000.0, 228.65, 0.0028},
+    {47000.0, 270.65, 0.0},  {51000.0, 270.65, -0.0028}, {71000.0, 214.65, -0.002},
+};
+#define NLAYERS (sizeof LAYERS / sizeof LAYERS[0])
+#define H_TOP 84852.0
+
+/* Pressure at geopotential H (m') within layer i whose base pressure is pb. */
+static double layer_pressure(const layer *l, double pb, double h)
+{
+    const double gmr = DRAGARC_ISA_G0 * M0 / R_STAR; /* K/m' */
+    if (l->lapse == 0.0)
+        return pb * exp(-gmr * (h - l->h) / l->t);
+    double t = l->t + l->lapse * (h - l->h);
+    return pb * pow(l->t / t, gmr / l->lapse);
+}
+
+double dragarc_isa_geopotential(double z) { return DRAGARC_ISA_R_EARTH * z / (DRAGARC_ISA_R_EARTH + z); }
+
+double dragarc_air_viscosity(double temperature)
+{
+    return SUTH_BETA * pow(temperature, 1.5) / (temperature + SUTH_S);
+}
+
+static double air_sound_speed(double temperature)
+{
+    return sqrt(DRAGARC_ISA_GAMMA * R_STAR / M0 * temperature);
+}
+
+/* M/M0 at geometric altitude z, U.S. Standard Atmosphere 1976 Table 8 (80 to 86 km). */
+static double molecular_weight_ratio(double z)
+{
+    static const double RATIO[] = {1.000000, 0.999996, 0.999989, 0.999971, 0.999941, 0.999909, 0.999870,
+                                   0.999829, 0.999786, 0.999741, 0.999694, 0.999641, 0.999579};
+    if (z <= 80000.0)
+        return 1.0;
+    double u = (z - 80000.0) / 500.0;
+    size_t i = (size_t)u;
+    if (i >= sizeof RATIO / sizeof RATIO[0] - 1)
+        return RATIO[sizeof RATIO / sizeof RATIO[0] - 1];
+    double f = u - (double)i;
+    return RATIO[i] + f * (RATIO[i + 1] - RATIO[i]);
+}
+
+int dragarc_isa_eval(double z, double temperature_offset, dragarc_air *out, dragarc_error *err)
+{
+    if (!(z >= DRAGARC_ISA_Z_MIN && z <= DRAGARC_ISA_Z_MAX))
+        return dragarc_error_set(err, DRAGARC_ERANGE, "",
+                                 "altitude %.6g m is outside the U.S. Standard Atmosphere 1976 range "
+                                 "(-5000 to 86000 m geometric)",
+                                 z);
+    double h = dragarc_isa_geopotential(z);
+    /* Walk the layers from the ground, carrying the base pressure up: seven layers, so recomputing is
+     * cheaper than a table that could drift from the formulas. */
+    double pb = DRAGARC_ISA_P0;
+    size_t i = 0;
+    while (i + 1 < NLAYERS && h >= LAYERS[i + 1].h) {
+        pb = layer_pressure(&LAYERS[i], pb, LAYERS[i + 1].h);
+        i++;
+    }
+    const layer *l = &LAYERS[i];
+    double t_std = l->t + l->lapse * (h - l->h);
+    double p = layer_pressure(l, pb, h);
+    double tm = t_std + temperature_offset; /* molecular-scale temperature */
+    if (!(tm > 0.0))
+        return dragarc_error_set(err, DRAGARC_ERANGE, "",
+                                 "temperature offset %.6g K makes the temperature at %.6g m non-positive",
+                                 temperature_offset, z);
+    double t = tm * molecular_weight_ratio(z); /* kinetic temperature */
+    out->temperature = t;
+    out->pressure = p;
+    out->density = p * M0 / (R_STAR * tm);
+    out->speed_of_sound = air_sound_speed(tm);
+    out->viscosity = dragarc_air_viscosity(t);
+    return DRAGARC_OK;
+}
+
+void dragarc_atmosphere_default(dragarc_atmosphere *atm)
+{
+    atm->model = DRAGARC_ATMOSPHERE_ISA;
+    atm->site_elevation = 0.0;
+    atm->temperature_offset = 0.0;
+    atm->density = 1.225;
+    atm->viscosity = 1.7894e-5;
+    atm->temperature = DRAGARC_ISA_T0;
+    atm->speed_of_sound = 0.0;
+    atm->scale_height = 8500.0;
+}
+
+int dragarc_atmosphere_check(const dragarc_atmosphere *atm, dragarc_error *err)
+{
+    switch (atm->model) {
+    case DRAGARC_ATMOSPHERE_ISA:
+        if (!(atm->site_elevation >= DRAGARC_ISA_Z_MIN && atm->site_elevation <= DRAGARC_ISA_Z_MAX))
+            return dragarc_error_set(err, DRAGARC_EINVAL, "site_elevation",
+                                     "must be between -5000 and 86000 m (got %g)", atm->site_elevation);
+        if (!(fabs(atm->temperature_offset) <= 100.0))
+            return dragarc_error_set(err, DRAGARC_EINVAL, "temperature_offset",
+                                     "must be between -100 and 100 K (got %g)", atm->temperature_offset);
+        return DRAGARC_OK;
+    case DRAGARC_ATMOSPHERE_CONSTANT:
+        if (!(atm->density >= 0.0 && isfinite(atm->density)))
+            return dragarc_error_set(err, DRAGARC_EINVAL, "density", "must be zero or positive (got %g)",
+                                     atm->density);
+        if (!(atm->viscosity > 0.0 && isfinite(atm->viscosity)))
+            return dragarc_error_set(err, DRAGARC_EINVAL, "viscosity", "must be positive (got %g)",
+                                     atm->viscosity);
+        if (!(atm->temperature > 0.0 && isfinite(atm->temperature)))
+            return dragarc_error_set(err, DRAGARC_EINVAL, "temperature", "must be positive, in K (got %g)",
+                                     atm->temperature);
+        if (!(atm->speed_of_sound >= 0.0 && isfinite(atm->speed_of_sound)))
+            return dragarc_error_set(err, DRAGARC_EINVAL, "speed_of_sound", "must be positive (got %g)",
+                                     atm->speed_of_sound);
+        return DRAGARC_OK;
+    case DRAGARC_ATMOSPHERE_EXPONENTIAL:
+        if (!(atm->density >= 0.0 && isfinite(atm->density)))
+            return dragarc_error_set(err, DRAGARC_EINVAL, "density", "must be zero or positive (got %g)",
+                                     atm->density);
+        if (!(atm->scale_height > 0.0 && isfinite(atm->scale_height)))
+            return dragarc_error_set(err, DRAGARC_EINVAL, "scale_height", "must be positive (got %g)",
+                                     atm->scale_height);
+        if (!(atm->temperature > 0.0 && isfinite(atm->temperature)))
+            return dragarc_error_set(err, DRAGARC_EINVAL, "temperature", "must be positive, in K (got %g)",
+                                     atm->temperature);
+        if (!isfinite(atm->site_elevation))
+            return dragarc_error_set(err, DRAGARC_EINVAL, "site_elevation", "must be a finite number");
+        return DRAGARC_OK;
+    }
+    return dragarc_error_set(err, DRAGARC_EINVAL, "model", "unknown atmosphere model %d", (int)atm->model);
+}
+
+int dragarc_atmosphere_eval(const dragarc_atmosphere *atm, double z, dragarc_air *out, dragarc_error *err)
+{
+    switch (atm->model) {
+    case DRAGARC_ATMOSPHERE_ISA:
+        return dragarc_isa_eval(atm->site_elevation + z, atm->temperature_offset, out, err);
+    case DRAGARC_ATMOSPHERE_CONSTANT:
+        out->temperature = atm->temperature;
+        out->density = atm->density;
+        out->pressure = atm->density * DRAGARC_ISA_R_AIR * atm->temperature;
+        out->speed_of_sound = atm->speed_of_sound > 0.0 ? atm->speed_of_sound : air_sound_speed(atm->temperature);
+        out->viscosity = atm->viscosity;
+        return DRAGARC_OK;
+    case DRAGARC_ATMOSPHERE_EXPONENTIAL:
+        /* Isothermal: rho = rho0 exp(-z / H) with the site datum as the reference level. */
+        out->temperature = atm->temperature;
+        out->density = atm->density * exp(-z / atm->scale_height);
+        out->pressure = out->density * DRAGARC_ISA_R_AIR * atm->temperature;
+        out->speed_of_sound = air_sound_speed(atm->temperature);
+        out->viscosity = dragarc_air_viscosity(atm->temperature);
+        return DRAGARC_OK;
+    }
+    return dragarc_error_set(err, DRAGARC_EINVAL, "environment.atmosphere.model", "unknown model");
+}

@@ -1,0 +1,100 @@
+/* scenario.c: defaults, validation and ownership of a scenario record.
+ * SPDX-License-Identifier: GPL-3.0-or-later
+ */
+#include <math.h>
+#include <string.h>
+
+#include "core/constants.h"
+#include "dragarc/scenario.h"
+
+void dragarc_scenario_default(dragarc_scenario *s)
+{
+    memset(s, 0, sizeof *s);
+    s->gravity = DRAGARC_ISA_G0;
+    dragarc_atmosphere_default(&s->atmosphere);
+    dragarc_wind_default(&s->wind);
+    s->solver.rtol = 1e-8;
+    s->solver.atol = 1e-6;
+    s->solver.max_time = 3600.0;
+    s->solver.max_steps = 1000000;
+    s->solver.method = DRAGARC_METHOD_AUTO;
+}
+
+int dragarc_scenario_check(const dragarc_scenario *s, dragarc_error *err)
+{
+    int rc = dragarc_projectile_check(&s->projectile, err);
+    if (rc != DRAGARC_OK) {
+        dragarc_error_prefix(err, "projectile");
+        return rc;
+    }
+    const dragarc_launch *l = &s->launch;
+    if (!(l->speed >= 0.0 && l->speed <= 2.0e4))
+        return dragarc_error_set(err, DRAGARC_EINVAL, "launch.speed", "must be between 0 and 20000 m/s (got %g)",
+                                 l->speed);
+    if (!(fabs(l->elevation) <= 0.5 * DRAGARC_PI + 1e-12))
+        return dragarc_error_set(err, DRAGARC_EINVAL, "launch.elevation",
+                                 "must be between -90 and 90 degrees (got %g)", l->elevation / DRAGARC_DEG);
+    if (!isfinite(l->azimuth))
+        return dragarc_error_set(err, DRAGARC_EINVAL, "launch.azimuth", "must be a finite angle in degrees");
+    if (!isfinite(l->height))
+        return dragarc_error_set(err, DRAGARC_EINVAL, "launch.height", "must be a finite height in m");
+    if (!isfinite(s->ground_elevation))
+        return dragarc_error_set(err, DRAGARC_EINVAL, "ground.elevation", "must be a finite height in m");
+    if (l->height < s->ground_elevation)
+        return dragarc_error_set(err, DRAGARC_EINVAL, "launch.height",
+                                 "%g m is below ground.elevation (%g m): the flight would start underground",
+                                 l->height, s->ground_elevation);
+    if (l->height == s->ground_elevation && !(l->speed > 0.0 && l->elevation > 0.0))
+        return dragarc_error_set(err, DRAGARC_EINVAL, "launch.height",
+                                 "the projectile starts on the ground without climbing: raise launch.height "
+                                 "or launch upward");
+    if (!(s->gravity > 0.0 && s->gravity <= 300.0))
+        return dragarc_error_set(err, DRAGARC_EINVAL, "environment.gravity",
+                                 "must be positive and at most 300 m/s^2 (got %g)", s->gravity);
+    rc = dragarc_atmosphere_check(&s->atmosphere, err);
+    if (rc != DRAGARC_OK) {
+        dragarc_error_prefix(err, "environment.atmosphere");
+        return rc;
+    }
+    rc = dragarc_wind_check(&s->wind, err);
+    if (rc != DRAGARC_OK) {
+        dragarc_error_prefix(err, "environment.wind");
+        return rc;
+    }
+    const dragarc_solver_options *o = &s->solver;
+    if (!(o->rtol >= 1e-14 && o->rtol <= 1e-2))
+        return dragarc_error_set(err, DRAGARC_EINVAL, "solver.rtol", "must be between 1e-14 and 1e-2 (got %g)", o->rtol);
+    if (!(o->atol >= 1e-14 && o->atol <= 1.0))
+        return dragarc_error_set(err, DRAGARC_EINVAL, "solver.atol", "must be between 1e-14 and 1 (got %g)", o->atol);
+    if (!(o->max_time > 0.0 && o->max_time <= 1e7))
+        return dragarc_error_set(err, DRAGARC_EINVAL, "solver.max_time",
+                                 "must be positive and at most 1e7 s (got %g)", o->max_time);
+    if (!(o->max_steps >= 10 && o->max_steps <= 100000000L))
+        return dragarc_error_set(err, DRAGARC_EINVAL, "solver.max_steps", "must be between 10 and 1e8 (got %ld)",
+                                 o->max_steps);
+    return DRAGARC_OK;
+}
+
+int dragarc_scenario_copy(dragarc_scenario *dst, const dragarc_scenario *src, dragarc_error *err)
+{
+    *dst = *src;
+    dst->projectile.drag.x = dst->projectile.drag.u = dst->projectile.drag.y = NULL;
+    dst->projectile.drag.interp = NULL;
+    dst->wind.layers = NULL;
+    dst->wind.nlayers = 0;
+    int rc = dragarc_projectile_copy(&dst->projectile, &src->projectile, err);
+    if (rc == DRAGARC_OK)
+        rc = dragarc_wind_copy(&dst->wind, &src->wind, err);
+    if (rc != DRAGARC_OK)
+        dragarc_scenario_clear(dst);
+    return rc;
+}
+
+void dragarc_scenario_clear(dragarc_scenario *s)
+{
+    if (!s)
+        return;
+    dragarc_projectile_clear(&s->projectile);
+    dragarc_wind_clear(&s->wind);
+    dragarc_scenario_default(s);
+}
