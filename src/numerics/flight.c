@@ -5,7 +5,8 @@
  * solvers", ACM TOMS 31:363): variable-order Adams-Moulton with fixed-point iteration for non-stiff
  * flights, BDF with Newton iteration and a dense difference-quotient Jacobian when drag relaxes the
  * velocity much faster than the flight lasts (fine droplets, light debris on a long fall).
- * Events by CVODE's root finding: g0 = z - z_ground (impact, descending), g1 = vz (apex, descending).
+ * Events by CVODE's root finding: g0 = z - z_ground (impact, descending), g1 = vz (apex, descending),
+ * g2 = z - z_top (leaving the top of the atmosphere model, ascending: an error).
  * The integrator runs one step at a time; fixed-interval samples come from CVODE's dense output
  * (CVodeGetDky), so sampling does not shorten the steps.
  */
@@ -32,6 +33,7 @@
 
 typedef struct flight_ctx {
     dragarc_forces forces;
+    double ceiling;        /* m, local height where the atmosphere model ends (INFINITY if it does not) */
     dragarc_error rhs_err; /* first failure seen inside the right-hand side */
     int rhs_failed;
     char cvode_msg[256];   /* last message from CVODE's error handler */
@@ -44,13 +46,17 @@ static int rhs(sunrealtype t, N_Vector y, N_Vector ydot, void *user)
     const double *yv = N_VGetArrayPointer(y);
     double *dv = N_VGetArrayPointer(ydot);
     dragarc_error e;
-    int rc = dragarc_forces_eval(&c->forces, yv, dv, NULL, &e);
+    /* Trial states of a step may poke above the top of the atmosphere model; they see the air at the
+     * top (continuous, and all but vacuum there), while the root function g2 stops a flight that
+     * really climbs past it. */
+    double ys[6] = {yv[0], yv[1], fmin(yv[2], c->ceiling), yv[3], yv[4], yv[5]};
+    int rc = dragarc_forces_eval(&c->forces, ys, dv, NULL, &e);
     if (rc != DRAGARC_OK) {
         if (!c->rhs_failed) {
             c->rhs_err = e;
             c->rhs_failed = 1;
         }
-        return 1; /* recoverable: CVODE shrinks the step; a true excursion fails repeatedly */
+        return -1;
     }
     for (int i = 0; i < 6; i++)
         if (!isfinite(dv[i])) {
@@ -70,6 +76,7 @@ static int roots(sunrealtype t, N_Vector y, sunrealtype *g, void *user)
     const double *yv = N_VGetArrayPointer(y);
     g[0] = yv[2] - c->forces.ground_elevation;
     g[1] = yv[5];
+    g[2] = isfinite(c->ceiling) ? yv[2] - c->ceiling : -1.0;
     return 0;
 }
 
@@ -223,6 +230,7 @@ int dragarc_flight_run(const dragarc_scenario *s, double dt, dragarc_flight *out
     c.forces.wind = &s->wind;
     c.forces.gravity = s->gravity;
     c.forces.ground_elevation = s->ground_elevation;
+    c.ceiling = s->atmosphere.model == DRAGARC_ATMOSPHERE_ISA ? DRAGARC_ISA_Z_MAX - s->atmosphere.site_elevation : INFINITY;
 
     double y0[6];
     launch_state(s, y0);
@@ -284,8 +292,8 @@ int dragarc_flight_run(const dragarc_scenario *s, double dt, dragarc_flight *out
     if (flag == CV_SUCCESS)
         flag = CVodeSetMaxNumSteps(mem, s->solver.max_steps);
     if (flag == CV_SUCCESS)
-        flag = CVodeRootInit(mem, 2, roots);
-    int dirs[2] = {-1, -1};
+        flag = CVodeRootInit(mem, 3, roots);
+    int dirs[3] = {-1, -1, +1};
     if (flag == CV_SUCCESS)
         flag = CVodeSetRootDirection(mem, dirs);
     if (flag == CV_SUCCESS)
@@ -321,6 +329,16 @@ int dragarc_flight_run(const dragarc_scenario *s, double dt, dragarc_flight *out
             goto done;
         }
         c.rhs_failed = 0; /* a recovered trial failure is not an error */
+        /* In one-step mode CVODE's own step limit counts per call, so the total is checked here. */
+        long nsteps = 0;
+        CVodeGetNumSteps(mem, &nsteps);
+        if (nsteps > s->solver.max_steps) {
+            rc = dragarc_error_set(err, DRAGARC_ESOLVER, "solver.max_steps",
+                                   "CVode: CV_TOO_MUCH_WORK: more than %ld steps by t = %.6g s; raise "
+                                   "solver.max_steps or loosen solver.rtol",
+                                   s->solver.max_steps, t);
+            goto done;
+        }
         const double *yv = N_VGetArrayPointer(y);
         while (dt > 0.0 && k * dt < t) {
             double ts = k * dt;
@@ -332,8 +350,15 @@ int dragarc_flight_run(const dragarc_scenario *s, double dt, dragarc_flight *out
         }
         observe(out, &c, yv);
         if (flag == CV_ROOT_RETURN) {
-            int found[2] = {0, 0};
+            int found[3] = {0, 0, 0};
             CVodeGetRootInfo(mem, found);
+            if (found[2]) {
+                rc = dragarc_error_set(err, DRAGARC_ERANGE, "",
+                                       "at t = %.6g s the flight climbs above %g m altitude, the top of the U.S. "
+                                       "Standard Atmosphere 1976 model",
+                                       t, DRAGARC_ISA_Z_MAX);
+                goto done;
+            }
             if (found[1] && yv[2] > out->apex_height) {
                 out->apex_height = yv[2];
                 out->apex_time = t;

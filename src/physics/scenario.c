@@ -56,6 +56,19 @@ int dragarc_scenario_check(const dragarc_scenario *s, dragarc_error *err)
         dragarc_error_prefix(err, "environment.atmosphere");
         return rc;
     }
+    if (s->atmosphere.model == DRAGARC_ATMOSPHERE_ISA) {
+        double top = s->atmosphere.site_elevation + l->height, bottom = s->atmosphere.site_elevation + s->ground_elevation;
+        if (top > DRAGARC_ISA_Z_MAX)
+            return dragarc_error_set(err, DRAGARC_EINVAL, "launch.height",
+                                     "the launch point is at %g m altitude, above the 86000 m top of the U.S. "
+                                     "Standard Atmosphere 1976 model",
+                                     top);
+        if (bottom < DRAGARC_ISA_Z_MIN)
+            return dragarc_error_set(err, DRAGARC_EINVAL, "ground.elevation",
+                                     "the ground is at %g m altitude, below the -5000 m bottom of the U.S. "
+                                     "Standard Atmosphere 1976 model",
+                                     bottom);
+    }
     rc = dragarc_wind_check(&s->wind, err);
     if (rc != DRAGARC_OK) {
         dragarc_error_prefix(err, "environment.wind");
