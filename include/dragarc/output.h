@@ -21,7 +21,7 @@ extern "C" {
 #endif
 
 /* Read a whole text file (at most max_bytes) into a NUL-terminated buffer; caller frees *out with
- * free(). DRAGARC_EIO with the path and errno text in the message. */
+ * free(). DRAGARC_EIO with the reason (errno text) in the message; the caller names the file. */
 int dragarc_text_file_read(const char *path, size_t max_bytes, char **out, dragarc_error *err);
 
 /* An output file being written. */

@@ -147,6 +147,10 @@ int cli_fly_scenario(const char *where, const dragarc_scenario *s, const cli_fly
     int rc = dragarc_flight_run(s, dt, &f, &err);
     if (rc != DRAGARC_OK) {
         dragarc_flight_clear(&f);
+        if (strcmp(err.field, "dt") == 0) { /* the option, not the scenario, is at fault */
+            err.field[0] = '\0';
+            return cli_report("--dt", &err);
+        }
         return cli_report(where, &err);
     }
     if (o->trajectory) {

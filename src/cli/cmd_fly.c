@@ -27,6 +27,7 @@ int cmd_fly(int argc, char **argv)
 {
     cli_fly_options o = {.json = 0, .trajectory = NULL, .dt = 0.05};
     const char *file = NULL;
+    int dt_given = 0;
     for (int i = 1; i < argc; i++) {
         const char *a = argv[i];
         if (strcmp(a, "-h") == 0 || strcmp(a, "--help") == 0) {
@@ -41,6 +42,7 @@ int cmd_fly(int argc, char **argv)
         } else if (strcmp(a, "--dt") == 0) {
             if (++i >= argc || cli_parse_double(argv[i], &o.dt) != 0 || !(o.dt > 0.0))
                 return cli_usage_error("fly", "--dt needs a positive number of seconds");
+            dt_given = 1;
         } else if (a[0] == '-' && a[1] != '\0') {
             return cli_usage_error("fly", "unknown option '%s'", a);
         } else if (!file) {
@@ -49,8 +51,10 @@ int cmd_fly(int argc, char **argv)
             return cli_usage_error("fly", "only one scenario file, got '%s' and '%s'", file, a);
         }
     }
-    if (!file)
+    if (!file || !*file)
         return cli_usage_error("fly", "needs a scenario file");
+    if (dt_given && !o.trajectory)
+        return cli_usage_error("fly", "--dt sets the --trajectory interval; give --trajectory FILE too");
     dragarc_scenario s;
     dragarc_error err;
     if (dragarc_scenario_read(file, cli_profile_path(), &s, &err) != DRAGARC_OK)

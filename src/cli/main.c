@@ -20,14 +20,14 @@ static const char USAGE[] =
     "  -h, --help            this help; 'dragarc COMMAND --help' for a command's own\n"
     "  -V, --version         print the version\n"
     "\n"
-    "exit status: 0 success, 1 no solution, 2 bad usage or input, 3 the computation failed.\n"
+    "exit status: 0 success, 2 bad usage or input, 3 the computation failed.\n"
     "Scenario files, models and sources: see docs/ in the source tree.\n";
 
 int main(int argc, char **argv)
 {
     dragarc_init();
     if (argc < 2) {
-        fputs(USAGE, stderr);
+        fputs("dragarc: missing command (see 'dragarc --help')\n", stderr);
         return EXIT_BAD_INPUT;
     }
     const char *cmd = argv[1];

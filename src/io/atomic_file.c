@@ -16,23 +16,23 @@ int dragarc_text_file_read(const char *path, size_t max_bytes, char **out, draga
     *out = NULL;
     FILE *f = fopen(path, "rb");
     if (!f)
-        return dragarc_error_set(err, DRAGARC_EIO, "", "cannot open %s: %s", path, strerror(errno));
+        return dragarc_error_set(err, DRAGARC_EIO, "", "cannot open: %s", strerror(errno));
     size_t cap = 4096, len = 0;
     char *buf = malloc(cap);
     int rc = DRAGARC_OK;
     if (!buf) {
         fclose(f);
-        return dragarc_error_set(err, DRAGARC_ENOMEM, "", "out of memory reading %s", path);
+        return dragarc_error_set(err, DRAGARC_ENOMEM, "", "out of memory reading the file");
     }
     for (;;) {
         if (len + 1 >= cap) {
             if (cap > max_bytes) {
-                rc = dragarc_error_set(err, DRAGARC_EIO, "", "%s is larger than %zu bytes", path, max_bytes);
+                rc = dragarc_error_set(err, DRAGARC_EIO, "", "the file is larger than %zu bytes", max_bytes);
                 break;
             }
             char *nb = realloc(buf, cap * 2);
             if (!nb) {
-                rc = dragarc_error_set(err, DRAGARC_ENOMEM, "", "out of memory reading %s", path);
+                rc = dragarc_error_set(err, DRAGARC_ENOMEM, "", "out of memory reading the file");
                 break;
             }
             buf = nb;
@@ -42,15 +42,15 @@ int dragarc_text_file_read(const char *path, size_t max_bytes, char **out, draga
         len += got;
         if (got == 0) {
             if (ferror(f))
-                rc = dragarc_error_set(err, DRAGARC_EIO, "", "cannot read %s: %s", path, strerror(errno));
+                rc = dragarc_error_set(err, DRAGARC_EIO, "", "cannot read: %s", strerror(errno));
             break;
         }
     }
     fclose(f);
     if (rc == DRAGARC_OK && len > max_bytes)
-        rc = dragarc_error_set(err, DRAGARC_EIO, "", "%s is larger than %zu bytes", path, max_bytes);
+        rc = dragarc_error_set(err, DRAGARC_EIO, "", "the file is larger than %zu bytes", max_bytes);
     if (rc == DRAGARC_OK && memchr(buf, '\0', len))
-        rc = dragarc_error_set(err, DRAGARC_EIO, "", "%s contains a NUL byte: not a text file", path);
+        rc = dragarc_error_set(err, DRAGARC_EIO, "", "contains a NUL byte: not a text file");
     if (rc != DRAGARC_OK) {
         free(buf);
         return rc;

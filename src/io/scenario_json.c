@@ -124,6 +124,26 @@ static int parse_text(const char *text, const char *what, cJSON **out, dragarc_e
     const char *end = NULL;
     cJSON *root = cJSON_ParseWithOpts(text, &end, 1);
     if (!root) {
+        /* cJSON refuses nesting deeper than CJSON_NESTING_LIMIT: say so rather than "not valid". */
+        int depth = 0, max_depth = 0, in_string = 0;
+        for (const char *p = text; end && p < end && *p; p++) {
+            if (in_string) {
+                if (*p == '\\' && p[1])
+                    p++;
+                else if (*p == '"')
+                    in_string = 0;
+            } else if (*p == '"') {
+                in_string = 1;
+            } else if (*p == '[' || *p == '{') {
+                if (++depth > max_depth)
+                    max_depth = depth;
+            } else if (*p == ']' || *p == '}') {
+                depth--;
+            }
+        }
+        if (max_depth >= CJSON_NESTING_LIMIT)
+            return dragarc_error_set(err, DRAGARC_EINVAL, "", "%s nests arrays or objects deeper than %d levels", what,
+                                     CJSON_NESTING_LIMIT);
         int line = 1, col = 1;
         for (const char *p = text; end && p < end && *p; p++) {
             if (*p == '\n')
@@ -134,6 +154,26 @@ static int parse_text(const char *text, const char *what, cJSON **out, dragarc_e
         return dragarc_error_set(err, DRAGARC_EINVAL, "", "%s is not valid JSON (line %d, column %d)", what, line, col);
     }
     *out = root;
+    return DRAGARC_OK;
+}
+
+/* "source": a citation string, or an object of citation strings keyed by the field they support. */
+static int check_source(const cJSON *obj, const char *path, dragarc_error *err)
+{
+    const cJSON *src = cJSON_GetObjectItemCaseSensitive(obj, "source");
+    char field[PATH_MAX_LEN];
+    join(field, sizeof field, path, "source");
+    if (!src || cJSON_IsString(src))
+        return DRAGARC_OK;
+    if (!cJSON_IsObject(src))
+        return dragarc_error_set(err, DRAGARC_EINVAL, field, "must be a string or an object of strings, not %s",
+                                 type_name(src));
+    for (const cJSON *it = src->child; it; it = it->next)
+        if (!cJSON_IsString(it)) {
+            char sub[PATH_MAX_LEN];
+            join(sub, sizeof sub, field, it->string ? it->string : "");
+            return dragarc_error_set(err, DRAGARC_EINVAL, sub, "must be a string, not %s", type_name(it));
+        }
     return DRAGARC_OK;
 }
 
@@ -150,6 +190,7 @@ static int read_drag(const cJSON *j, const char *path, dragarc_drag *d, dragarc_
     if (dragarc_drag_model_from_name(model, &m) != DRAGARC_OK)
         return dragarc_error_set(err, DRAGARC_EINVAL, field,
                                  "unknown drag model \"%s\" (none, constant, linear, quadratic, sphere, table)", model);
+    TRY(check_source(j, path, err));
     memset(d, 0, sizeof *d);
     d->model = m;
     switch (m) {
@@ -239,8 +280,10 @@ static int read_projectile_object(const cJSON *j, const char *path, dragarc_proj
                                        "area", "volume", "drag", NULL};
     TRY(want_object(j, path, err));
     TRY(check_keys(j, path, keys, err));
-    const char *name = NULL;
+    TRY(check_source(j, path, err));
+    const char *name = NULL, *desc = NULL;
     TRY(get_string(j, path, "name", 0, &name, err));
+    TRY(get_string(j, path, "description", 0, &desc, err));
     if (name)
         snprintf(p->name, sizeof p->name, "%s", name);
     double mass = 0.0, density = 0.0;
@@ -298,7 +341,7 @@ static int read_projectile_file(const char *file, dragarc_projectile *p, dragarc
         if (err) {
             char msg[sizeof err->message];
             snprintf(msg, sizeof msg, "%s", err->message);
-            dragarc_error_set(err, rc, "projectile", "cannot read profile: %s", msg);
+            dragarc_error_set(err, rc, "projectile", "profile %s: %s", file, msg);
         }
         return rc;
     }
@@ -326,6 +369,9 @@ static int read_projectile_file(const char *file, dragarc_projectile *p, dragarc
 static int read_projectile(const cJSON *j, const char *base_dir, const char *profile_path, dragarc_projectile *p,
                            dragarc_error *err)
 {
+    if (!cJSON_IsString(j) && !cJSON_IsObject(j))
+        return dragarc_error_set(err, DRAGARC_EINVAL, "projectile",
+                                 "must be an object, a profile name or a profile path, not %s", type_name(j));
     if (!cJSON_IsString(j))
         return read_projectile_object(j, "projectile", p, err);
     const char *ref = j->valuestring;
