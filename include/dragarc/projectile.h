@@ -18,6 +18,7 @@ typedef struct dragarc_projectile {
     double diameter;    /* m, > 0: the length in the Reynolds number */
     double area;        /* m^2, reference area for Cd (default pi d^2 / 4) */
     double volume;      /* m^3, for buoyancy (default pi d^3 / 6) */
+    double density;     /* kg/m^3 when the mass was given as density x volume, else 0 */
     dragarc_drag drag;  /* owned (tables) */
 } dragarc_projectile;
 

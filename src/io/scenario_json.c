@@ -314,6 +314,7 @@ static int read_projectile_object(const cJSON *j, const char *path, dragarc_proj
         if (!(p->volume > 0.0))
             return dragarc_error_set(err, DRAGARC_EINVAL, field, "needs a positive volume to give a mass");
         mass = density * p->volume;
+        p->density = density;
     }
     p->mass = mass;
     const cJSON *dj = cJSON_GetObjectItemCaseSensitive(j, "drag");
