@@ -25,7 +25,8 @@ enum {
     DRAGARC_ESOLVER = -3, /* the integrator or a root finder failed */
     DRAGARC_ENOLAND = -4, /* the flight did not reach the ground within the time limit */
     DRAGARC_EIO = -5,     /* a file could not be read or written */
-    DRAGARC_ERANGE = -6   /* a model was evaluated outside its domain (e.g. ISA above 86 km) */
+    DRAGARC_ERANGE = -6,  /* a model was evaluated outside its domain (e.g. ISA above 86 km) */
+    DRAGARC_ENOSOLUTION = -7 /* a solver found that no launch meets the request (out of reach) */
 };
 
 /* One error: the status code, the field path it concerns ("launch.elevation", or "" when none) and a

@@ -47,6 +47,13 @@ int dragarc_flight_write_csv(FILE *fp, const dragarc_flight *f, dragarc_error *e
  * Angles in degrees. Caller frees the returned string with free(); NULL when out of memory. */
 char *dragarc_flight_json(const dragarc_scenario *s, const dragarc_flight *f);
 
+/* The `aim --json` document: {"scenario", "target", "solutions": [...], "max_range",
+ * "max_range_elevation", "flights", "units", "cautions"}; angles in degrees. Caller frees with free(). */
+struct dragarc_aim_request;
+struct dragarc_aim_result;
+char *dragarc_aim_json(const dragarc_scenario *s, const struct dragarc_aim_request *req,
+                       const struct dragarc_aim_result *r);
+
 /* The `atmosphere --json` document for n altitudes (m) and their states. Caller frees with free(). */
 char *dragarc_atmosphere_json(const double *altitudes, const dragarc_air *levels, size_t n, double temperature_offset);
 

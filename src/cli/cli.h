@@ -42,6 +42,7 @@ typedef struct cli_fly_options {
 int cli_fly_scenario(const char *where, const dragarc_scenario *s, const cli_fly_options *o);
 
 int cmd_fly(int argc, char **argv);
+int cmd_aim(int argc, char **argv);
 int cmd_atmosphere(int argc, char **argv);
 int cmd_demo(int argc, char **argv);
 

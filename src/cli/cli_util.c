@@ -27,6 +27,7 @@ int cli_report(const char *where, const dragarc_error *err)
     switch (err->code) {
     case DRAGARC_EINVAL:
     case DRAGARC_EIO: return EXIT_BAD_INPUT;
+    case DRAGARC_ENOSOLUTION: return EXIT_NO_SOLUTION;
     default: return EXIT_FAILED;
     }
 }

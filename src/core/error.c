@@ -50,6 +50,7 @@ const char *dragarc_status_name(int code)
     case DRAGARC_ENOLAND: return "no ground impact";
     case DRAGARC_EIO: return "input/output error";
     case DRAGARC_ERANGE: return "outside the model's range";
+    case DRAGARC_ENOSOLUTION: return "no solution";
     default: return "unknown status";
     }
 }

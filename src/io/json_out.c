@@ -6,10 +6,12 @@
  */
 #include <math.h>
 #include <stdlib.h>
+#include <string.h>
 
 #include <cjson/cJSON.h>
 
 #include "core/constants.h"
+#include "dragarc/aim.h"
 #include "dragarc/cautions.h"
 #include "dragarc/output.h"
 
@@ -85,6 +87,62 @@ char *dragarc_flight_json(const dragarc_scenario *s, const dragarc_flight *f)
     cJSON *ca = cJSON_AddArrayToObject(doc, "cautions");
     for (size_t i = 0; i < nc; i++)
         cJSON_AddItemToArray(ca, cJSON_CreateString(cautions[i]));
+    return finish(doc);
+}
+
+static void add_cautions(cJSON *doc, const dragarc_scenario *s, unsigned notes)
+{
+    dragarc_flight f;
+    memset(&f, 0, sizeof f);
+    f.notes = notes;
+    const char *cautions[8];
+    size_t nc = dragarc_cautions_flight(s, &f, cautions, 8);
+    cJSON *ca = cJSON_AddArrayToObject(doc, "cautions");
+    for (size_t i = 0; i < nc; i++)
+        cJSON_AddItemToArray(ca, cJSON_CreateString(cautions[i]));
+}
+
+char *dragarc_aim_json(const dragarc_scenario *s, const dragarc_aim_request *req, const dragarc_aim_result *r)
+{
+    cJSON *doc = cJSON_CreateObject();
+    if (!doc)
+        return NULL;
+    cJSON_AddStringToObject(doc, "scenario", s->name);
+    cJSON_AddStringToObject(doc, "dragarc_version", DRAGARC_VERSION_STRING);
+    cJSON *t = cJSON_AddObjectToObject(doc, "target");
+    add_num(t, "range", req->range);
+    add_num(t, "crossrange", req->crossrange);
+    add_num(t, "height", isnan(req->height) ? s->ground_elevation : req->height);
+    add_num(t, "azimuth", s->launch.azimuth / DRAGARC_DEG);
+    cJSON_AddStringToObject(t, "solve", req->mode == DRAGARC_AIM_SPEED ? "speed" : "elevation");
+    cJSON *arr = cJSON_AddArrayToObject(doc, "solutions");
+    unsigned notes = 0;
+    for (size_t i = 0; i < r->nsolutions; i++) {
+        const dragarc_aim_solution *q = &r->solutions[i];
+        cJSON *o = cJSON_CreateObject();
+        add_num(o, "elevation", q->elevation / DRAGARC_DEG);
+        add_num(o, "azimuth", q->azimuth / DRAGARC_DEG);
+        add_num(o, "azimuth_correction", q->azimuth_correction / DRAGARC_DEG);
+        add_num(o, "speed", q->speed);
+        add_num(o, "time_of_flight", q->time_of_flight);
+        add_num(o, "apex_height", q->apex_height);
+        add_num(o, "impact_speed", q->impact_speed);
+        add_num(o, "impact_angle", q->impact_angle / DRAGARC_DEG);
+        add_num(o, "impact_energy", q->impact_energy);
+        add_num(o, "miss", q->miss);
+        cJSON_AddItemToArray(arr, o);
+        notes |= q->notes;
+    }
+    add_num(doc, "max_range", r->max_range);
+    add_num(doc, "max_range_elevation", r->max_range_elevation / DRAGARC_DEG);
+    cJSON_AddNumberToObject(doc, "flights", (double)r->flights);
+    static const char *const units[] = {"range", "m", "crossrange", "m", "height", "m", "elevation", "degree",
+                                        "azimuth", "degree", "azimuth_correction", "degree", "speed", "m/s",
+                                        "time_of_flight", "s", "apex_height", "m", "impact_speed", "m/s",
+                                        "impact_angle", "degree", "impact_energy", "J", "miss", "m",
+                                        "max_range", "m", "max_range_elevation", "degree", NULL};
+    add_units(doc, units);
+    add_cautions(doc, s, notes);
     return finish(doc);
 }
 

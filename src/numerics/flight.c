@@ -371,6 +371,13 @@ int dragarc_flight_run(const dragarc_scenario *s, double dt, dragarc_flight *out
                 out->apex_height = yv[2];
                 out->apex_time = t;
             }
+            if (found[1] && yv[2] < s->ground_elevation) {
+                rc = dragarc_error_set(err, DRAGARC_ENOLAND, "ground.elevation",
+                                       "the flight peaks at %.6g m, below the ground plane at %g m, so it never "
+                                       "comes down onto it",
+                                       yv[2], s->ground_elevation);
+                goto done;
+            }
             if (found[0])
                 landed = 1;
         } else if (flag == CV_TSTOP_RETURN || t >= s->solver.max_time) {

@@ -40,9 +40,11 @@ int dragarc_scenario_check(const dragarc_scenario *s, dragarc_error *err)
         return dragarc_error_set(err, DRAGARC_EINVAL, "launch.height", "must be a finite height in m");
     if (!isfinite(s->ground_elevation))
         return dragarc_error_set(err, DRAGARC_EINVAL, "ground.elevation", "must be a finite height in m");
-    if (l->height < s->ground_elevation)
+    /* A launch below the impact plane (a throw up onto a terrace or roof) must climb through it. */
+    if (l->height < s->ground_elevation && !(l->speed > 0.0 && l->elevation > 0.0))
         return dragarc_error_set(err, DRAGARC_EINVAL, "launch.height",
-                                 "%g m is below ground.elevation (%g m): the flight would start underground",
+                                 "%g m is below ground.elevation (%g m) and the launch does not climb: the flight "
+                                 "would never come down onto the ground plane",
                                  l->height, s->ground_elevation);
     if (l->height == s->ground_elevation && !(l->speed > 0.0 && l->elevation > 0.0))
         return dragarc_error_set(err, DRAGARC_EINVAL, "launch.height",
