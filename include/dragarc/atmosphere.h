@@ -44,7 +44,7 @@ typedef struct dragarc_air {
 /* An atmosphere as the scenario describes it. Plain data; nothing to free. */
 typedef struct dragarc_atmosphere {
     dragarc_atmosphere_model model;
-    double site_elevation;     /* m, geometric altitude of the local datum z = 0 (isa, exponential) */
+    double site_elevation;     /* m, geometric altitude of the local datum z = 0 (isa) */
     double temperature_offset; /* K, added to the standard temperature at every altitude (isa) */
     double density;            /* kg/m^3: the fluid's (constant) or at the site datum (exponential) */
     double viscosity;          /* Pa s (constant); exponential uses Sutherland's law at `temperature` */

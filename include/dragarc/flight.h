@@ -33,8 +33,7 @@ enum {
     DRAGARC_NOTE_TRANSONIC = 1u << 1,     /* Mach > 0.6 with a drag law that ignores Mach number */
     DRAGARC_NOTE_DENSE_FLUID = 1u << 2,   /* fluid density > 1 % of the body's: added mass ignored */
     DRAGARC_NOTE_DRAG_CRISIS = 1u << 3,   /* sphere model crossed Re 2e5..1e6: Cd drops sharply */
-    DRAGARC_NOTE_HIGH_ENERGY = 1u << 4,   /* impact energy >= 15 J */
-    DRAGARC_NOTE_NOT_TERMINAL = 1u << 5   /* ground reached well before the terminal speed */
+    DRAGARC_NOTE_HIGH_ENERGY = 1u << 4    /* impact energy >= 15 J */
 };
 
 typedef struct dragarc_flight {

@@ -40,7 +40,7 @@ int dragarc_output_commit(dragarc_output *o, dragarc_error *err);
 void dragarc_output_abort(dragarc_output *o);
 
 /* Write the flight's sampled points as CSV with a header row:
- * t,x,y,z,vx,vy,vz,speed,mach,reynolds (SI units; the header names the unit of each column). */
+ * t,x,y,z,vx,vy,vz,speed,mach,reynolds (SI units: s, m, m/s; Mach and Reynolds numbers). */
 int dragarc_flight_write_csv(FILE *fp, const dragarc_flight *f, dragarc_error *err);
 
 /* The `fly --json` document: {"scenario", "summary": {...}, "solver": {...}, "cautions": [...]}.

@@ -103,7 +103,7 @@ static void describe_drag(char *buf, size_t n, const dragarc_drag *d)
     case DRAGARC_DRAG_TABLE:
         snprintf(buf, n, "table of Cd against %s (%zu points)", dragarc_drag_axis_name(d->axis), d->npoints);
         break;
-    default: snprintf(buf, n, "none (vacuum-like)"); break;
+    default: snprintf(buf, n, "none"); break;
     }
 }
 
@@ -118,7 +118,7 @@ void cli_print_flight(FILE *fp, const char *label, const dragarc_scenario *s, co
     fprintf(fp, "  launch          %.4g m/s at %.4g deg elevation, azimuth %.4g deg, from %.4g m\n",
             s->launch.speed, s->launch.elevation * DEG, s->launch.azimuth * DEG, s->launch.height);
     fprintf(fp, "  range           %.2f m (downrange %.2f m, crossrange %.2f m %s)\n", f->range, f->downrange,
-            fabs(f->crossrange), f->crossrange >= 0.0 ? "right" : "left");
+            fabs(f->crossrange), f->crossrange >= -0.005 ? "right" : "left"); /* no "0.00 m left" */
     fprintf(fp, "  time of flight  %.3f s\n", f->time_of_flight);
     fprintf(fp, "  apex height     %.2f m at %.3f s\n", f->apex_height, f->apex_time);
     fprintf(fp, "  impact          %.2f m/s at %.1f deg below horizontal, %.3g J\n", f->impact_speed,

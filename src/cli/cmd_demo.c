@@ -7,6 +7,7 @@
 #include <string.h>
 
 #include "cli/cli.h"
+#include "dragarc/aim.h"
 #include "dragarc/cautions.h"
 
 static const char HELP[] =
@@ -53,6 +54,27 @@ static const demo_case CASES[] = {
      "the air thickens toward the ground, and the layered wind, veering with height, decides where it lands."},
 };
 
+/* The inverse question for the first case: which launches put the ball on a spot `range` metres out? */
+static int demo_aim(const dragarc_scenario *s, double range)
+{
+    dragarc_aim_request q;
+    dragarc_aim_request_default(&q);
+    q.range = range;
+    dragarc_aim_result r;
+    dragarc_error err;
+    if (dragarc_aim_solve(s, &q, &r, &err) != DRAGARC_OK)
+        return cli_report("demo", &err);
+    printf("  Aim (dragarc aim --range %g): at %.4g m/s the ball reaches at most %.1f m (elevation %.1f deg);\n", range,
+           s->launch.speed, r.max_range, r.max_range_elevation * 57.29577951308232);
+    for (size_t i = 0; i < r.nsolutions; i++)
+        printf("    %s: elevation %.2f deg, aim %.2f deg %s of the line, %.2f s in the air, lands at %.1f m/s\n",
+               r.nsolutions != 2 ? "solution" : i == 0 ? "direct" : "lofted", r.solutions[i].elevation * 57.29577951308232,
+               fabs(r.solutions[i].azimuth_correction) * 57.29577951308232,
+               r.solutions[i].azimuth_correction >= 0 ? "right" : "left", r.solutions[i].time_of_flight,
+               r.solutions[i].impact_speed);
+    return EXIT_OK;
+}
+
 int cmd_demo(int argc, char **argv)
 {
     for (int i = 1; i < argc; i++) {
@@ -85,6 +107,13 @@ int cmd_demo(int argc, char **argv)
             printf("  drag relaxation time %.3g s (terminal speed / g) against a %.3g s flight: %s method\n",
                    f.relaxation_time, f.time_of_flight, dragarc_method_name(f.method));
         cli_print_wrapped(stdout, "  What it shows: ", 4, 100, CASES[k].explain);
+        if (k == 0 && demo_aim(&s, 70.0) != EXIT_OK) {
+            dragarc_flight_clear(&f);
+            dragarc_scenario_clear(&s);
+            if (have_last)
+                dragarc_scenario_clear(&last);
+            return EXIT_FAILED;
+        }
         putchar('\n');
         notes |= f.notes;
         if (have_last)

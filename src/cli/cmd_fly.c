@@ -39,6 +39,8 @@ int cmd_fly(int argc, char **argv)
             if (++i >= argc)
                 return cli_usage_error("fly", "--trajectory needs a file name");
             o.trajectory = argv[i];
+            if (strcmp(o.trajectory, "-") == 0)
+                return cli_usage_error("fly", "--trajectory needs a file name: standard output carries the summary");
         } else if (strcmp(a, "--dt") == 0) {
             if (++i >= argc || cli_parse_double(argv[i], &o.dt) != 0 || !(o.dt > 0.0))
                 return cli_usage_error("fly", "--dt needs a positive number of seconds");

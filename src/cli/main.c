@@ -25,7 +25,20 @@ static const char USAGE[] =
     "3 the computation failed.\n"
     "Scenario files, models and sources: see docs/ in the source tree.\n";
 
+static int run(int argc, char **argv);
+
+/* A result that did not reach standard output (a full disk, a closed pipe) is a failure, not success. */
 int main(int argc, char **argv)
+{
+    int status = run(argc, argv);
+    if (fflush(stdout) != 0 || ferror(stdout)) {
+        fputs("dragarc: cannot write to standard output\n", stderr);
+        return EXIT_FAILED;
+    }
+    return status;
+}
+
+static int run(int argc, char **argv)
 {
     dragarc_init();
     if (argc < 2) {

@@ -14,7 +14,7 @@ static const char ENERGY[] =
     "The impact energy is at or above 15 J, a level often used as a threshold for serious injury from falling "
     "objects (common practice, no source): keep people out of the landing area.";
 static const char TRANSONIC[] =
-    "The flight reaches Mach 0.6 or more but the drag law ignores Mach number: drag rises steeply near Mach 1, "
+    "The flight goes faster than Mach 0.6 but the drag law ignores Mach number: drag rises steeply near Mach 1, "
     "so use a Mach table for this projectile.";
 static const char CLAMPED[] =
     "The flight left the range of the drag table; Cd was held at the table's end value there.";

@@ -458,13 +458,12 @@ static int read_atmosphere(const cJSON *j, dragarc_atmosphere *a, dragarc_error 
         TRY(get_number(j, path, "temperature", 0, &a->temperature, NULL, err));
         TRY(get_number(j, path, "speed_of_sound", 0, &a->speed_of_sound, NULL, err));
     } else if (strcmp(model, "exponential") == 0) {
-        static const char *const keys[] = {"model", "density", "scale_height", "temperature", "site_elevation", NULL};
+        static const char *const keys[] = {"model", "density", "scale_height", "temperature", NULL};
         TRY(check_keys(j, path, keys, err));
         a->model = DRAGARC_ATMOSPHERE_EXPONENTIAL;
         TRY(get_number(j, path, "density", 1, &a->density, NULL, err));
         TRY(get_number(j, path, "scale_height", 1, &a->scale_height, NULL, err));
         TRY(get_number(j, path, "temperature", 0, &a->temperature, NULL, err));
-        TRY(get_number(j, path, "site_elevation", 0, &a->site_elevation, NULL, err));
     } else {
         return dragarc_error_set(err, DRAGARC_EINVAL, "environment.atmosphere.model",
                                  "unknown atmosphere model \"%s\" (isa, constant, exponential)", model);

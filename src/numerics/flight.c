@@ -414,9 +414,6 @@ int dragarc_flight_run(const dragarc_scenario *s, double dt, dragarc_flight *out
     out->impact_energy = 0.5 * s->projectile.mass * out->impact_speed * out->impact_speed;
     if (out->impact_energy >= 15.0)
         out->notes |= DRAGARC_NOTE_HIGH_ENERGY;
-    if (isfinite(out->terminal_speed) && out->impact_speed < 0.9 * out->terminal_speed && -out->impact[5] < 0.9 * out->terminal_speed &&
-        out->impact_angle > 45.0 * DRAGARC_DEG)
-        out->notes |= DRAGARC_NOTE_NOT_TERMINAL;
     rc = DRAGARC_OK;
     goto done;
 nomem:

@@ -146,7 +146,8 @@ int dragarc_atmosphere_check(const dragarc_atmosphere *atm, dragarc_error *err)
             return dragarc_error_set(err, DRAGARC_EINVAL, "temperature", "must be positive, in K (got %g)",
                                      atm->temperature);
         if (!(atm->speed_of_sound >= 0.0 && isfinite(atm->speed_of_sound)))
-            return dragarc_error_set(err, DRAGARC_EINVAL, "speed_of_sound", "must be positive (got %g)",
+            return dragarc_error_set(err, DRAGARC_EINVAL, "speed_of_sound",
+                                     "must be positive, or 0 for that of air at the temperature (got %g)",
                                      atm->speed_of_sound);
         return DRAGARC_OK;
     case DRAGARC_ATMOSPHERE_EXPONENTIAL:
@@ -159,8 +160,6 @@ int dragarc_atmosphere_check(const dragarc_atmosphere *atm, dragarc_error *err)
         if (!(atm->temperature > 0.0 && isfinite(atm->temperature)))
             return dragarc_error_set(err, DRAGARC_EINVAL, "temperature", "must be positive, in K (got %g)",
                                      atm->temperature);
-        if (!isfinite(atm->site_elevation))
-            return dragarc_error_set(err, DRAGARC_EINVAL, "site_elevation", "must be a finite number");
         return DRAGARC_OK;
     }
     return dragarc_error_set(err, DRAGARC_EINVAL, "model", "unknown atmosphere model %d", (int)atm->model);
