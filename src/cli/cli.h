@@ -44,5 +44,6 @@ int cli_fly_scenario(const char *where, const dragarc_scenario *s, const cli_fly
 int cmd_fly(int argc, char **argv);
 int cmd_atmosphere(int argc, char **argv);
 int cmd_demo(int argc, char **argv);
+int cmd_table(int argc, char **argv);
 
 #endif

@@ -13,6 +13,8 @@ static const char USAGE[] =
     "\n"
     "commands:\n"
     "  fly SCENARIO          fly one scenario file to ground impact; summary, JSON or trajectory CSV\n"
+    "  table SCENARIO --vary NAME=START:STOP:STEP ...\n"
+    "                        fly it for every combination of varied values; text, CSV, JSON, Markdown\n"
     "  atmosphere ALT...     U.S. Standard Atmosphere 1976 at geometric altitudes in metres\n"
     "  demo                  fly built-in example scenarios and explain what they show\n"
     "\n"
@@ -20,7 +22,7 @@ static const char USAGE[] =
     "  -h, --help            this help; 'dragarc COMMAND --help' for a command's own\n"
     "  -V, --version         print the version\n"
     "\n"
-    "exit status: 0 success, 2 bad usage or input, 3 the computation failed.\n"
+    "exit status: 0 success, 2 bad usage or input, 3 the computation (or a table row) failed.\n"
     "Scenario files, models and sources: see docs/ in the source tree.\n";
 
 int main(int argc, char **argv)
@@ -41,6 +43,8 @@ int main(int argc, char **argv)
     }
     if (strcmp(cmd, "fly") == 0)
         return cmd_fly(argc - 1, argv + 1);
+    if (strcmp(cmd, "table") == 0)
+        return cmd_table(argc - 1, argv + 1);
     if (strcmp(cmd, "atmosphere") == 0)
         return cmd_atmosphere(argc - 1, argv + 1);
     if (strcmp(cmd, "demo") == 0)

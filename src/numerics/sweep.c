@@ -271,7 +271,7 @@ int dragarc_sweep_axis_init(dragarc_sweep_axis *axis, const char *name, double s
     double n = floor(q + 1e-9) + 1.0;
     if (!(n <= DRAGARC_SWEEP_MAX_VALUES))
         return dragarc_error_set(err, DRAGARC_EINVAL, p->path,
-                                 "%g to %g by %g gives %.0f values; at most %d are allowed on one axis", start, stop,
+                                 "%.10g to %.10g by %.10g gives %.0f values; at most %d are allowed on one axis", start, stop,
                                  step, isfinite(n) ? n : HUGE_VAL, DRAGARC_SWEEP_MAX_VALUES);
     axis->param = p;
     axis->start = start;
@@ -358,7 +358,7 @@ int dragarc_sweep_axes_check(const dragarc_sweep_axis *axes, size_t naxes, size_
                                                                          "it with dragarc_sweep_axis_init", a->count);
         for (size_t j = 0; j < k; j++)
             if (axes[j].param == a->param)
-                return dragarc_error_set(err, DRAGARC_EINVAL, a->param->path, "is varied twice");
+                return dragarc_error_set(err, DRAGARC_EINVAL, a->param->path, "varied twice: one axis per parameter");
         if (total > DRAGARC_SWEEP_MAX_ROWS / a->count)
             return dragarc_error_set(err, DRAGARC_EINVAL, a->param->path,
                                      "the table would have more than %d rows; use larger steps or fewer values",
