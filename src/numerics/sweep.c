@@ -11,6 +11,7 @@
  * scenario whose scalars it changes, and shares the read-only drag table (GSL interpolation with a
  * NULL accelerator: no state is written) and wind layers with the others.
  */
+#include <float.h>
 #include <math.h>
 #include <stdio.h>
 #include <stdlib.h>
@@ -248,6 +249,15 @@ int dragarc_scenario_get(const dragarc_scenario *s, const char *name, double *va
 
 /* ---- axes ----------------------------------------------------------------------------------------- */
 
+/* How far short of a whole number of steps (in steps) stop may fall and still be included: 1e-9 of a
+ * step for decimal steps that binary floating point cannot hold exactly (0.9 / 0.3 = 2.9999999999999996),
+ * plus the rounding of start and stop themselves, which dominates when they are large against the
+ * step (1e6 to 1000000.1 by 0.01: 1000000.1 is stored 2.3e-9 steps low). */
+static double slack(double start, double stop, double step)
+{
+    return 1e-9 + 4.0 * DBL_EPSILON * fmax(fabs(start), fabs(stop)) / fabs(step);
+}
+
 int dragarc_sweep_axis_init(dragarc_sweep_axis *axis, const char *name, double start, double stop, double step,
                             dragarc_error *err)
 {
@@ -265,10 +275,8 @@ int dragarc_sweep_axis_init(dragarc_sweep_axis *axis, const char *name, double s
     if (stop < start && step > 0.0)
         return dragarc_error_set(err, DRAGARC_EINVAL, p->path,
                                  "STEP must be negative when STOP (%g) is below START (%g)", stop, start);
-    /* How many whole steps fit, forgiving 1e-9 of a step for decimal steps such as 0.1 that binary
-     * floating point cannot hold exactly (0.9 / 0.3 = 2.9999999999999996). */
     double q = (stop - start) / step;
-    double n = floor(q + 1e-9) + 1.0;
+    double n = floor(q + slack(start, stop, step)) + 1.0;
     if (!(n <= DRAGARC_SWEEP_MAX_VALUES))
         return dragarc_error_set(err, DRAGARC_EINVAL, p->path,
                                  "%.10g to %.10g by %.10g gives %.0f values; at most %d are allowed on one axis", start, stop,
@@ -325,7 +333,7 @@ double dragarc_sweep_axis_value(const dragarc_sweep_axis *a, size_t i)
     if (i == 0)
         return a->start;
     double v = a->start + (double)i * a->step;
-    if (i + 1 == a->count && fabs(v - a->stop) <= 1e-9 * fabs(a->step))
+    if (i + 1 == a->count && fabs(v - a->stop) <= slack(a->start, a->stop, a->step) * fabs(a->step))
         return a->stop;
     /* Round to 15 significant digits of the largest magnitude in the range: below the resolution of a
      * double at that magnitude, above the error of start + i step. */
