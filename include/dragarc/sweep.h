@@ -67,9 +67,10 @@ typedef struct dragarc_sweep_axis {
 
 /* Make an axis of parameter `name` from start to stop by step. Stop is included when it lies within
  * 1e-9 |step| of a whole number of steps from start (widened by 4 ulps of max(|start|, |stop|), the
- * rounding of the numbers themselves, when they are large against the step). step must not be 0 and must point from start
- * to stop (any sign when start == stop). DRAGARC_EINVAL with err->field the parameter's key path
- * ("" for an unknown name), and when there would be more than DRAGARC_SWEEP_MAX_VALUES values. */
+ * rounding of the numbers themselves, when they are large against the step). step must not be 0 and
+ * must point from start to stop (any sign when start == stop). DRAGARC_EINVAL with err->field the
+ * parameter's key path ("" for an unknown name), also when there would be more than
+ * DRAGARC_SWEEP_MAX_VALUES values. */
 int dragarc_sweep_axis_init(dragarc_sweep_axis *axis, const char *name, double start, double stop, double step,
                             dragarc_error *err);
 

@@ -11,7 +11,6 @@
 #include "dragarc/output.h"
 #include "dragarc/sweep.h"
 
-#define DEG (180.0 / 3.14159265358979323846)
 #define WIDTH 100 /* columns of the human table's wrapped text */
 
 static const char HELP_HEAD[] =
@@ -52,90 +51,61 @@ static void print_help(void)
     fputs(HELP_TAIL, stdout);
 }
 
-static const char *short_unit(const char *unit) { return strcmp(unit, "degree") == 0 ? "deg" : unit; }
-
 /* ---- the human table ------------------------------------------------------------------------------ */
 
-enum { H_RANGE, H_CROSS, H_TIME, H_APEX, H_SPEED, H_ANGLE, H_ENERGY, H_COUNT };
-static const char *const H_HEAD[H_COUNT] = {"range", "crossrange", "time", "apex", "impact", "angle", "energy"};
-static const char *const H_UNIT[H_COUNT] = {"m", "m", "s", "m", "m/s", "deg", "J"};
-
-static double h_value(const dragarc_sweep_row *r, int c)
-{
-    switch (c) {
-    case H_RANGE: return r->range;
-    case H_CROSS: return r->crossrange;
-    case H_TIME: return r->time_of_flight;
-    case H_APEX: return r->apex_height;
-    case H_SPEED: return r->impact_speed;
-    case H_ANGLE: return r->impact_angle * DEG;
-    default: return r->impact_energy;
-    }
-}
-
-static void h_cell(char *buf, size_t n, const dragarc_sweep_row *r, int c, const int *decimals)
-{
-    if (c == H_ENERGY)
-        snprintf(buf, n, "%.3g", h_value(r, c));
-    else
-        snprintf(buf, n, "%.*f", decimals[c], h_value(r, c));
-}
+/* The columns it shows; downrange and terminal speed are left to the other formats for width. */
+static const dragarc_sweep_column SHOWN[] = {DRAGARC_SWEEP_RANGE,         DRAGARC_SWEEP_CROSSRANGE,
+                                             DRAGARC_SWEEP_TIME_OF_FLIGHT, DRAGARC_SWEEP_APEX_HEIGHT,
+                                             DRAGARC_SWEEP_IMPACT_SPEED,   DRAGARC_SWEEP_IMPACT_ANGLE,
+                                             DRAGARC_SWEEP_IMPACT_ENERGY};
+enum { NSHOWN = sizeof SHOWN / sizeof SHOWN[0] };
 
 static int max_int(int a, int b) { return a > b ? a : b; }
 
 static int print_human(FILE *fp, const dragarc_sweep *t)
 {
-    int decimals[H_COUNT], wv[DRAGARC_SWEEP_MAX_AXES], wr[H_COUNT];
-    double *col = malloc((t->nrows ? t->nrows : 1) * sizeof *col);
-    if (!col)
-        return -1;
-    for (int c = 0; c < H_COUNT; c++) {
-        size_t m = 0;
-        for (size_t i = 0; i < t->nrows; i++)
-            if (t->rows[i].status == DRAGARC_OK)
-                col[m++] = h_value(&t->rows[i], c);
-        decimals[c] = c == H_ANGLE ? 1 : dragarc_number_decimals(col, m, 5);
-    }
-    free(col);
+    int decimals[NSHOWN], wv[DRAGARC_SWEEP_MAX_AXES], wr[NSHOWN];
     char cell[64];
     for (size_t k = 0; k < t->naxes; k++)
-        wv[k] = max_int((int)strlen(t->axes[k].param->alias), (int)strlen(short_unit(t->axes[k].param->unit)));
-    for (int c = 0; c < H_COUNT; c++)
-        wr[c] = max_int((int)strlen(H_HEAD[c]), (int)strlen(H_UNIT[c]));
+        wv[k] = max_int((int)strlen(t->axes[k].param->alias), (int)strlen(dragarc_unit_abbrev(t->axes[k].param->unit)));
+    for (int c = 0; c < NSHOWN; c++) {
+        const dragarc_sweep_column_info *about = dragarc_sweep_column_about(SHOWN[c]);
+        decimals[c] = dragarc_sweep_column_decimals(t, SHOWN[c]);
+        wr[c] = max_int((int)strlen(about->brief), (int)strlen(dragarc_unit_abbrev(about->unit)));
+    }
     for (size_t i = 0; i < t->nrows; i++) {
         const dragarc_sweep_row *r = &t->rows[i];
         for (size_t k = 0; k < t->naxes; k++) {
             dragarc_number_format(cell, sizeof cell, r->values[k]);
             wv[k] = max_int(wv[k], (int)strlen(cell));
         }
-        for (int c = 0; r->status == DRAGARC_OK && c < H_COUNT; c++) {
-            h_cell(cell, sizeof cell, r, c, decimals);
+        for (int c = 0; r->status == DRAGARC_OK && c < NSHOWN; c++) {
+            dragarc_sweep_cell_format(cell, sizeof cell, r, SHOWN[c], decimals[c]);
             wr[c] = max_int(wr[c], (int)strlen(cell));
         }
     }
 
+    char text[sizeof(dragarc_error)], lead[256];
     fprintf(fp, "dragarc table%s%s\n", t->scenario[0] ? ": " : "", t->scenario);
     int walias = 0;
     for (size_t k = 0; k < t->naxes; k++)
         walias = max_int(walias, (int)strlen(t->axes[k].param->alias));
     for (size_t k = 0; k < t->naxes; k++) {
-        const dragarc_sweep_axis *a = &t->axes[k];
-        char v[3][40];
-        dragarc_number_format(v[0], sizeof v[0], a->start);
-        dragarc_number_format(v[1], sizeof v[1], a->stop);
-        dragarc_number_format(v[2], sizeof v[2], a->step);
-        fprintf(fp, "  %-*s  %s from %s to %s by %s%s%s (%zu values)\n", walias, a->param->alias, a->param->path, v[0], v[1],
-                v[2], a->param->unit[0] ? " " : "", short_unit(a->param->unit), a->count);
+        dragarc_sweep_axis_describe(text, sizeof text, &t->axes[k]);
+        fprintf(fp, "  %-*s  %s %s (%zu values)\n", walias, t->axes[k].param->alias, t->axes[k].param->path, text,
+                t->axes[k].count);
     }
     fprintf(fp, "  %zu rows, %zu failed\n\n", t->nrows, t->nfailed);
     for (int line = 0; line < 2; line++) {
         for (size_t k = 0; k < t->naxes; k++)
-            fprintf(fp, "%s%*s", k ? "  " : "  ", wv[k], line ? short_unit(t->axes[k].param->unit) : t->axes[k].param->alias);
-        for (int c = 0; c < H_COUNT; c++)
-            fprintf(fp, "  %*s", wr[c], line ? H_UNIT[c] : H_HEAD[c]);
+            fprintf(fp, "  %*s", wv[k],
+                    line ? dragarc_unit_abbrev(t->axes[k].param->unit) : t->axes[k].param->alias);
+        for (int c = 0; c < NSHOWN; c++) {
+            const dragarc_sweep_column_info *about = dragarc_sweep_column_about(SHOWN[c]);
+            fprintf(fp, "  %*s", wr[c], line ? dragarc_unit_abbrev(about->unit) : about->brief);
+        }
         fputc('\n', fp);
     }
-    char msg[sizeof(dragarc_error)], lead[256];
     for (size_t i = 0; i < t->nrows; i++) {
         const dragarc_sweep_row *r = &t->rows[i];
         size_t len = 0;
@@ -146,15 +116,14 @@ static int print_human(FILE *fp, const dragarc_sweep *t)
         }
         if (r->status != DRAGARC_OK) {
             /* the reason in place of the results, wrapped under them */
-            dragarc_sweep_row_message(r, msg, sizeof msg);
-            int indent = (int)len + 2;
+            dragarc_sweep_row_message(r, text, sizeof text);
             snprintf(lead + len, sizeof lead - len, "  failed: ");
-            cli_print_wrapped(fp, lead, indent, WIDTH, msg);
+            cli_print_wrapped(fp, lead, (int)len + 2, WIDTH, text);
             continue;
         }
         fputs(lead, fp);
-        for (int c = 0; c < H_COUNT; c++) {
-            h_cell(cell, sizeof cell, r, c, decimals);
+        for (int c = 0; c < NSHOWN; c++) {
+            dragarc_sweep_cell_format(cell, sizeof cell, r, SHOWN[c], decimals[c]);
             fprintf(fp, "  %*s", wr[c], cell);
         }
         fputc('\n', fp);

@@ -32,7 +32,9 @@ void dragarc_number_format(char *buf, size_t size, double v)
     }
 }
 
-int dragarc_number_decimals(const double *v, size_t n, int digits)
+/* Decimals (0 to 6) that print the largest finite |v[i]| with `digits` significant digits; 0 when no
+ * value is finite. */
+static int decimals_for(const double *v, size_t n, int digits)
 {
     double big = 0.0;
     int any = 0;
@@ -47,50 +49,86 @@ int dragarc_number_decimals(const double *v, size_t n, int digits)
     return d < 0 ? 0 : d > 6 ? 6 : d;
 }
 
-/* The summary columns of every table, in order. */
-enum { C_RANGE, C_DOWNRANGE, C_CROSSRANGE, C_TIME, C_APEX, C_IMPACT_SPEED, C_IMPACT_ANGLE, C_ENERGY, C_TERMINAL, C_COUNT };
-
-static const struct {
-    const char *key;   /* JSON key */
-    const char *csv;   /* CSV column name, with the unit */
-    const char *label; /* Markdown header */
-    const char *unit;
-} COLUMNS[C_COUNT] = {
-    {"range", "range_m", "range (m)", "m"},
-    {"downrange", "downrange_m", "downrange (m)", "m"},
-    {"crossrange", "crossrange_m", "crossrange (m)", "m"},
-    {"time_of_flight", "time_of_flight_s", "time of flight (s)", "s"},
-    {"apex_height", "apex_height_m", "apex height (m)", "m"},
-    {"impact_speed", "impact_speed_m_s", "impact speed (m/s)", "m/s"},
-    {"impact_angle", "impact_angle_deg", "impact angle (deg)", "degree"},
-    {"impact_energy", "impact_energy_J", "impact energy (J)", "J"},
-    {"terminal_speed", "terminal_speed_m_s", "terminal speed (m/s)", "m/s"},
+static const dragarc_sweep_column_info COLUMNS[DRAGARC_SWEEP_NCOLUMNS] = {
+    {"range", "range_m", "range", "range", "m"},
+    {"downrange", "downrange_m", "downrange", "downrange", "m"},
+    {"crossrange", "crossrange_m", "crossrange", "crossrange", "m"},
+    {"time_of_flight", "time_of_flight_s", "time of flight", "time", "s"},
+    {"apex_height", "apex_height_m", "apex height", "apex", "m"},
+    {"impact_speed", "impact_speed_m_s", "impact speed", "impact", "m/s"},
+    {"impact_angle", "impact_angle_deg", "impact angle", "angle", "degree"},
+    {"impact_energy", "impact_energy_J", "impact energy", "energy", "J"},
+    {"terminal_speed", "terminal_speed_m_s", "terminal speed", "terminal", "m/s"},
 };
+enum { NC = DRAGARC_SWEEP_NCOLUMNS };
 
-/* Column c of a row in the units of the outputs (degrees for the angle). */
-static double column(const dragarc_sweep_row *r, int c)
+const dragarc_sweep_column_info *dragarc_sweep_column_about(dragarc_sweep_column c)
+{
+    return (unsigned)c < NC ? &COLUMNS[c] : NULL;
+}
+
+double dragarc_sweep_column_value(const dragarc_sweep_row *r, dragarc_sweep_column c)
 {
     switch (c) {
-    case C_RANGE: return r->range;
-    case C_DOWNRANGE: return r->downrange;
-    case C_CROSSRANGE: return r->crossrange;
-    case C_TIME: return r->time_of_flight;
-    case C_APEX: return r->apex_height;
-    case C_IMPACT_SPEED: return r->impact_speed;
-    case C_IMPACT_ANGLE: return r->impact_angle / DRAGARC_DEG;
-    case C_ENERGY: return r->impact_energy;
-    case C_TERMINAL: return r->terminal_speed;
+    case DRAGARC_SWEEP_RANGE: return r->range;
+    case DRAGARC_SWEEP_DOWNRANGE: return r->downrange;
+    case DRAGARC_SWEEP_CROSSRANGE: return r->crossrange;
+    case DRAGARC_SWEEP_TIME_OF_FLIGHT: return r->time_of_flight;
+    case DRAGARC_SWEEP_APEX_HEIGHT: return r->apex_height;
+    case DRAGARC_SWEEP_IMPACT_SPEED: return r->impact_speed;
+    case DRAGARC_SWEEP_IMPACT_ANGLE: return r->impact_angle / DRAGARC_DEG;
+    case DRAGARC_SWEEP_IMPACT_ENERGY: return r->impact_energy;
+    case DRAGARC_SWEEP_TERMINAL_SPEED: return r->terminal_speed;
     default: return NAN;
     }
 }
 
-/* "degree" -> "deg"; other units as they are. */
-static const char *short_unit(const char *unit) { return strcmp(unit, "degree") == 0 ? "deg" : unit; }
+int dragarc_sweep_column_decimals(const dragarc_sweep *t, dragarc_sweep_column c)
+{
+    if (c == DRAGARC_SWEEP_IMPACT_ANGLE)
+        return 1;
+    double *col = malloc((t->nrows ? t->nrows : 1) * sizeof *col);
+    if (!col)
+        return 3; /* a fair default when even this fails */
+    size_t m = 0;
+    for (size_t i = 0; i < t->nrows; i++)
+        if (t->rows[i].status == DRAGARC_OK)
+            col[m++] = dragarc_sweep_column_value(&t->rows[i], c);
+    int d = decimals_for(col, m, 5);
+    free(col);
+    return d;
+}
+
+void dragarc_sweep_cell_format(char *buf, size_t size, const dragarc_sweep_row *r, dragarc_sweep_column c,
+                               int decimals)
+{
+    double v = dragarc_sweep_column_value(r, c);
+    if (r->status != DRAGARC_OK)
+        snprintf(buf, size, "%s", ""); /* the status says why */
+    else if (!isfinite(v))
+        snprintf(buf, size, "none");
+    else if (c == DRAGARC_SWEEP_IMPACT_ENERGY)
+        snprintf(buf, size, "%.3g", v);
+    else
+        snprintf(buf, size, "%.*f", decimals, v);
+}
+
+const char *dragarc_unit_abbrev(const char *unit) { return strcmp(unit, "degree") == 0 ? "deg" : unit; }
+
+void dragarc_sweep_axis_describe(char *buf, size_t size, const dragarc_sweep_axis *a)
+{
+    char v[3][40];
+    dragarc_number_format(v[0], sizeof v[0], a->start);
+    dragarc_number_format(v[1], sizeof v[1], a->stop);
+    dragarc_number_format(v[2], sizeof v[2], a->step);
+    snprintf(buf, size, "from %s to %s by %s%s%s", v[0], v[1], v[2], a->param->unit[0] ? " " : "",
+             dragarc_unit_abbrev(a->param->unit));
+}
 
 /* A unit fit for a CSV column name: m/s -> m_s, m/s^2 -> m_s2, degree -> deg. */
 static void csv_unit(char *buf, size_t size, const char *unit)
 {
-    const char *u = short_unit(unit);
+    const char *u = dragarc_unit_abbrev(unit);
     size_t k = 0;
     for (; *u && k + 1 < size; u++)
         if (*u != '^')
@@ -142,7 +180,7 @@ int dragarc_sweep_write_csv(FILE *fp, const dragarc_sweep *t, dragarc_error *err
         csv_unit(u, sizeof u, t->axes[k].param->unit);
         fprintf(fp, "%s%s%s,", t->axes[k].param->path, u[0] ? "_" : "", u);
     }
-    for (int c = 0; c < C_COUNT; c++)
+    for (int c = 0; c < NC; c++)
         fprintf(fp, "%s,", COLUMNS[c].csv);
     fputs("status,message\n", fp);
     char msg[sizeof(dragarc_error)];
@@ -152,8 +190,8 @@ int dragarc_sweep_write_csv(FILE *fp, const dragarc_sweep *t, dragarc_error *err
             put_num(fp, r->values[k]);
             fputc(',', fp);
         }
-        for (int c = 0; c < C_COUNT; c++) {
-            put_num(fp, column(r, c));
+        for (int c = 0; c < NC; c++) {
+            put_num(fp, dragarc_sweep_column_value(r, c));
             fputc(',', fp);
         }
         dragarc_sweep_row_message(r, msg, sizeof msg);
@@ -216,9 +254,9 @@ int dragarc_sweep_write_json(FILE *fp, const dragarc_sweep *t, dragarc_error *er
         }
         fputs("\"status\": ", fp);
         json_text(fp, status_word(r));
-        for (int c = 0; c < C_COUNT; c++) {
+        for (int c = 0; c < NC; c++) {
             fprintf(fp, ", \"%s\": ", COLUMNS[c].key);
-            json_num(fp, column(r, c));
+            json_num(fp, dragarc_sweep_column_value(r, c));
         }
         if (r->status != DRAGARC_OK) {
             fputs(", \"error\": {\"field\": ", fp);
@@ -232,7 +270,7 @@ int dragarc_sweep_write_json(FILE *fp, const dragarc_sweep *t, dragarc_error *er
     fprintf(fp, "%s],\n  \"failed_rows\": %zu,\n  \"units\": {", t->nrows ? "\n  " : "", t->nfailed);
     for (size_t k = 0; k < t->naxes; k++)
         fprintf(fp, "\"%s\": \"%s\", ", t->axes[k].param->path, t->axes[k].param->unit);
-    for (int c = 0; c < C_COUNT; c++)
+    for (int c = 0; c < NC; c++)
         fprintf(fp, "%s\"%s\": \"%s\"", c ? ", " : "", COLUMNS[c].key, COLUMNS[c].unit);
     fputs("},\n  \"cautions\": [", fp);
     const char *cautions[8];
@@ -258,58 +296,30 @@ static void md_text(FILE *fp, const char *s)
     }
 }
 
-/* How the Markdown table prints column c: "%.*f" with decimals[c], or %.3g for energy, which spans
- * many orders of magnitude between a droplet and a fragment. */
-static void md_cell(FILE *fp, const dragarc_sweep_row *r, int c, int decimals)
-{
-    double v = column(r, c);
-    if (r->status != DRAGARC_OK)
-        return; /* the status column says why */
-    if (!isfinite(v))
-        fputs("none", fp); /* no terminal speed */
-    else if (c == C_ENERGY)
-        fprintf(fp, "%.3g", v);
-    else
-        fprintf(fp, "%.*f", decimals, v);
-}
-
 int dragarc_sweep_write_markdown(FILE *fp, const dragarc_sweep *t, dragarc_error *err)
 {
-    int decimals[C_COUNT];
-    double *col = malloc((t->nrows ? t->nrows : 1) * sizeof *col);
-    if (!col)
-        return dragarc_error_set(err, DRAGARC_ENOMEM, "", "out of memory writing the table");
-    for (int c = 0; c < C_COUNT; c++) {
-        for (size_t i = 0; i < t->nrows; i++)
-            col[i] = column(&t->rows[i], c);
-        decimals[c] = c == C_IMPACT_ANGLE ? 1 : dragarc_number_decimals(col, t->nrows, 5);
-    }
-    free(col);
-
+    int decimals[NC];
+    for (int c = 0; c < NC; c++)
+        decimals[c] = dragarc_sweep_column_decimals(t, (dragarc_sweep_column)c);
+    char text[sizeof(dragarc_error)];
     fputs("**", fp);
     md_text(fp, t->scenario[0] ? t->scenario : "dragarc table");
     fputs("**: ", fp);
     for (size_t k = 0; k < t->naxes; k++) {
-        const dragarc_sweep_axis *a = &t->axes[k];
-        char v[3][40];
-        dragarc_number_format(v[0], sizeof v[0], a->start);
-        dragarc_number_format(v[1], sizeof v[1], a->stop);
-        dragarc_number_format(v[2], sizeof v[2], a->step);
-        fprintf(fp, "%s`%s` from %s to %s by %s%s%s", k ? "; " : "", a->param->path, v[0], v[1], v[2],
-                a->param->unit[0] ? " " : "", short_unit(a->param->unit));
+        dragarc_sweep_axis_describe(text, sizeof text, &t->axes[k]);
+        fprintf(fp, "%s`%s` %s", k ? "; " : "", t->axes[k].param->path, text);
     }
     fprintf(fp, " (%zu rows, %zu failed)\n\n|", t->nrows, t->nfailed);
     for (size_t k = 0; k < t->naxes; k++) {
-        const char *u = short_unit(t->axes[k].param->unit);
+        const char *u = dragarc_unit_abbrev(t->axes[k].param->unit);
         fprintf(fp, " %s%s%s%s |", t->axes[k].param->path, u[0] ? " (" : "", u, u[0] ? ")" : "");
     }
-    for (int c = 0; c < C_COUNT; c++)
-        fprintf(fp, " %s |", COLUMNS[c].label);
+    for (int c = 0; c < NC; c++)
+        fprintf(fp, " %s (%s) |", COLUMNS[c].label, dragarc_unit_abbrev(COLUMNS[c].unit));
     fputs(" status |\n|", fp);
-    for (size_t k = 0; k < t->naxes + C_COUNT; k++)
+    for (size_t k = 0; k < t->naxes + NC; k++)
         fputs(" ---: |", fp);
     fputs(" --- |\n", fp);
-    char msg[sizeof(dragarc_error)];
     for (size_t i = 0; i < t->nrows; i++) {
         const dragarc_sweep_row *r = &t->rows[i];
         fputc('|', fp);
@@ -318,18 +328,17 @@ int dragarc_sweep_write_markdown(FILE *fp, const dragarc_sweep *t, dragarc_error
             put_num(fp, r->values[k]);
             fputs(" |", fp);
         }
-        for (int c = 0; c < C_COUNT; c++) {
-            fputc(' ', fp);
-            md_cell(fp, r, c, decimals[c]);
-            fputs(" |", fp);
+        for (int c = 0; c < NC; c++) {
+            dragarc_sweep_cell_format(text, sizeof text, r, (dragarc_sweep_column)c, decimals[c]);
+            fprintf(fp, " %s |", text);
         }
         fputc(' ', fp);
         if (r->status == DRAGARC_OK) {
             fputs("ok", fp);
         } else {
-            dragarc_sweep_row_message(r, msg, sizeof msg);
+            dragarc_sweep_row_message(r, text, sizeof text);
             fprintf(fp, "%s: ", status_word(r));
-            md_text(fp, msg);
+            md_text(fp, text);
         }
         fputs(" |\n", fp);
     }

@@ -86,7 +86,8 @@ static int unknown_name(const char *name, dragarc_error *err)
         if (i + 1 < P_COUNT)
             strncat(list, ", ", sizeof list - strlen(list) - 1);
     }
-    return dragarc_error_set(err, DRAGARC_EINVAL, "", "unknown parameter '%s'; accepted: %s, or their scenario key paths (launch.speed, ...)",
+    return dragarc_error_set(err, DRAGARC_EINVAL, "",
+                             "unknown parameter '%s'; accepted: %s, or their scenario key paths (launch.speed, ...)",
                              name ? name : "", list);
 }
 
@@ -271,16 +272,16 @@ int dragarc_sweep_axis_init(dragarc_sweep_axis *axis, const char *name, double s
         return dragarc_error_set(err, DRAGARC_EINVAL, p->path, "STEP must not be 0");
     if (stop > start && step < 0.0)
         return dragarc_error_set(err, DRAGARC_EINVAL, p->path,
-                                 "STEP must be positive when STOP (%g) is above START (%g)", stop, start);
+                                 "STEP must be positive when STOP (%.10g) is above START (%.10g)", stop, start);
     if (stop < start && step > 0.0)
         return dragarc_error_set(err, DRAGARC_EINVAL, p->path,
-                                 "STEP must be negative when STOP (%g) is below START (%g)", stop, start);
+                                 "STEP must be negative when STOP (%.10g) is below START (%.10g)", stop, start);
     double q = (stop - start) / step;
     double n = floor(q + slack(start, stop, step)) + 1.0;
     if (!(n <= DRAGARC_SWEEP_MAX_VALUES))
         return dragarc_error_set(err, DRAGARC_EINVAL, p->path,
-                                 "%.10g to %.10g by %.10g gives %.0f values; at most %d are allowed on one axis", start, stop,
-                                 step, isfinite(n) ? n : HUGE_VAL, DRAGARC_SWEEP_MAX_VALUES);
+                                 "%.10g to %.10g by %.10g gives %.0f values; at most %d are allowed on one axis",
+                                 start, stop, step, isfinite(n) ? n : HUGE_VAL, DRAGARC_SWEEP_MAX_VALUES);
     axis->param = p;
     axis->start = start;
     axis->stop = stop;

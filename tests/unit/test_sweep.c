@@ -57,7 +57,8 @@ static int same_row(const dragarc_sweep_row *a, const dragarc_sweep_row *b, size
         return 0;
     if (!a->error != !b->error)
         return 0;
-    return !a->error || (strcmp(a->error->field, b->error->field) == 0 && strcmp(a->error->message, b->error->message) == 0);
+    return !a->error ||
+           (strcmp(a->error->field, b->error->field) == 0 && strcmp(a->error->message, b->error->message) == 0);
 }
 
 TEST(a_two_parameter_table_equals_the_flights_flown_one_by_one)
