@@ -18,6 +18,9 @@ extern "C" {
  * flight's notes call for); returns how many were set. The strings are static: never free them. */
 size_t dragarc_cautions_flight(const dragarc_scenario *s, const dragarc_flight *f, const char **out, size_t max);
 
+/* The same for a set of DRAGARC_NOTE_* flags, e.g. the union over the rows of a table. */
+size_t dragarc_cautions_notes(unsigned notes, const char **out, size_t max);
+
 #ifdef __cplusplus
 }
 #endif

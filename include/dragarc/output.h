@@ -15,6 +15,7 @@
 #include "dragarc/dragarc.h"
 #include "dragarc/flight.h"
 #include "dragarc/scenario.h"
+#include "dragarc/sweep.h"
 
 #ifdef __cplusplus
 extern "C" {
@@ -39,6 +40,10 @@ int dragarc_output_commit(dragarc_output *o, dragarc_error *err);
 /* Close and remove the temporary file; the destination is untouched. Safe after commit. */
 void dragarc_output_abort(dragarc_output *o);
 
+/* The shortest "%.*g" (10 to 17 significant digits, C locale) that reads back to the same double, into
+ * buf (32 bytes suffice); "" for a value that is not finite. The number form of every CSV and JSON table. */
+void dragarc_number_format(char *buf, size_t size, double v);
+
 /* Write the flight's sampled points as CSV with a header row:
  * t,x,y,z,vx,vy,vz,speed,mach,reynolds (SI units: s, m, m/s; Mach and Reynolds numbers). */
 int dragarc_flight_write_csv(FILE *fp, const dragarc_flight *f, dragarc_error *err);
@@ -56,6 +61,65 @@ char *dragarc_aim_json(const dragarc_scenario *s, const struct dragarc_aim_reque
 
 /* The `atmosphere --json` document for n altitudes (m) and their states. Caller frees with free(). */
 char *dragarc_atmosphere_json(const double *altitudes, const dragarc_air *levels, size_t n, double temperature_offset);
+
+/* ---- tables of flights (sweep.h; the formats are documented in docs/table.md) ---- */
+
+/* The summary columns of every table format, in their order. */
+typedef enum dragarc_sweep_column {
+    DRAGARC_SWEEP_RANGE = 0,
+    DRAGARC_SWEEP_DOWNRANGE,
+    DRAGARC_SWEEP_CROSSRANGE,
+    DRAGARC_SWEEP_TIME_OF_FLIGHT,
+    DRAGARC_SWEEP_APEX_HEIGHT,
+    DRAGARC_SWEEP_IMPACT_SPEED,
+    DRAGARC_SWEEP_IMPACT_ANGLE,
+    DRAGARC_SWEEP_IMPACT_ENERGY,
+    DRAGARC_SWEEP_TERMINAL_SPEED,
+    DRAGARC_SWEEP_NCOLUMNS
+} dragarc_sweep_column;
+
+/* Names of a column. Static storage. */
+typedef struct dragarc_sweep_column_info {
+    const char *key;   /* JSON key, "time_of_flight" */
+    const char *csv;   /* CSV name with its unit, "time_of_flight_s" */
+    const char *label; /* readable name, "time of flight" */
+    const char *brief; /* short heading, "time" */
+    const char *unit;  /* "s"; "degree" for the angle */
+} dragarc_sweep_column_info;
+
+/* The names of column c (NULL outside 0 .. DRAGARC_SWEEP_NCOLUMNS-1). */
+const dragarc_sweep_column_info *dragarc_sweep_column_about(dragarc_sweep_column c);
+
+/* Column c of a row in its output unit (degrees for the impact angle); NaN in a failed row. */
+double dragarc_sweep_column_value(const dragarc_sweep_row *row, dragarc_sweep_column c);
+
+/* Decimals for printing column c of a readable table with one decimal point for all rows: five
+ * significant digits at the column's largest value among the rows that flew (0 to 6 decimals), one for
+ * the angle. The energy, which spans many orders of magnitude, is printed "%.3g" instead. */
+int dragarc_sweep_column_decimals(const dragarc_sweep *t, dragarc_sweep_column c);
+
+/* Readable cell of column c (decimals from dragarc_sweep_column_decimals): "" in a failed row, "none"
+ * for a value that does not exist (no terminal speed). */
+void dragarc_sweep_cell_format(char *buf, size_t size, const dragarc_sweep_row *row, dragarc_sweep_column c,
+                               int decimals);
+
+/* "degree" -> "deg"; other units as they are. */
+const char *dragarc_unit_abbrev(const char *unit);
+
+/* "from 30 to 45 by 5 m/s": the range of an axis, numbers in their exact form, into buf. */
+void dragarc_sweep_axis_describe(char *buf, size_t size, const dragarc_sweep_axis *axis);
+
+/* CSV: a header row, then one row per flight; the varied parameters by key path with their unit, then
+ * range_m, ..., terminal_speed_m_s, status ("ok" or the status name), message (why a row failed).
+ * Pure data: no cautions, no comments. DRAGARC_EIO when writing fails, as for the writers below. */
+int dragarc_sweep_write_csv(FILE *fp, const dragarc_sweep *t, dragarc_error *err);
+
+/* JSON: {"scenario", "dragarc_version", "varied": [...], "rows": [...], "failed_rows", "units",
+ * "cautions"}; angles in degrees, values that do not exist as null. Written as it goes, one row a line. */
+int dragarc_sweep_write_json(FILE *fp, const dragarc_sweep *t, dragarc_error *err);
+
+/* Markdown: a heading line, a pipe table of every column rounded for reading, then the cautions. */
+int dragarc_sweep_write_markdown(FILE *fp, const dragarc_sweep *t, dragarc_error *err);
 
 #ifdef __cplusplus
 }

@@ -45,5 +45,6 @@ int cmd_fly(int argc, char **argv);
 int cmd_aim(int argc, char **argv);
 int cmd_atmosphere(int argc, char **argv);
 int cmd_demo(int argc, char **argv);
+int cmd_table(int argc, char **argv);
 
 #endif

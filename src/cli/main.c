@@ -14,6 +14,8 @@ static const char USAGE[] =
     "commands:\n"
     "  fly SCENARIO          fly one scenario file to ground impact; summary, JSON or trajectory CSV\n"
     "  aim SCENARIO --range M  find the launch elevations (or speed) that land on a target\n"
+    "  table SCENARIO --vary NAME=START:STOP:STEP ...\n"
+    "                        fly it for every combination of varied values; text, CSV, JSON, Markdown\n"
     "  atmosphere ALT...     U.S. Standard Atmosphere 1976 at geometric altitudes in metres\n"
     "  demo                  fly built-in example scenarios and explain what they show\n"
     "\n"
@@ -22,7 +24,7 @@ static const char USAGE[] =
     "  -V, --version         print the version\n"
     "\n"
     "exit status: 0 success, 1 no solution (aim: target out of reach), 2 bad usage or input,\n"
-    "3 the computation failed.\n"
+    "3 the computation (or a table row) failed.\n"
     "Scenario files, models and sources: see docs/ in the source tree.\n";
 
 static int run(int argc, char **argv);
@@ -58,6 +60,8 @@ static int run(int argc, char **argv)
         return cmd_fly(argc - 1, argv + 1);
     if (strcmp(cmd, "aim") == 0)
         return cmd_aim(argc - 1, argv + 1);
+    if (strcmp(cmd, "table") == 0)
+        return cmd_table(argc - 1, argv + 1);
     if (strcmp(cmd, "atmosphere") == 0)
         return cmd_atmosphere(argc - 1, argv + 1);
     if (strcmp(cmd, "demo") == 0)

@@ -28,19 +28,24 @@ static const char DENSE[] =
 size_t dragarc_cautions_flight(const dragarc_scenario *s, const dragarc_flight *f, const char **out, size_t max)
 {
     (void)s;
+    return dragarc_cautions_notes(f->notes, out, max);
+}
+
+size_t dragarc_cautions_notes(unsigned notes, const char **out, size_t max)
+{
     const char *all[8];
     size_t n = 0;
     all[n++] = LIMITS;
     all[n++] = DECIDE;
-    if (f->notes & DRAGARC_NOTE_HIGH_ENERGY)
+    if (notes & DRAGARC_NOTE_HIGH_ENERGY)
         all[n++] = ENERGY;
-    if (f->notes & DRAGARC_NOTE_TRANSONIC)
+    if (notes & DRAGARC_NOTE_TRANSONIC)
         all[n++] = TRANSONIC;
-    if (f->notes & DRAGARC_NOTE_TABLE_CLAMPED)
+    if (notes & DRAGARC_NOTE_TABLE_CLAMPED)
         all[n++] = CLAMPED;
-    if (f->notes & DRAGARC_NOTE_DRAG_CRISIS)
+    if (notes & DRAGARC_NOTE_DRAG_CRISIS)
         all[n++] = CRISIS;
-    if (f->notes & DRAGARC_NOTE_DENSE_FLUID)
+    if (notes & DRAGARC_NOTE_DENSE_FLUID)
         all[n++] = DENSE;
     size_t k = n < max ? n : max;
     for (size_t i = 0; i < k; i++)

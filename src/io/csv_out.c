@@ -2,25 +2,14 @@
  * SPDX-License-Identifier: GPL-3.0-or-later
  */
 #include <errno.h>
-#include <math.h>
-#include <stdlib.h>
 #include <string.h>
 
 #include "dragarc/output.h"
 
-/* Shortest "%.*g" that reads back to the same double, so files round-trip. */
 static void put_num(FILE *fp, double v)
 {
     char buf[40];
-    if (!isfinite(v)) {
-        fputs("", fp); /* an empty cell: never "nan" or "inf" */
-        return;
-    }
-    for (int prec = 10; prec <= 17; prec++) {
-        snprintf(buf, sizeof buf, "%.*g", prec, v);
-        if (strtod(buf, NULL) == v)
-            break;
-    }
+    dragarc_number_format(buf, sizeof buf, v); /* an empty cell for NaN or inf */
     fputs(buf, fp);
 }
 

@@ -1,0 +1,245 @@
+/* cmd_table.c: `dragarc table SCENARIO --vary NAME=START:STOP:STEP [--vary ...] [--csv | --json |
+ * --markdown] [-o FILE]`: one flight per combination of the varied values, as a table.
+ * SPDX-License-Identifier: GPL-3.0-or-later
+ */
+#include <stdio.h>
+#include <stdlib.h>
+#include <string.h>
+
+#include "cli/cli.h"
+#include "dragarc/cautions.h"
+#include "dragarc/output.h"
+#include "dragarc/sweep.h"
+
+#define WIDTH 100 /* columns of the human table's wrapped text */
+
+static const char HELP_HEAD[] =
+    "usage: dragarc table SCENARIO --vary NAME=START:STOP:STEP [--vary ...] [--csv | --json | --markdown]\n"
+    "                     [-o FILE]\n"
+    "\n"
+    "Fly the scenario file SCENARIO once for every combination of the varied parameters' values and print\n"
+    "one row per flight: the values, range, crossrange, time of flight, apex height, impact speed, angle\n"
+    "and energy, then the cautions. Up to 3 parameters, 100000 values each, 1000000 rows. Rows are flown\n"
+    "in parallel (OMP_NUM_THREADS threads); the numbers do not depend on the number of threads.\n"
+    "\n"
+    "  --vary NAME=START:STOP:STEP  values START, START+STEP, ... up to STOP (included), in the units of\n"
+    "                       the scenario file (degrees for angles); the first --vary varies slowest\n"
+    "  --csv                CSV: a header row with SI units in the column names, every number exact;\n"
+    "                       data only, so no cautions\n"
+    "  --json               one JSON object: varied, rows, units and cautions\n"
+    "  --markdown           a Markdown table with the cautions\n"
+    "  -o, --output FILE    write to FILE, whole or not at all, instead of standard output\n"
+    "  -h, --help           this help\n"
+    "\n"
+    "parameters (short name, scenario key path, unit):\n";
+
+static const char HELP_TAIL[] =
+    "\n"
+    "A new diameter scales area and volume (and a mass given as density); see docs/table.md.\n"
+    "A row whose flight fails (a value out of range, no impact, ...) stays in the table with its reason.\n"
+    "exit status: 0 every row flew, 2 bad usage, scenario or --vary, 3 a row or the computation failed\n"
+    "(the table is still written).\n";
+
+static void print_help(void)
+{
+    fputs(HELP_HEAD, stdout);
+    size_t n;
+    const dragarc_scenario_param *p = dragarc_scenario_params(&n);
+    for (size_t i = 0; i < n; i++)
+        printf("  %-20s %s%s%s%s\n", p[i].alias, p[i].path, p[i].unit[0] ? " (" : "", p[i].unit,
+               p[i].unit[0] ? ")" : "");
+    fputs(HELP_TAIL, stdout);
+}
+
+/* ---- the human table ------------------------------------------------------------------------------ */
+
+/* The columns it shows; downrange and terminal speed are left to the other formats for width. */
+static const dragarc_sweep_column SHOWN[] = {DRAGARC_SWEEP_RANGE,         DRAGARC_SWEEP_CROSSRANGE,
+                                             DRAGARC_SWEEP_TIME_OF_FLIGHT, DRAGARC_SWEEP_APEX_HEIGHT,
+                                             DRAGARC_SWEEP_IMPACT_SPEED,   DRAGARC_SWEEP_IMPACT_ANGLE,
+                                             DRAGARC_SWEEP_IMPACT_ENERGY};
+enum { NSHOWN = sizeof SHOWN / sizeof SHOWN[0] };
+
+static int max_int(int a, int b) { return a > b ? a : b; }
+
+static int print_human(FILE *fp, const dragarc_sweep *t)
+{
+    int decimals[NSHOWN], wv[DRAGARC_SWEEP_MAX_AXES], wr[NSHOWN];
+    char cell[64];
+    for (size_t k = 0; k < t->naxes; k++)
+        wv[k] = max_int((int)strlen(t->axes[k].param->alias), (int)strlen(dragarc_unit_abbrev(t->axes[k].param->unit)));
+    for (int c = 0; c < NSHOWN; c++) {
+        const dragarc_sweep_column_info *about = dragarc_sweep_column_about(SHOWN[c]);
+        decimals[c] = dragarc_sweep_column_decimals(t, SHOWN[c]);
+        wr[c] = max_int((int)strlen(about->brief), (int)strlen(dragarc_unit_abbrev(about->unit)));
+    }
+    for (size_t i = 0; i < t->nrows; i++) {
+        const dragarc_sweep_row *r = &t->rows[i];
+        for (size_t k = 0; k < t->naxes; k++) {
+            dragarc_number_format(cell, sizeof cell, r->values[k]);
+            wv[k] = max_int(wv[k], (int)strlen(cell));
+        }
+        for (int c = 0; r->status == DRAGARC_OK && c < NSHOWN; c++) {
+            dragarc_sweep_cell_format(cell, sizeof cell, r, SHOWN[c], decimals[c]);
+            wr[c] = max_int(wr[c], (int)strlen(cell));
+        }
+    }
+
+    char text[sizeof(dragarc_error)], lead[256];
+    fprintf(fp, "dragarc table%s%s\n", t->scenario[0] ? ": " : "", t->scenario);
+    int walias = 0;
+    for (size_t k = 0; k < t->naxes; k++)
+        walias = max_int(walias, (int)strlen(t->axes[k].param->alias));
+    for (size_t k = 0; k < t->naxes; k++) {
+        dragarc_sweep_axis_describe(text, sizeof text, &t->axes[k]);
+        fprintf(fp, "  %-*s  %s %s (%zu values)\n", walias, t->axes[k].param->alias, t->axes[k].param->path, text,
+                t->axes[k].count);
+    }
+    fprintf(fp, "  %zu rows, %zu failed\n\n", t->nrows, t->nfailed);
+    for (int line = 0; line < 2; line++) {
+        for (size_t k = 0; k < t->naxes; k++)
+            fprintf(fp, "  %*s", wv[k],
+                    line ? dragarc_unit_abbrev(t->axes[k].param->unit) : t->axes[k].param->alias);
+        for (int c = 0; c < NSHOWN; c++) {
+            const dragarc_sweep_column_info *about = dragarc_sweep_column_about(SHOWN[c]);
+            fprintf(fp, "  %*s", wr[c], line ? dragarc_unit_abbrev(about->unit) : about->brief);
+        }
+        fputc('\n', fp);
+    }
+    for (size_t i = 0; i < t->nrows; i++) {
+        const dragarc_sweep_row *r = &t->rows[i];
+        size_t len = 0;
+        for (size_t k = 0; k < t->naxes; k++) {
+            dragarc_number_format(cell, sizeof cell, r->values[k]);
+            int n = snprintf(lead + len, sizeof lead - len, "  %*s", wv[k], cell);
+            len += n > 0 && (size_t)n < sizeof lead - len ? (size_t)n : 0;
+        }
+        if (r->status != DRAGARC_OK) {
+            /* the reason in place of the results, wrapped under them */
+            dragarc_sweep_row_message(r, text, sizeof text);
+            snprintf(lead + len, sizeof lead - len, "  failed: ");
+            cli_print_wrapped(fp, lead, (int)len + 2, WIDTH, text);
+            continue;
+        }
+        fputs(lead, fp);
+        for (int c = 0; c < NSHOWN; c++) {
+            dragarc_sweep_cell_format(cell, sizeof cell, r, SHOWN[c], decimals[c]);
+            fprintf(fp, "  %*s", wr[c], cell);
+        }
+        fputc('\n', fp);
+    }
+    const char *cautions[8];
+    size_t nc = dragarc_cautions_notes(t->notes, cautions, 8);
+    fprintf(fp, "Cautions:\n");
+    for (size_t i = 0; i < nc; i++)
+        cli_print_wrapped(fp, "  - ", 4, WIDTH, cautions[i]);
+    fputs("Downrange, terminal speed and every digit: --csv or --json.\n", fp);
+    return ferror(fp) ? -1 : 0;
+}
+
+/* ---- the command ---------------------------------------------------------------------------------- */
+
+typedef enum { FORMAT_TEXT, FORMAT_CSV, FORMAT_JSON, FORMAT_MARKDOWN } table_format;
+
+static int write_table(FILE *fp, table_format format, const dragarc_sweep *t, dragarc_error *err)
+{
+    switch (format) {
+    case FORMAT_CSV: return dragarc_sweep_write_csv(fp, t, err);
+    case FORMAT_JSON: return dragarc_sweep_write_json(fp, t, err);
+    case FORMAT_MARKDOWN: return dragarc_sweep_write_markdown(fp, t, err);
+    default:
+        if (print_human(fp, t) != 0)
+            return dragarc_error_set(err, DRAGARC_EIO, "", "write failed");
+        return DRAGARC_OK;
+    }
+}
+
+int cmd_table(int argc, char **argv)
+{
+    const char *file = NULL, *output = NULL, *format_option = NULL;
+    table_format format = FORMAT_TEXT;
+    dragarc_sweep_axis axes[DRAGARC_SWEEP_MAX_AXES];
+    size_t naxes = 0;
+    dragarc_error err;
+    for (int i = 1; i < argc; i++) {
+        const char *a = argv[i];
+        table_format f = FORMAT_TEXT;
+        if (strcmp(a, "-h") == 0 || strcmp(a, "--help") == 0) {
+            print_help();
+            return EXIT_OK;
+        } else if (strcmp(a, "--vary") == 0) {
+            if (++i >= argc)
+                return cli_usage_error("table", "--vary needs NAME=START:STOP:STEP");
+            if (naxes == DRAGARC_SWEEP_MAX_AXES)
+                return cli_usage_error("table", "at most %d --vary options", DRAGARC_SWEEP_MAX_AXES);
+            if (dragarc_sweep_axis_parse(&axes[naxes], argv[i], &err) != DRAGARC_OK)
+                return cli_usage_error("table", "--vary %s: %s%s%s", argv[i], err.field, err.field[0] ? ": " : "",
+                                       err.message);
+            naxes++;
+        } else if (strcmp(a, "--csv") == 0 || strcmp(a, "--json") == 0 || strcmp(a, "--markdown") == 0) {
+            f = a[2] == 'c' ? FORMAT_CSV : a[2] == 'j' ? FORMAT_JSON : FORMAT_MARKDOWN;
+            if (format_option && f != format)
+                return cli_usage_error("table", "%s and %s: choose one output format", format_option, a);
+            format = f;
+            format_option = a;
+        } else if (strcmp(a, "-o") == 0 || strcmp(a, "--output") == 0) {
+            if (++i >= argc || !*argv[i])
+                return cli_usage_error("table", "%s needs a file name", a);
+            if (output)
+                return cli_usage_error("table", "only one output file, got '%s' and '%s'", output, argv[i]);
+            output = argv[i];
+        } else if (a[0] == '-' && a[1] != '\0') {
+            return cli_usage_error("table", "unknown option '%s'", a);
+        } else if (!file) {
+            file = a;
+        } else {
+            return cli_usage_error("table", "only one scenario file, got '%s' and '%s'", file, a);
+        }
+    }
+    if (!file || !*file)
+        return cli_usage_error("table", "needs a scenario file");
+    if (naxes == 0)
+        return cli_usage_error("table", "needs at least one --vary NAME=START:STOP:STEP");
+    if (dragarc_sweep_axes_check(axes, naxes, NULL, &err) != DRAGARC_OK)
+        return cli_usage_error("table", "--vary: %s%s%s", err.field, err.field[0] ? ": " : "", err.message);
+
+    dragarc_scenario s;
+    if (dragarc_scenario_read(file, cli_profile_path(), &s, &err) != DRAGARC_OK)
+        return cli_report(file, &err);
+    dragarc_sweep t;
+    int rc = dragarc_sweep_run(&s, axes, naxes, &t, &err);
+    dragarc_scenario_clear(&s);
+    if (rc != DRAGARC_OK) {
+        dragarc_sweep_clear(&t);
+        return cli_report(file, &err);
+    }
+
+    /* The table is complete before anything is written, so a failure leaves no file behind. */
+    dragarc_output out;
+    rc = dragarc_output_open(&out, output ? output : "-", &err);
+    if (rc == DRAGARC_OK) {
+        rc = write_table(out.fp, format, &t, &err);
+        if (rc == DRAGARC_OK)
+            rc = dragarc_output_commit(&out, &err);
+        else
+            dragarc_output_abort(&out);
+    }
+    if (rc != DRAGARC_OK) {
+        dragarc_sweep_clear(&t);
+        err.field[0] = '\0';
+        return cli_report(output ? "-o" : "table", &err);
+    }
+    int status = EXIT_OK;
+    if (t.nfailed > 0) {
+        size_t first = 0;
+        while (t.rows[first].status == DRAGARC_OK)
+            first++;
+        char msg[sizeof(dragarc_error)];
+        dragarc_sweep_row_message(&t.rows[first], msg, sizeof msg);
+        fprintf(stderr, "dragarc: %s: %zu of %zu rows failed, the table says why (first, row %zu: %s)\n", file,
+                t.nfailed, t.nrows, first + 1, msg);
+        status = EXIT_FAILED;
+    }
+    dragarc_sweep_clear(&t);
+    return status;
+}

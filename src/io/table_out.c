@@ -1,0 +1,351 @@
+/* table_out.c: number formatting shared by the text outputs, and tables of flights as CSV, JSON and
+ * Markdown (the forms are documented in docs/table.md).
+ * SPDX-License-Identifier: GPL-3.0-or-later
+ *
+ * CSV and JSON numbers round-trip: the shortest of "%.10g" ... "%.17g" that strtod reads back to the
+ * same double. Markdown rounds each column to one decimal point for reading. CSV (RFC 4180) stays pure
+ * data, so it carries no cautions: a comment line would break readers that follow the RFC. JSON is
+ * written as it goes rather than built as a cJSON tree, which for a million rows would take about a
+ * gigabyte.
+ */
+#include <errno.h>
+#include <math.h>
+#include <stdlib.h>
+#include <string.h>
+
+#include "core/constants.h"
+#include "dragarc/cautions.h"
+#include "dragarc/output.h"
+
+void dragarc_number_format(char *buf, size_t size, double v)
+{
+    if (size == 0)
+        return;
+    if (!isfinite(v)) {
+        buf[0] = '\0'; /* never "nan" or "inf" */
+        return;
+    }
+    for (int prec = 10; prec <= 17; prec++) {
+        snprintf(buf, size, "%.*g", prec, v);
+        if (strtod(buf, NULL) == v)
+            break;
+    }
+}
+
+/* Decimals (0 to 6) that print the largest finite |v[i]| with `digits` significant digits; 0 when no
+ * value is finite. */
+static int decimals_for(const double *v, size_t n, int digits)
+{
+    double big = 0.0;
+    int any = 0;
+    for (size_t i = 0; i < n; i++)
+        if (isfinite(v[i])) {
+            big = fmax(big, fabs(v[i]));
+            any = 1;
+        }
+    if (!any)
+        return 0;
+    int d = digits - 1 - (big > 0.0 ? (int)floor(log10(big)) : 0);
+    return d < 0 ? 0 : d > 6 ? 6 : d;
+}
+
+static const dragarc_sweep_column_info COLUMNS[DRAGARC_SWEEP_NCOLUMNS] = {
+    {"range", "range_m", "range", "range", "m"},
+    {"downrange", "downrange_m", "downrange", "downrange", "m"},
+    {"crossrange", "crossrange_m", "crossrange", "crossrange", "m"},
+    {"time_of_flight", "time_of_flight_s", "time of flight", "time", "s"},
+    {"apex_height", "apex_height_m", "apex height", "apex", "m"},
+    {"impact_speed", "impact_speed_m_s", "impact speed", "impact", "m/s"},
+    {"impact_angle", "impact_angle_deg", "impact angle", "angle", "degree"},
+    {"impact_energy", "impact_energy_J", "impact energy", "energy", "J"},
+    {"terminal_speed", "terminal_speed_m_s", "terminal speed", "terminal", "m/s"},
+};
+enum { NC = DRAGARC_SWEEP_NCOLUMNS };
+
+const dragarc_sweep_column_info *dragarc_sweep_column_about(dragarc_sweep_column c)
+{
+    return (unsigned)c < NC ? &COLUMNS[c] : NULL;
+}
+
+double dragarc_sweep_column_value(const dragarc_sweep_row *r, dragarc_sweep_column c)
+{
+    switch (c) {
+    case DRAGARC_SWEEP_RANGE: return r->range;
+    case DRAGARC_SWEEP_DOWNRANGE: return r->downrange;
+    case DRAGARC_SWEEP_CROSSRANGE: return r->crossrange;
+    case DRAGARC_SWEEP_TIME_OF_FLIGHT: return r->time_of_flight;
+    case DRAGARC_SWEEP_APEX_HEIGHT: return r->apex_height;
+    case DRAGARC_SWEEP_IMPACT_SPEED: return r->impact_speed;
+    case DRAGARC_SWEEP_IMPACT_ANGLE: return r->impact_angle / DRAGARC_DEG;
+    case DRAGARC_SWEEP_IMPACT_ENERGY: return r->impact_energy;
+    case DRAGARC_SWEEP_TERMINAL_SPEED: return r->terminal_speed;
+    default: return NAN;
+    }
+}
+
+int dragarc_sweep_column_decimals(const dragarc_sweep *t, dragarc_sweep_column c)
+{
+    if (c == DRAGARC_SWEEP_IMPACT_ANGLE)
+        return 1;
+    double *col = malloc((t->nrows ? t->nrows : 1) * sizeof *col);
+    if (!col)
+        return 3; /* a fair default when even this fails */
+    size_t m = 0;
+    for (size_t i = 0; i < t->nrows; i++)
+        if (t->rows[i].status == DRAGARC_OK)
+            col[m++] = dragarc_sweep_column_value(&t->rows[i], c);
+    int d = decimals_for(col, m, 5);
+    free(col);
+    return d;
+}
+
+void dragarc_sweep_cell_format(char *buf, size_t size, const dragarc_sweep_row *r, dragarc_sweep_column c,
+                               int decimals)
+{
+    double v = dragarc_sweep_column_value(r, c);
+    if (r->status != DRAGARC_OK)
+        snprintf(buf, size, "%s", ""); /* the status says why */
+    else if (!isfinite(v))
+        snprintf(buf, size, "none");
+    else if (c == DRAGARC_SWEEP_IMPACT_ENERGY)
+        snprintf(buf, size, "%.3g", v);
+    else
+        snprintf(buf, size, "%.*f", decimals, v);
+}
+
+const char *dragarc_unit_abbrev(const char *unit) { return strcmp(unit, "degree") == 0 ? "deg" : unit; }
+
+void dragarc_sweep_axis_describe(char *buf, size_t size, const dragarc_sweep_axis *a)
+{
+    char v[3][40];
+    dragarc_number_format(v[0], sizeof v[0], a->start);
+    dragarc_number_format(v[1], sizeof v[1], a->stop);
+    dragarc_number_format(v[2], sizeof v[2], a->step);
+    snprintf(buf, size, "from %s to %s by %s%s%s", v[0], v[1], v[2], a->param->unit[0] ? " " : "",
+             dragarc_unit_abbrev(a->param->unit));
+}
+
+/* A unit fit for a CSV column name: m/s -> m_s, m/s^2 -> m_s2, degree -> deg. */
+static void csv_unit(char *buf, size_t size, const char *unit)
+{
+    const char *u = dragarc_unit_abbrev(unit);
+    size_t k = 0;
+    for (; *u && k + 1 < size; u++)
+        if (*u != '^')
+            buf[k++] = *u == '/' ? '_' : *u;
+    buf[k] = '\0';
+}
+
+static int write_status(FILE *fp, dragarc_error *err)
+{
+    if (ferror(fp))
+        return dragarc_error_set(err, DRAGARC_EIO, "", "write failed: %s", strerror(errno));
+    return DRAGARC_OK;
+}
+
+static void put_num(FILE *fp, double v)
+{
+    char buf[40];
+    dragarc_number_format(buf, sizeof buf, v);
+    fputs(buf, fp);
+}
+
+static const char *status_word(const dragarc_sweep_row *r)
+{
+    return r->status == DRAGARC_OK ? "ok" : dragarc_status_name(r->status);
+}
+
+/* ---- CSV ------------------------------------------------------------------------------------------ */
+
+/* A CSV field, quoted (with doubled quotes) when it holds a comma, a quote or a line break. */
+static void csv_text(FILE *fp, const char *s)
+{
+    if (!strpbrk(s, ",\"\r\n")) {
+        fputs(s, fp);
+        return;
+    }
+    fputc('"', fp);
+    for (; *s; s++) {
+        if (*s == '"')
+            fputc('"', fp);
+        fputc(*s == '\r' || *s == '\n' ? ' ' : *s, fp);
+    }
+    fputc('"', fp);
+}
+
+int dragarc_sweep_write_csv(FILE *fp, const dragarc_sweep *t, dragarc_error *err)
+{
+    for (size_t k = 0; k < t->naxes; k++) {
+        char u[32];
+        csv_unit(u, sizeof u, t->axes[k].param->unit);
+        fprintf(fp, "%s%s%s,", t->axes[k].param->path, u[0] ? "_" : "", u);
+    }
+    for (int c = 0; c < NC; c++)
+        fprintf(fp, "%s,", COLUMNS[c].csv);
+    fputs("status,message\n", fp);
+    char msg[sizeof(dragarc_error)];
+    for (size_t i = 0; i < t->nrows; i++) {
+        const dragarc_sweep_row *r = &t->rows[i];
+        for (size_t k = 0; k < t->naxes; k++) {
+            put_num(fp, r->values[k]);
+            fputc(',', fp);
+        }
+        for (int c = 0; c < NC; c++) {
+            put_num(fp, dragarc_sweep_column_value(r, c));
+            fputc(',', fp);
+        }
+        dragarc_sweep_row_message(r, msg, sizeof msg);
+        csv_text(fp, status_word(r));
+        fputc(',', fp);
+        csv_text(fp, msg);
+        fputc('\n', fp);
+    }
+    return write_status(fp, err);
+}
+
+/* ---- JSON ----------------------------------------------------------------------------------------- */
+
+static void json_text(FILE *fp, const char *s)
+{
+    fputc('"', fp);
+    for (const unsigned char *p = (const unsigned char *)s; *p; p++) {
+        if (*p == '"' || *p == '\\')
+            fprintf(fp, "\\%c", *p);
+        else if (*p < 0x20)
+            fprintf(fp, "\\u%04x", *p);
+        else
+            fputc(*p, fp);
+    }
+    fputc('"', fp);
+}
+
+static void json_num(FILE *fp, double v)
+{
+    if (isfinite(v))
+        put_num(fp, v);
+    else
+        fputs("null", fp);
+}
+
+int dragarc_sweep_write_json(FILE *fp, const dragarc_sweep *t, dragarc_error *err)
+{
+    fputs("{\n  \"scenario\": ", fp);
+    json_text(fp, t->scenario);
+    fputs(",\n  \"dragarc_version\": \"" DRAGARC_VERSION_STRING "\",\n  \"varied\": [", fp);
+    for (size_t k = 0; k < t->naxes; k++) {
+        const dragarc_sweep_axis *a = &t->axes[k];
+        fprintf(fp, "%s\n    {\"name\": \"%s\", \"alias\": \"%s\", \"unit\": \"%s\", \"start\": ", k ? "," : "",
+                a->param->path, a->param->alias, a->param->unit);
+        json_num(fp, a->start);
+        fputs(", \"stop\": ", fp);
+        json_num(fp, a->stop);
+        fputs(", \"step\": ", fp);
+        json_num(fp, a->step);
+        fprintf(fp, ", \"count\": %zu}", a->count);
+    }
+    fputs("\n  ],\n  \"rows\": [", fp);
+    for (size_t i = 0; i < t->nrows; i++) {
+        const dragarc_sweep_row *r = &t->rows[i];
+        fputs(i ? ",\n    {" : "\n    {", fp);
+        for (size_t k = 0; k < t->naxes; k++) {
+            fprintf(fp, "\"%s\": ", t->axes[k].param->path);
+            json_num(fp, r->values[k]);
+            fputs(", ", fp);
+        }
+        fputs("\"status\": ", fp);
+        json_text(fp, status_word(r));
+        for (int c = 0; c < NC; c++) {
+            fprintf(fp, ", \"%s\": ", COLUMNS[c].key);
+            json_num(fp, dragarc_sweep_column_value(r, c));
+        }
+        if (r->status != DRAGARC_OK) {
+            fputs(", \"error\": {\"field\": ", fp);
+            json_text(fp, r->error ? r->error->field : "");
+            fputs(", \"message\": ", fp);
+            json_text(fp, r->error ? r->error->message : dragarc_status_name(r->status));
+            fputc('}', fp);
+        }
+        fputc('}', fp);
+    }
+    fprintf(fp, "%s],\n  \"failed_rows\": %zu,\n  \"units\": {", t->nrows ? "\n  " : "", t->nfailed);
+    for (size_t k = 0; k < t->naxes; k++)
+        fprintf(fp, "\"%s\": \"%s\", ", t->axes[k].param->path, t->axes[k].param->unit);
+    for (int c = 0; c < NC; c++)
+        fprintf(fp, "%s\"%s\": \"%s\"", c ? ", " : "", COLUMNS[c].key, COLUMNS[c].unit);
+    fputs("},\n  \"cautions\": [", fp);
+    const char *cautions[8];
+    size_t nc = dragarc_cautions_notes(t->notes, cautions, 8);
+    for (size_t i = 0; i < nc; i++) {
+        fputs(i ? ",\n    " : "\n    ", fp);
+        json_text(fp, cautions[i]);
+    }
+    fputs("\n  ]\n}\n", fp);
+    return write_status(fp, err);
+}
+
+/* ---- Markdown ------------------------------------------------------------------------------------- */
+
+/* Text for a table cell: '|' escaped, line breaks as spaces. */
+static void md_text(FILE *fp, const char *s)
+{
+    for (; *s; s++) {
+        if (*s == '|')
+            fputs("\\|", fp);
+        else
+            fputc(*s == '\r' || *s == '\n' ? ' ' : *s, fp);
+    }
+}
+
+int dragarc_sweep_write_markdown(FILE *fp, const dragarc_sweep *t, dragarc_error *err)
+{
+    int decimals[NC];
+    for (int c = 0; c < NC; c++)
+        decimals[c] = dragarc_sweep_column_decimals(t, (dragarc_sweep_column)c);
+    char text[sizeof(dragarc_error)];
+    fputs("**", fp);
+    md_text(fp, t->scenario[0] ? t->scenario : "dragarc table");
+    fputs("**: ", fp);
+    for (size_t k = 0; k < t->naxes; k++) {
+        dragarc_sweep_axis_describe(text, sizeof text, &t->axes[k]);
+        fprintf(fp, "%s`%s` %s", k ? "; " : "", t->axes[k].param->path, text);
+    }
+    fprintf(fp, " (%zu rows, %zu failed)\n\n|", t->nrows, t->nfailed);
+    for (size_t k = 0; k < t->naxes; k++) {
+        const char *u = dragarc_unit_abbrev(t->axes[k].param->unit);
+        fprintf(fp, " %s%s%s%s |", t->axes[k].param->path, u[0] ? " (" : "", u, u[0] ? ")" : "");
+    }
+    for (int c = 0; c < NC; c++)
+        fprintf(fp, " %s (%s) |", COLUMNS[c].label, dragarc_unit_abbrev(COLUMNS[c].unit));
+    fputs(" status |\n|", fp);
+    for (size_t k = 0; k < t->naxes + NC; k++)
+        fputs(" ---: |", fp);
+    fputs(" --- |\n", fp);
+    for (size_t i = 0; i < t->nrows; i++) {
+        const dragarc_sweep_row *r = &t->rows[i];
+        fputc('|', fp);
+        for (size_t k = 0; k < t->naxes; k++) {
+            fputc(' ', fp);
+            put_num(fp, r->values[k]);
+            fputs(" |", fp);
+        }
+        for (int c = 0; c < NC; c++) {
+            dragarc_sweep_cell_format(text, sizeof text, r, (dragarc_sweep_column)c, decimals[c]);
+            fprintf(fp, " %s |", text);
+        }
+        fputc(' ', fp);
+        if (r->status == DRAGARC_OK) {
+            fputs("ok", fp);
+        } else {
+            dragarc_sweep_row_message(r, text, sizeof text);
+            fprintf(fp, "%s: ", status_word(r));
+            md_text(fp, text);
+        }
+        fputs(" |\n", fp);
+    }
+    const char *cautions[8];
+    size_t nc = dragarc_cautions_notes(t->notes, cautions, 8);
+    fputs("\nCautions:\n\n", fp);
+    for (size_t i = 0; i < nc; i++)
+        fprintf(fp, "- %s\n", cautions[i]);
+    return write_status(fp, err);
+}
