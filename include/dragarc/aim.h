@@ -67,6 +67,25 @@ typedef struct dragarc_aim_result {
 int dragarc_aim_solve(const dragarc_scenario *s, const dragarc_aim_request *req, dragarc_aim_result *out,
                       dragarc_error *err);
 
+/* One row of an aim table: the low and the high solution for one target range. */
+typedef struct dragarc_aim_table_row {
+    double range;              /* m */
+    int status;                /* DRAGARC_OK, DRAGARC_ENOSOLUTION (out of reach) or another failure */
+    char message[384];         /* why, when status != DRAGARC_OK */
+    size_t nsolutions;
+    dragarc_aim_solution low;  /* lowest elevation (or speed) */
+    dragarc_aim_solution high; /* highest; all NaN when there is only one solution */
+    double max_range;          /* m (elevation mode) */
+    double max_range_elevation; /* rad */
+} dragarc_aim_table_row;
+
+/* Solve `req` for each of the n target ranges (req->range is ignored), in parallel with OpenMP; row i
+ * depends only on ranges[i], never on the thread count. A range that cannot be reached, or whose solve
+ * fails, keeps its status and message and does not stop the others. rows must hold n records.
+ * Returns DRAGARC_OK, or DRAGARC_EINVAL for a bad request or scenario (checked once, before flying). */
+int dragarc_aim_table(const dragarc_scenario *s, const dragarc_aim_request *req, const double *ranges, size_t n,
+                      dragarc_aim_table_row *rows, dragarc_error *err);
+
 #ifdef __cplusplus
 }
 #endif

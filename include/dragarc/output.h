@@ -59,6 +59,19 @@ struct dragarc_aim_result;
 char *dragarc_aim_json(const dragarc_scenario *s, const struct dragarc_aim_request *req,
                        const struct dragarc_aim_result *r);
 
+/* Output forms of the tables. */
+typedef enum dragarc_table_format {
+    DRAGARC_TABLE_TEXT = 0, /* aligned columns for a 100-column terminal, then the cautions */
+    DRAGARC_TABLE_CSV,      /* header row with SI units in the names; data only */
+    DRAGARC_TABLE_JSON,     /* rows, units and cautions */
+    DRAGARC_TABLE_MARKDOWN  /* a pipe table, then the cautions */
+} dragarc_table_format;
+
+/* Write an aim table (dragarc_aim_table's rows for target plane `height`, m) in the given form. */
+struct dragarc_aim_table_row;
+int dragarc_aim_table_write(FILE *fp, dragarc_table_format format, const char *scenario, double height,
+                            const struct dragarc_aim_table_row *rows, size_t n, dragarc_error *err);
+
 /* The `atmosphere --json` document for n altitudes (m) and their states. Caller frees with free(). */
 char *dragarc_atmosphere_json(const double *altitudes, const dragarc_air *levels, size_t n, double temperature_offset);
 

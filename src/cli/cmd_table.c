@@ -2,11 +2,13 @@
  * --markdown] [-o FILE]`: one flight per combination of the varied values, as a table.
  * SPDX-License-Identifier: GPL-3.0-or-later
  */
+#include <math.h>
 #include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
 
 #include "cli/cli.h"
+#include "dragarc/aim.h"
 #include "dragarc/cautions.h"
 #include "dragarc/output.h"
 #include "dragarc/sweep.h"
@@ -15,6 +17,8 @@
 
 static const char HELP_HEAD[] =
     "usage: dragarc table SCENARIO --vary NAME=START:STOP:STEP [--vary ...] [--csv | --json | --markdown]\n"
+    "                     [-o FILE]\n"
+    "       dragarc table SCENARIO --ranges START:STOP:STEP [--height METRES] [--csv | --json | --markdown]\n"
     "                     [-o FILE]\n"
     "\n"
     "Fly the scenario file SCENARIO once for every combination of the varied parameters' values and print\n"
@@ -29,6 +33,10 @@ static const char HELP_HEAD[] =
     "  --json               one JSON object: varied, rows, units and cautions\n"
     "  --markdown           a Markdown table with the cautions\n"
     "  -o, --output FILE    write to FILE, whole or not at all, instead of standard output\n"
+    "  --ranges START:STOP:STEP  an aim table instead: for each target range (m) along the launch azimuth,\n"
+    "                       the low and high elevations at the scenario's speed that land on it, with\n"
+    "                       the azimuth turned for the wind (see 'dragarc aim'); at most 10000 ranges\n"
+    "  --height METRES      the aim table's target plane above the site datum (default: the ground)\n"
     "  -h, --help           this help\n"
     "\n"
     "parameters (short name, scenario key path, unit):\n";
@@ -37,8 +45,8 @@ static const char HELP_TAIL[] =
     "\n"
     "A new diameter scales area and volume (and a mass given as density); see docs/table.md.\n"
     "A row whose flight fails (a value out of range, no impact, ...) stays in the table with its reason.\n"
-    "exit status: 0 every row flew, 2 bad usage, scenario or --vary, 3 a row or the computation failed\n"
-    "(the table is still written).\n";
+    "exit status: 0 every row flew, 1 (aim table) a range is out of reach, 2 bad usage, scenario or --vary,\n"
+    "3 a row or the computation failed (the table is still written).\n";
 
 static void print_help(void)
 {
@@ -154,9 +162,102 @@ static int write_table(FILE *fp, table_format format, const dragarc_sweep *t, dr
     }
 }
 
+/* "START:STOP:STEP" into at most `max` target ranges; returns how many, or 0 when malformed. */
+static size_t parse_ranges(const char *spec, double *out, size_t max)
+{
+    double v[3];
+    const char *p = spec;
+    for (int k = 0; k < 3; k++) {
+        char *end = NULL;
+        v[k] = strtod(p, &end);
+        if (end == p || !isfinite(v[k]) || (k < 2 ? *end != ':' : *end != '\0'))
+            return 0;
+        p = end + 1;
+    }
+    if (!(v[2] > 0.0) || v[1] < v[0])
+        return 0;
+    size_t n = 0;
+    while (v[0] + (double)n * v[2] <= v[1] + 1e-9 * v[2]) {
+        if (n == max)
+            return 0; /* too many */
+        out[n] = v[0] + (double)n * v[2];
+        n++;
+    }
+    return n;
+}
+
+#define MAX_RANGES 10000
+
+static int aim_table(const char *file, const char *spec, double height, table_format format, const char *output)
+{
+    static double ranges[MAX_RANGES];
+    size_t n = parse_ranges(spec, ranges, MAX_RANGES);
+    if (n == 0)
+        return cli_usage_error("table", "--ranges needs START:STOP:STEP with 0 < START <= STOP, STEP > 0 and at most "
+                                        "%d values, not '%s'",
+                               MAX_RANGES, spec);
+    dragarc_scenario s;
+    dragarc_error err;
+    if (dragarc_scenario_read(file, cli_profile_path(), &s, &err) != DRAGARC_OK)
+        return cli_report(file, &err);
+    dragarc_aim_request req;
+    dragarc_aim_request_default(&req);
+    req.height = height;
+    dragarc_aim_table_row *rows = malloc(n * sizeof *rows);
+    if (!rows) {
+        dragarc_scenario_clear(&s);
+        fputs("dragarc: table: out of memory\n", stderr);
+        return EXIT_FAILED;
+    }
+    int rc = dragarc_aim_table(&s, &req, ranges, n, rows, &err);
+    double plane = isnan(height) ? s.ground_elevation : height;
+    if (rc != DRAGARC_OK) {
+        free(rows);
+        dragarc_scenario_clear(&s);
+        return cli_report(file, &err);
+    }
+    static const dragarc_table_format FORMS[] = {DRAGARC_TABLE_TEXT, DRAGARC_TABLE_CSV, DRAGARC_TABLE_JSON,
+                                                 DRAGARC_TABLE_MARKDOWN};
+    dragarc_output out;
+    rc = dragarc_output_open(&out, output ? output : "-", &err);
+    if (rc == DRAGARC_OK) {
+        rc = dragarc_aim_table_write(out.fp, FORMS[format], s.name, plane, rows, n, &err);
+        if (rc == DRAGARC_OK)
+            rc = dragarc_output_commit(&out, &err);
+        else
+            dragarc_output_abort(&out);
+    }
+    dragarc_scenario_clear(&s);
+    if (rc != DRAGARC_OK) {
+        free(rows);
+        err.field[0] = '\0';
+        return cli_report(output ? "-o" : "table", &err);
+    }
+    size_t unreachable = 0, failed = 0, first = n;
+    for (size_t i = 0; i < n; i++) {
+        if (rows[i].status == DRAGARC_OK)
+            continue;
+        if (first == n)
+            first = i;
+        if (rows[i].status == DRAGARC_ENOSOLUTION)
+            unreachable++;
+        else
+            failed++;
+    }
+    int status = EXIT_OK;
+    if (first < n) {
+        fprintf(stderr, "dragarc: %s: %zu of %zu ranges out of reach, %zu failed (first, %g m: %s)\n", file, unreachable,
+                n, failed, rows[first].range, rows[first].message);
+        status = failed ? EXIT_FAILED : EXIT_NO_SOLUTION;
+    }
+    free(rows);
+    return status;
+}
+
 int cmd_table(int argc, char **argv)
 {
-    const char *file = NULL, *output = NULL, *format_option = NULL;
+    const char *file = NULL, *output = NULL, *format_option = NULL, *ranges = NULL;
+    double height = NAN;
     table_format format = FORMAT_TEXT;
     dragarc_sweep_axis axes[DRAGARC_SWEEP_MAX_AXES];
     size_t naxes = 0;
@@ -182,6 +283,13 @@ int cmd_table(int argc, char **argv)
                 return cli_usage_error("table", "%s and %s: choose one output format", format_option, a);
             format = f;
             format_option = a;
+        } else if (strcmp(a, "--ranges") == 0) {
+            if (++i >= argc)
+                return cli_usage_error("table", "--ranges needs START:STOP:STEP");
+            ranges = argv[i];
+        } else if (strcmp(a, "--height") == 0) {
+            if (++i >= argc || cli_parse_double(argv[i], &height) != 0)
+                return cli_usage_error("table", "--height needs a number of metres");
         } else if (strcmp(a, "-o") == 0 || strcmp(a, "--output") == 0) {
             if (++i >= argc || !*argv[i])
                 return cli_usage_error("table", "%s needs a file name", a);
@@ -198,6 +306,12 @@ int cmd_table(int argc, char **argv)
     }
     if (!file || !*file)
         return cli_usage_error("table", "needs a scenario file");
+    if (ranges && naxes > 0)
+        return cli_usage_error("table", "--ranges makes an aim table and --vary a table of flights: choose one");
+    if (!isnan(height) && !ranges)
+        return cli_usage_error("table", "--height sets the aim table's target plane; give --ranges too");
+    if (ranges)
+        return aim_table(file, ranges, height, format, output);
     if (naxes == 0)
         return cli_usage_error("table", "needs at least one --vary NAME=START:STOP:STEP");
     if (dragarc_sweep_axes_check(axes, naxes, NULL, &err) != DRAGARC_OK)

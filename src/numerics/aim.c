@@ -16,6 +16,7 @@
  * exact, a cross wind needs a few.
  */
 #include <math.h>
+#include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
 
@@ -466,4 +467,56 @@ hard:
     if (err)
         *err = c.err;
     return c.err.code ? c.err.code : DRAGARC_ESOLVER;
+}
+
+int dragarc_aim_table(const dragarc_scenario *s, const dragarc_aim_request *req, const double *ranges, size_t n,
+                      dragarc_aim_table_row *rows, dragarc_error *err)
+{
+    /* One check up front, so that a bad scenario is one error and not n failed rows. */
+    dragarc_aim_request probe = *req;
+    probe.range = 1.0;
+    if (!(probe.miss_tolerance > 0.0))
+        return dragarc_error_set(err, DRAGARC_EINVAL, "miss_tolerance", "must be positive");
+    {
+        dragarc_scenario t = *s;
+        t.launch.elevation = 45.0 * DRAGARC_DEG;
+        if (t.launch.speed <= 0.0)
+            t.launch.speed = 1.0;
+        if (!isnan(req->height))
+            t.ground_elevation = req->height;
+        int rc = dragarc_scenario_check(&t, err);
+        if (rc != DRAGARC_OK)
+            return rc;
+    }
+    for (size_t i = 0; i < n; i++)
+        if (!(ranges[i] > 0.0 && isfinite(ranges[i])))
+            return dragarc_error_set(err, DRAGARC_EINVAL, "ranges", "every target range must be positive (got %g m)",
+                                     ranges[i]);
+    long count = (long)n;
+#pragma omp parallel for schedule(dynamic)
+    for (long i = 0; i < count; i++) {
+        dragarc_aim_table_row *row = &rows[i];
+        dragarc_aim_request q = *req;
+        q.range = ranges[i];
+        dragarc_aim_result r;
+        dragarc_error e;
+        memset(row, 0, sizeof *row);
+        row->range = ranges[i];
+        row->status = dragarc_aim_solve(s, &q, &r, &e);
+        row->max_range = r.max_range;
+        row->max_range_elevation = r.max_range_elevation;
+        dragarc_aim_solution none = {.elevation = NAN, .azimuth = NAN, .azimuth_correction = NAN, .speed = NAN,
+                                     .time_of_flight = NAN, .apex_height = NAN, .impact_speed = NAN,
+                                     .impact_angle = NAN, .impact_energy = NAN, .miss = NAN, .notes = 0};
+        row->low = row->high = none;
+        if (row->status != DRAGARC_OK) {
+            snprintf(row->message, sizeof row->message, "%s%s%s", e.field, e.field[0] ? ": " : "", e.message);
+            continue;
+        }
+        row->nsolutions = r.nsolutions;
+        row->low = r.solutions[0];
+        if (r.nsolutions > 1)
+            row->high = r.solutions[r.nsolutions - 1];
+    }
+    return DRAGARC_OK;
 }

@@ -177,6 +177,38 @@ TEST(unreachable_and_degenerate_targets_are_clear_errors)
     CHECK(strcmp(e.field, "launch.speed") == 0);
 }
 
+TEST(aim_table_rows_equal_single_solves_bit_for_bit)
+{
+    /* The table is the single solve run per range (in parallel): the same numbers to the last bit, and an
+     * out-of-reach range keeps its reason without stopping the others. */
+    dragarc_scenario s;
+    make_scenario(&s, 1.2, 0.145, 0.074, 1.0, 30.0, 10.0, 9.80665, 1e-9);
+    s.projectile.drag.model = DRAGARC_DRAG_CONSTANT;
+    s.projectile.drag.cd = 0.35;
+    s.wind.model = DRAGARC_WIND_CONSTANT;
+    s.wind.speed = 3.0;
+    s.wind.from = 250.0 * DEG;
+    const double ranges[] = {10.0, 25.0, 40.0, 55.0, 200.0};
+    dragarc_aim_table_row rows[5];
+    dragarc_aim_request q;
+    dragarc_aim_request_default(&q);
+    CHECK(dragarc_aim_table(&s, &q, ranges, 5, rows, NULL) == DRAGARC_OK);
+    for (size_t i = 0; i < 5; i++) {
+        dragarc_aim_result r;
+        int rc = aim(&s, ranges[i], NAN, DRAGARC_AIM_ELEVATION, &r, NULL);
+        CHECK(rc == rows[i].status);
+        if (rc != DRAGARC_OK)
+            continue;
+        CHECK(memcmp(&r.solutions[0], &rows[i].low, sizeof rows[i].low) == 0);
+        CHECK(memcmp(&r.solutions[r.nsolutions - 1], &rows[i].high, sizeof rows[i].high) == 0);
+    }
+    CHECK(rows[4].status == DRAGARC_ENOSOLUTION && strstr(rows[4].message, "out of reach"));
+    CHECK(isnan(rows[4].low.elevation));
+    const double bad[] = {10.0, -1.0};
+    dragarc_error e;
+    CHECK(dragarc_aim_table(&s, &q, bad, 2, rows, &e) == DRAGARC_EINVAL && strcmp(e.field, "ranges") == 0);
+}
+
 int main(void)
 {
     dragarc_init();
@@ -187,5 +219,6 @@ int main(void)
     RUN(quadratic_drag_best_elevation_rises_toward_45_degrees_as_drag_vanishes);
     RUN(flying_the_aimed_launch_lands_within_a_millimetre_across_ranges_in_wind);
     RUN(unreachable_and_degenerate_targets_are_clear_errors);
+    RUN(aim_table_rows_equal_single_solves_bit_for_bit);
     return check_summary();
 }
