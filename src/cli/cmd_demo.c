@@ -9,6 +9,7 @@
 #include "cli/cli.h"
 #include "dragarc/aim.h"
 #include "dragarc/cautions.h"
+#include "dragarc/sweep.h"
 
 static const char HELP[] =
     "usage: dragarc demo\n"
@@ -75,6 +76,32 @@ static int demo_aim(const dragarc_scenario *s, double range)
     return EXIT_OK;
 }
 
+/* A table for the second case: how far drops of each size carry and drift from the same nozzle. */
+static int demo_table(const dragarc_scenario *s)
+{
+    dragarc_sweep_axis axis;
+    dragarc_error err;
+    dragarc_sweep t;
+    if (dragarc_sweep_axis_init(&axis, "diameter", 0.0002, 0.0016, 0.0002, &err) != DRAGARC_OK)
+        return cli_report("demo", &err);
+    if (dragarc_sweep_run(s, &axis, 1, &t, &err) != DRAGARC_OK) {
+        dragarc_sweep_clear(&t);
+        return cli_report("demo", &err);
+    }
+    puts("  Table (dragarc table --vary diameter=0.0002:0.0016:0.0002): the same nozzle, other drop sizes:");
+    puts("    diameter   throw    drift   time aloft   impact speed");
+    for (size_t i = 0; i < t.nrows; i++) {
+        const dragarc_sweep_row *r = &t.rows[i];
+        if (r->status != DRAGARC_OK)
+            continue;
+        printf("    %5.1f mm  %5.2f m  %5.2f m  %7.2f s  %8.2f m/s\n", r->values[0] * 1e3, r->downrange,
+               fabs(r->crossrange), r->time_of_flight, r->impact_speed);
+    }
+    puts("    Small drops lose their speed at once and drift furthest; large ones carry.");
+    dragarc_sweep_clear(&t);
+    return EXIT_OK;
+}
+
 int cmd_demo(int argc, char **argv)
 {
     for (int i = 1; i < argc; i++) {
@@ -107,7 +134,7 @@ int cmd_demo(int argc, char **argv)
             printf("  drag relaxation time %.3g s (terminal speed / g) against a %.3g s flight: %s method\n",
                    f.relaxation_time, f.time_of_flight, dragarc_method_name(f.method));
         cli_print_wrapped(stdout, "  What it shows: ", 4, 100, CASES[k].explain);
-        if (k == 0 && demo_aim(&s, 70.0) != EXIT_OK) {
+        if ((k == 0 && demo_aim(&s, 70.0) != EXIT_OK) || (k == 1 && demo_table(&s) != EXIT_OK)) {
             dragarc_flight_clear(&f);
             dragarc_scenario_clear(&s);
             if (have_last)
