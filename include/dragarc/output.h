@@ -44,6 +44,12 @@ void dragarc_output_abort(dragarc_output *o);
  * buf (32 bytes suffice); "" for a value that is not finite. The number form of every CSV and JSON table. */
 void dragarc_number_format(char *buf, size_t size, double v);
 
+/* Print text after `prefix`, wrapped at `width` columns, continuation lines indented by `indent`. */
+void dragarc_text_wrap(FILE *fp, const char *prefix, int indent, int width, const char *text);
+
+/* Print "Cautions:" and the cautions for these DRAGARC_NOTE_* flags as wrapped "  - " items. */
+void dragarc_cautions_print(FILE *fp, unsigned notes, int width);
+
 /* Write the flight's sampled points as CSV with a header row:
  * t,x,y,z,vx,vy,vz,speed,mach,reynolds (SI units: s, m, m/s; Mach and Reynolds numbers). */
 int dragarc_flight_write_csv(FILE *fp, const dragarc_flight *f, dragarc_error *err);

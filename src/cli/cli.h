@@ -30,8 +30,6 @@ const char *cli_profile_path(void);
 /* Print the human summary of a flight to fp, and its cautions when cautions_too. */
 void cli_print_flight(FILE *fp, const char *label, const dragarc_scenario *s, const dragarc_flight *f, int cautions_too);
 
-/* Print text indented by `indent` spaces, wrapped at `width` columns, after a first-line prefix. */
-void cli_print_wrapped(FILE *fp, const char *prefix, int indent, int width, const char *text);
 
 /* Fly a scenario and write its outputs; shared by `fly` and `demo`. */
 typedef struct cli_fly_options {

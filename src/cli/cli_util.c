@@ -66,33 +66,6 @@ const char *cli_profile_path(void)
     return buf;
 }
 
-void cli_print_wrapped(FILE *fp, const char *prefix, int indent, int width, const char *text)
-{
-    int col = fprintf(fp, "%s", prefix);
-    int first = 1;
-    for (const char *p = text; *p;) {
-        while (*p == ' ')
-            p++;
-        const char *w = p;
-        while (*p && *p != ' ')
-            p++;
-        int len = (int)(p - w);
-        if (len == 0)
-            break;
-        if (!first && col + 1 + len > width) {
-            fprintf(fp, "\n%*s", indent, "");
-            col = indent;
-        } else if (!first) {
-            fputc(' ', fp);
-            col++;
-        }
-        fprintf(fp, "%.*s", len, w);
-        col += len;
-        first = 0;
-    }
-    fputc('\n', fp);
-}
-
 static void describe_drag(char *buf, size_t n, const dragarc_drag *d)
 {
     switch (d->model) {
@@ -133,11 +106,7 @@ void cli_print_flight(FILE *fp, const char *label, const dragarc_scenario *s, co
             s->solver.rtol, s->solver.atol);
     if (!cautions_too)
         return;
-    const char *cautions[8];
-    size_t nc = dragarc_cautions_flight(s, f, cautions, 8);
-    fprintf(fp, "Cautions:\n");
-    for (size_t i = 0; i < nc; i++)
-        cli_print_wrapped(fp, "  - ", 4, 100, cautions[i]);
+    dragarc_cautions_print(fp, f->notes, 100);
 }
 
 int cli_fly_scenario(const char *where, const dragarc_scenario *s, const cli_fly_options *o)

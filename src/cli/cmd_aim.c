@@ -143,14 +143,7 @@ int cmd_aim(int argc, char **argv)
         notes |= q->notes;
     }
     printf("  flights flown   %ld\n", r.flights);
-    dragarc_flight all;
-    memset(&all, 0, sizeof all);
-    all.notes = notes;
-    const char *cautions[8];
-    size_t nc = dragarc_cautions_flight(&s, &all, cautions, 8);
-    puts("Cautions:");
-    for (size_t i = 0; i < nc; i++)
-        cli_print_wrapped(stdout, "  - ", 4, 100, cautions[i]);
+    dragarc_cautions_print(stdout, notes, 100);
     dragarc_scenario_clear(&s);
     return EXIT_OK;
 }

@@ -9,6 +9,7 @@
 #include "cli/cli.h"
 #include "dragarc/aim.h"
 #include "dragarc/cautions.h"
+#include "dragarc/output.h"
 #include "dragarc/sweep.h"
 
 static const char HELP[] =
@@ -133,7 +134,7 @@ int cmd_demo(int argc, char **argv)
         if (isfinite(f.relaxation_time))
             printf("  drag relaxation time %.3g s (terminal speed / g) against a %.3g s flight: %s method\n",
                    f.relaxation_time, f.time_of_flight, dragarc_method_name(f.method));
-        cli_print_wrapped(stdout, "  What it shows: ", 4, 100, CASES[k].explain);
+        dragarc_text_wrap(stdout, "  What it shows: ", 4, 100, CASES[k].explain);
         if ((k == 0 && demo_aim(&s, 70.0) != EXIT_OK) || (k == 1 && demo_table(&s) != EXIT_OK)) {
             dragarc_flight_clear(&f);
             dragarc_scenario_clear(&s);
@@ -150,14 +151,7 @@ int cmd_demo(int argc, char **argv)
         dragarc_flight_clear(&f);
     }
     /* One list of cautions for the whole demo: the model limits plus whatever any case called for. */
-    dragarc_flight all;
-    memset(&all, 0, sizeof all);
-    all.notes = notes;
-    const char *cautions[8];
-    size_t nc = dragarc_cautions_flight(&last, &all, cautions, 8);
-    puts("Cautions:");
-    for (size_t i = 0; i < nc; i++)
-        cli_print_wrapped(stdout, "  - ", 4, 100, cautions[i]);
+    dragarc_cautions_print(stdout, notes, 100);
     puts("\nNext: 'dragarc fly SCENARIO' with a scenario file of your own (docs/scenario.md).");
     dragarc_scenario_clear(&last);
     return EXIT_OK;

@@ -126,7 +126,7 @@ static int print_human(FILE *fp, const dragarc_sweep *t)
             /* the reason in place of the results, wrapped under them */
             dragarc_sweep_row_message(r, text, sizeof text);
             snprintf(lead + len, sizeof lead - len, "  failed: ");
-            cli_print_wrapped(fp, lead, (int)len + 2, WIDTH, text);
+            dragarc_text_wrap(fp, lead, (int)len + 2, WIDTH, text);
             continue;
         }
         fputs(lead, fp);
@@ -136,11 +136,7 @@ static int print_human(FILE *fp, const dragarc_sweep *t)
         }
         fputc('\n', fp);
     }
-    const char *cautions[8];
-    size_t nc = dragarc_cautions_notes(t->notes, cautions, 8);
-    fprintf(fp, "Cautions:\n");
-    for (size_t i = 0; i < nc; i++)
-        cli_print_wrapped(fp, "  - ", 4, WIDTH, cautions[i]);
+    dragarc_cautions_print(fp, t->notes, WIDTH);
     fputs("Downrange, terminal speed and every digit: --csv or --json.\n", fp);
     return ferror(fp) ? -1 : 0;
 }

@@ -229,33 +229,15 @@ static void write_grid(FILE *fp, int markdown, const char *scenario, double heig
             }
         fputc('\n', fp);
     }
+    if (!markdown) {
+        dragarc_cautions_print(fp, all_notes(rows, n), 100);
+        return;
+    }
     const char *cautions[8];
     size_t nc = dragarc_cautions_notes(all_notes(rows, n), cautions, 8);
-    fputs(markdown ? "\nCautions:\n\n" : "Cautions:\n", fp);
-    for (size_t i = 0; i < nc; i++) {
-        if (markdown) {
-            fprintf(fp, "- %s\n", cautions[i]);
-            continue;
-        }
-        /* wrapped at 100 columns, continuation lines indented under the text */
-        int col = fprintf(fp, "  -");
-        for (const char *p = cautions[i]; *p;) {
-            while (*p == ' ')
-                p++;
-            const char *word = p;
-            while (*p && *p != ' ')
-                p++;
-            int len = (int)(p - word);
-            if (len == 0)
-                break;
-            if (col + 1 + len > 100) {
-                fputs("\n   ", fp);
-                col = 3;
-            }
-            col += fprintf(fp, " %.*s", len, word);
-        }
-        fputc('\n', fp);
-    }
+    fputs("\nCautions:\n\n", fp);
+    for (size_t i = 0; i < nc; i++)
+        fprintf(fp, "- %s\n", cautions[i]);
 }
 
 int dragarc_aim_table_write(FILE *fp, dragarc_table_format format, const char *scenario, double height,

@@ -2,6 +2,7 @@
  * SPDX-License-Identifier: GPL-3.0-or-later
  */
 #include "dragarc/cautions.h"
+#include "dragarc/output.h"
 
 static const char LIMITS[] =
     "Model limits: a point mass with drag, gravity and buoyancy only, on a flat, non-rotating Earth; no spin "
@@ -51,4 +52,13 @@ size_t dragarc_cautions_notes(unsigned notes, const char **out, size_t max)
     for (size_t i = 0; i < k; i++)
         out[i] = all[i];
     return k;
+}
+
+void dragarc_cautions_print(FILE *fp, unsigned notes, int width)
+{
+    const char *cautions[8];
+    size_t nc = dragarc_cautions_notes(notes, cautions, 8);
+    fputs("Cautions:\n", fp);
+    for (size_t i = 0; i < nc; i++)
+        dragarc_text_wrap(fp, "  - ", 4, width, cautions[i]);
 }

@@ -46,6 +46,15 @@ static char *finish(cJSON *doc)
     return text;
 }
 
+static void add_cautions(cJSON *doc, unsigned notes)
+{
+    const char *cautions[8];
+    size_t nc = dragarc_cautions_notes(notes, cautions, 8);
+    cJSON *ca = cJSON_AddArrayToObject(doc, "cautions");
+    for (size_t i = 0; i < nc; i++)
+        cJSON_AddItemToArray(ca, cJSON_CreateString(cautions[i]));
+}
+
 char *dragarc_flight_json(const dragarc_scenario *s, const dragarc_flight *f)
 {
     cJSON *doc = cJSON_CreateObject();
@@ -82,24 +91,8 @@ char *dragarc_flight_json(const dragarc_scenario *s, const dragarc_flight *f)
                                         "terminal_speed", "m/s", "vacuum_range", "m", "impact_position", "m",
                                         "impact_velocity", "m/s", "relaxation_time", "s", NULL};
     add_units(doc, units);
-    const char *cautions[8];
-    size_t nc = dragarc_cautions_flight(s, f, cautions, 8);
-    cJSON *ca = cJSON_AddArrayToObject(doc, "cautions");
-    for (size_t i = 0; i < nc; i++)
-        cJSON_AddItemToArray(ca, cJSON_CreateString(cautions[i]));
+    add_cautions(doc, f->notes);
     return finish(doc);
-}
-
-static void add_cautions(cJSON *doc, const dragarc_scenario *s, unsigned notes)
-{
-    dragarc_flight f;
-    memset(&f, 0, sizeof f);
-    f.notes = notes;
-    const char *cautions[8];
-    size_t nc = dragarc_cautions_flight(s, &f, cautions, 8);
-    cJSON *ca = cJSON_AddArrayToObject(doc, "cautions");
-    for (size_t i = 0; i < nc; i++)
-        cJSON_AddItemToArray(ca, cJSON_CreateString(cautions[i]));
 }
 
 char *dragarc_aim_json(const dragarc_scenario *s, const dragarc_aim_request *req, const dragarc_aim_result *r)
@@ -142,7 +135,7 @@ char *dragarc_aim_json(const dragarc_scenario *s, const dragarc_aim_request *req
                                         "impact_angle", "degree", "impact_energy", "J", "miss", "m",
                                         "max_range", "m", "max_range_elevation", "degree", NULL};
     add_units(doc, units);
-    add_cautions(doc, s, notes);
+    add_cautions(doc, notes);
     return finish(doc);
 }
 

@@ -17,6 +17,33 @@
 #include "dragarc/cautions.h"
 #include "dragarc/output.h"
 
+void dragarc_text_wrap(FILE *fp, const char *prefix, int indent, int width, const char *text)
+{
+    int col = fprintf(fp, "%s", prefix);
+    int first = 1;
+    for (const char *p = text; *p;) {
+        while (*p == ' ')
+            p++;
+        const char *w = p;
+        while (*p && *p != ' ')
+            p++;
+        int len = (int)(p - w);
+        if (len == 0)
+            break;
+        if (!first && col + 1 + len > width) {
+            fprintf(fp, "\n%*s", indent, "");
+            col = indent;
+        } else if (!first) {
+            fputc(' ', fp);
+            col++;
+        }
+        fprintf(fp, "%.*s", len, w);
+        col += len;
+        first = 0;
+    }
+    fputc('\n', fp);
+}
+
 void dragarc_number_format(char *buf, size_t size, double v)
 {
     if (size == 0)
