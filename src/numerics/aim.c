@@ -477,6 +477,8 @@ int dragarc_aim_table(const dragarc_scenario *s, const dragarc_aim_request *req,
     probe.range = 1.0;
     if (!(probe.miss_tolerance > 0.0))
         return dragarc_error_set(err, DRAGARC_EINVAL, "miss_tolerance", "must be positive");
+    if (req->mode == DRAGARC_AIM_ELEVATION && !(s->launch.speed > 0.0))
+        return dragarc_error_set(err, DRAGARC_EINVAL, "launch.speed", "is 0: there is nothing to aim (give a speed)");
     {
         dragarc_scenario t = *s;
         t.launch.elevation = 45.0 * DRAGARC_DEG;
