@@ -38,6 +38,7 @@ typedef struct aim_ctx {
     double dist;         /* |T| */
     double ux, uy;       /* unit vector toward the target */
     double psi;          /* azimuth being tried */
+    double min_along;    /* shortest distance along the line seen by the last scan */
     long flights;
     int hard;            /* a failure that is not "never reaches the plane" */
     dragarc_error err;
@@ -212,11 +213,15 @@ static int solve_1d(aim_ctx *c, double *roots, int *slopes, size_t *nroots, doub
     qsort(smp, n, sizeof smp[0], cmp_sample);
     *best_along = -INFINITY;
     *best_x = NAN;
-    for (size_t i = 0; i < n; i++)
+    c->min_along = INFINITY;
+    for (size_t i = 0; i < n; i++) {
         if (smp[i].ok && smp[i].along > *best_along) {
             *best_along = smp[i].along;
             *best_x = smp[i].x;
         }
+        if (smp[i].ok && smp[i].along < c->min_along)
+            c->min_along = smp[i].along;
+    }
     *nroots = 0;
     for (size_t i = 0; i + 1 < n && *nroots < DRAGARC_AIM_MAX_SOLUTIONS; i++) {
         if (!smp[i].ok || !smp[i + 1].ok || smp[i + 1].x <= smp[i].x)
@@ -348,6 +353,11 @@ int dragarc_aim_solve(const dragarc_scenario *s, const dragarc_aim_request *req,
                 return dragarc_error_set(err, DRAGARC_ENOSOLUTION, "height",
                                          "no launch at %g m/s comes down onto the target plane at %g m", s->launch.speed,
                                          c.s.ground_elevation);
+            if (c.dist < c.min_along)
+                return dragarc_error_set(err, DRAGARC_ENOSOLUTION, "range",
+                                         "the target at %g m is closer than any launch at %g m/s lands: the shortest "
+                                         "range is %.6g m (the maximum %.6g m)",
+                                         c.dist, s->launch.speed, c.min_along, best_along);
             return dragarc_error_set(err, DRAGARC_ENOSOLUTION, "range",
                                      "the target at %g m is out of reach: the maximum range at %g m/s is %.6g m, at "
                                      "%.4g degrees elevation",

@@ -166,6 +166,12 @@ TEST(unreachable_and_degenerate_targets_are_clear_errors)
     CHECK(aim(&s, 100.0, NAN, DRAGARC_AIM_ELEVATION, &r, &e) == DRAGARC_ENOSOLUTION);
     CHECK(strstr(e.message, "out of reach") && strstr(e.message, "maximum range"));
     CHECK_REL(r.max_range, 400.0 / G, 1e-8);
+    /* from 1 m up at 20 m/s the steepest launch searched (-89 deg) still carries about 2 cm, so a spot
+     * 1 um away is reported as closer than any launch lands, with that shortest range */
+    s.launch.height = 1.0;
+    CHECK(aim(&s, 1e-6, NAN, DRAGARC_AIM_ELEVATION, &r, &e) == DRAGARC_ENOSOLUTION);
+    CHECK(strstr(e.message, "closer than any launch") != NULL);
+    s.launch.height = 0.0;
     CHECK(aim(&s, 0.0, NAN, DRAGARC_AIM_ELEVATION, &r, &e) == DRAGARC_EINVAL);
     CHECK(strcmp(e.field, "range") == 0);
     /* 20 m/s reaches at most 20.4 m up: a target plane at 30 m is above every trajectory */
