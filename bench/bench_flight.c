@@ -21,6 +21,7 @@
  * counted in a thread-local counter. The library's code is unchanged.
  *
  * Usage: bench_flight [--loop SECONDS] [--repeats N] [--threads N] [--json PATH]
+ *        bench_flight --profile PROBLEM   (only dragarc flights of one problem for about 3 s, to run under perf)
  * Exit status 0, 2 on bad usage, 3 when a flight fails or dragarc and the reference disagree.
  */
 #include <math.h>
@@ -44,6 +45,7 @@
 #define RANGE_RTOL 1e-6   /* agreement required between dragarc and the reference before timing */
 #define ROOT_TTOL 1e-9    /* s, impact time tolerance of the reference */
 #define NPROBLEMS 3
+#define TIGHT_TOL 1e-12   /* rtol = atol of the rk8pd solution that measures every solver's range error */
 
 /* ---- counting evaluations of the equations of motion (linker --wrap) ---- */
 
@@ -213,14 +215,14 @@ typedef struct ref_solver {
     double rtol, atol;
 } ref_solver;
 
-static int ref_solver_init(ref_solver *r, ref_method m, const dragarc_scenario *s)
+static int ref_solver_init(ref_solver *r, ref_method m, const dragarc_scenario *s, double rtol, double atol)
 {
     memset(r, 0, sizeof *r);
     r->method = m;
     r->ctx.forces = (dragarc_forces){&s->projectile, &s->atmosphere, &s->wind, s->gravity, s->ground_elevation};
     r->sys = (gsl_odeiv2_system){ref_rhs, ref_jac, 6, &r->ctx};
-    r->rtol = s->solver.rtol;
-    r->atol = s->solver.atol;
+    r->rtol = rtol;
+    r->atol = atol;
     r->drv = gsl_odeiv2_driver_alloc_y_new(&r->sys, m == REF_RK8PD ? gsl_odeiv2_step_rk8pd : gsl_odeiv2_step_msbdf,
                                            1e-3, r->atol, r->rtol);
     if (m == REF_RK8PD)
@@ -439,14 +441,15 @@ static void json_problem(FILE *fp, const problem *p)
 
 static void usage(void)
 {
-    fprintf(stderr, "usage: bench_flight [--loop SECONDS] [--repeats N] [--threads N] [--json PATH]\n");
+    fprintf(stderr, "usage: bench_flight [--loop SECONDS] [--repeats N] [--threads N] [--json PATH]\n"
+                    "       bench_flight --profile ball|fragment|drop\n");
 }
 
 int main(int argc, char **argv)
 {
     double loop = 0.5, mt_seconds = 2.0;
     int repeats = 5, threads = 2;
-    const char *json_path = NULL;
+    const char *json_path = NULL, *profile = NULL;
     for (int i = 1; i < argc; i++) {
         if (strcmp(argv[i], "--loop") == 0 && i + 1 < argc)
             loop = atof(argv[++i]);
@@ -456,6 +459,8 @@ int main(int argc, char **argv)
             threads = atoi(argv[++i]);
         else if (strcmp(argv[i], "--json") == 0 && i + 1 < argc)
             json_path = argv[++i];
+        else if (strcmp(argv[i], "--profile") == 0 && i + 1 < argc)
+            profile = argv[++i];
         else {
             usage();
             return 2;
@@ -472,6 +477,24 @@ int main(int argc, char **argv)
     if (make_problems(pb, &err) != DRAGARC_OK) {
         fprintf(stderr, "bench_flight: %s: %s\n", err.field, err.message);
         return 3;
+    }
+    if (profile) {
+        int k = 0;
+        while (k < NPROBLEMS && strcmp(pb[k].name, profile) != 0)
+            k++;
+        long n = 0;
+        int rc = DRAGARC_OK;
+        for (double t0 = now(); k < NPROBLEMS && rc == DRAGARC_OK && now() - t0 < 3.0; n++)
+            rc = fly_dragarc(&pb[k].s);
+        if (k < NPROBLEMS)
+            printf("%s: %ld dragarc flights%s\n", profile, n, rc == DRAGARC_OK ? "" : ", the last one failed");
+        for (int j = 0; j < NPROBLEMS; j++)
+            dragarc_scenario_clear(&pb[j].s);
+        if (k == NPROBLEMS) {
+            usage();
+            return 2;
+        }
+        return rc == DRAGARC_OK ? 0 : 3;
     }
     FILE *fp = json_path ? fopen(json_path, "w") : NULL;
     if (json_path && !fp) {
@@ -498,10 +521,36 @@ int main(int argc, char **argv)
         ref_solver rs[2];
         int nref = p->stiff ? 2 : 1;
         for (int m = 0; m < nref; m++) {
-            if (ref_solver_init(&rs[m], (ref_method)m, &p->s) != 0 || ref_fly(&rs[m], &p->s, &ref[m]) != 0) {
+            if (ref_solver_init(&rs[m], (ref_method)m, &p->s, p->s.solver.rtol, p->s.solver.atol) != 0 || ref_fly(&rs[m], &p->s, &ref[m]) != 0) {
                 fprintf(stderr, "bench_flight: %s: the %s reference failed\n", p->name, REF_NAMES[m]);
                 status = 3;
             }
+        }
+        /* A much tighter rk8pd solution, to state each solver's actual range error. */
+        ref_solver tight;
+        ref_result tight_res = {NAN, NAN, 0, 0};
+        if (ref_solver_init(&tight, REF_RK8PD, &p->s, TIGHT_TOL, TIGHT_TOL) != 0 || ref_fly(&tight, &p->s, &tight_res) != 0) {
+            fprintf(stderr, "bench_flight: %s: the tight rk8pd reference failed\n", p->name);
+            status = 3;
+        }
+        ref_solver_free(&tight);
+        /* The same flight with the method dragarc did not choose, forced. */
+        dragarc_scenario other = p->s; /* shallow: shares the tables, read only */
+        other.solver.method = f.method == DRAGARC_METHOD_BDF ? DRAGARC_METHOD_ADAMS : DRAGARC_METHOD_BDF;
+        dragarc_flight fo;
+        memset(&fo, 0, sizeof fo);
+        long ev1 = n_forces_eval;
+        if (status == 0 && dragarc_flight_run(&other, 0.0, &fo, &err) != DRAGARC_OK) {
+            fprintf(stderr, "bench_flight: %s (forced %s): %s: %s\n", p->name, dragarc_method_name(other.solver.method),
+                    err.field, err.message);
+            status = 3;
+        }
+        long o_evals = n_forces_eval - ev1;
+        if (status == 0 && !(fabs(fo.range - f.range) <= RANGE_RTOL * fabs(f.range))) {
+            fprintf(stderr, "bench_flight: %s: dragarc's range %.12g m (%s) and %.12g m (%s) differ by more than %g\n",
+                    p->name, f.range, dragarc_method_name(f.method), fo.range, dragarc_method_name(other.solver.method),
+                    RANGE_RTOL);
+            status = 3;
         }
         for (int m = 0; m < nref && status == 0; m++) {
             double rel = fabs(f.range - ref[m].range) / fabs(ref[m].range);
@@ -517,6 +566,7 @@ int main(int argc, char **argv)
             for (int m = 0; m < nref; m++)
                 ref_solver_free(&rs[m]);
             dragarc_flight_clear(&f);
+            dragarc_flight_clear(&fo);
             break;
         }
         double t_d;
@@ -527,6 +577,14 @@ int main(int argc, char **argv)
         }
         printf("%-9s %-10s %12.2f %8ld %10ld %16.9f %s\n", p->name, "dragarc", 1e6 * t_d, f.steps, d_evals, f.range,
                dragarc_method_name(f.method));
+        double t_o;
+        long n_o;
+        if (time_per_flight(fly_dragarc, &other, loop, repeats, &t_o, &n_o) != 0) {
+            status = 3;
+            break;
+        }
+        printf("%-9s %-10s %12.2f %8ld %10ld %16.9f forced %s\n", p->name, "dragarc", 1e6 * t_o, fo.steps, o_evals,
+               fo.range, dragarc_method_name(fo.method));
         double t_r[2] = {NAN, NAN};
         long n_r[2] = {0, 0};
         for (int m = 0; m < nref; m++) {
@@ -543,6 +601,10 @@ int main(int argc, char **argv)
             fprintf(fp, "     \"dragarc\": {\"seconds_per_flight\": %.6g, \"loop_flights\": %ld, \"steps\": %ld, "
                     "\"forces_evals\": %ld, \"method\": \"%s\", \"range\": %.17g, \"time_of_flight\": %.17g},\n",
                     t_d, n_d, f.steps, d_evals, dragarc_method_name(f.method), f.range, f.time_of_flight);
+            fprintf(fp, "     \"dragarc_forced\": {\"seconds_per_flight\": %.6g, \"loop_flights\": %ld, \"steps\": %ld, "
+                    "\"forces_evals\": %ld, \"method\": \"%s\", \"range\": %.17g},\n",
+                    t_o, n_o, fo.steps, o_evals, dragarc_method_name(fo.method), fo.range);
+            fprintf(fp, "     \"tight_range\": %.17g, \"tight_tol\": %g,\n", tight_res.range, TIGHT_TOL);
             fprintf(fp, "     \"reference\": [");
             for (int m = 0; m < nref; m++)
                 fprintf(fp, "%s\n       {\"solver\": \"%s\", \"seconds_per_flight\": %.6g, \"loop_flights\": %ld, "
@@ -554,6 +616,7 @@ int main(int argc, char **argv)
         for (int m = 0; m < nref; m++)
             ref_solver_free(&rs[m]);
         dragarc_flight_clear(&f);
+        dragarc_flight_clear(&fo);
     }
     if (fp && status == 0)
         fprintf(fp, "  ],\n");
