@@ -21,9 +21,10 @@ extern "C" {
 #endif
 
 typedef enum dragarc_method {
-    DRAGARC_METHOD_AUTO = 0, /* Adams unless the drag relaxation time is short against the flight */
-    DRAGARC_METHOD_ADAMS,    /* non-stiff: variable-order Adams-Moulton, fixed-point iteration */
-    DRAGARC_METHOD_BDF       /* stiff: BDF with Newton iteration and a dense linear solver */
+    DRAGARC_METHOD_AUTO = 0, /* rk8pd unless the drag relaxation time is short against the flight */
+    DRAGARC_METHOD_ADAMS,    /* non-stiff: CVODE variable-order Adams-Moulton, fixed-point iteration */
+    DRAGARC_METHOD_BDF,      /* stiff: CVODE BDF with Newton iteration and a dense linear solver */
+    DRAGARC_METHOD_RK8PD     /* non-stiff: GSL's explicit Runge-Kutta-Prince-Dormand 8(9) */
 } dragarc_method;
 
 typedef struct dragarc_launch {

@@ -607,8 +607,11 @@ static int read_solver(const cJSON *j, dragarc_solver_options *o, dragarc_error 
             o->method = DRAGARC_METHOD_ADAMS;
         else if (strcmp(method, "bdf") == 0)
             o->method = DRAGARC_METHOD_BDF;
+        else if (strcmp(method, "rk8pd") == 0)
+            o->method = DRAGARC_METHOD_RK8PD;
         else
-            return dragarc_error_set(err, DRAGARC_EINVAL, "solver.method", "unknown method \"%s\" (auto, adams, bdf)", method);
+            return dragarc_error_set(err, DRAGARC_EINVAL, "solver.method",
+                                     "unknown method \"%s\" (auto, rk8pd, adams, bdf)", method);
     }
     return DRAGARC_OK;
 }

@@ -375,7 +375,7 @@ int dragarc_aim_solve(const dragarc_scenario *s, const dragarc_aim_request *req,
          * changes little with the aim makes this contract fast (one step in still air); when a step makes
          * the miss worse it is halved. */
         double ax = c.tx, ay = c.ty, gain = 1.0, last_miss = INFINITY;
-        double prev_ax = ax, prev_ay = ay;
+        double prev_ax = ax, prev_ay = ay, prev_px = 0.0, prev_py = 0.0;
         dragarc_flight f;
         double along, best_miss = INFINITY;
         dragarc_aim_solution *sol = &out->solutions[out->nsolutions];
@@ -426,17 +426,20 @@ int dragarc_aim_solve(const dragarc_scenario *s, const dragarc_aim_request *req,
             /* Well inside the tolerance (1/1000 of it), or no azimuth to turn: done. */
             if (!turn || miss <= 1e-3 * req->miss_tolerance)
                 break;
-            if (miss > last_miss) { /* overshot: go back and take half the step */
+            if (miss > last_miss) { /* overshot: take half the step from the last good aim point */
                 gain *= 0.5;
-                ax = prev_ax;
-                ay = prev_ay;
+                ax = prev_ax + gain * (c.tx - prev_px);
+                ay = prev_ay + gain * (c.ty - prev_py);
                 continue;
             }
             last_miss = miss;
             prev_ax = ax;
             prev_ay = ay;
+            prev_px = px;
+            prev_py = py;
             ax += gain * (c.tx - px);
             ay += gain * (c.ty - py);
+            gain = fmin(1.0, 2.0 * gain); /* a good step earns the full step back */
         }
         int converged = best_miss <= req->miss_tolerance;
         if (c.hard)

@@ -16,6 +16,8 @@
 #include <string.h>
 
 #include <cvode/cvode.h>
+#include <gsl/gsl_errno.h>
+#include <gsl/gsl_odeiv2.h>
 #include <nvector/nvector_serial.h>
 #include <sundials/sundials_context.h>
 #include <sunlinsol/sunlinsol_dense.h>
@@ -95,6 +97,7 @@ const char *dragarc_method_name(dragarc_method m)
     switch (m) {
     case DRAGARC_METHOD_ADAMS: return "adams";
     case DRAGARC_METHOD_BDF: return "bdf";
+    case DRAGARC_METHOD_RK8PD: return "rk8pd";
     default: return "auto";
     }
 }
@@ -214,60 +217,18 @@ static int cvode_failure(flight_ctx *c, int flag, double t, dragarc_error *err)
     return rc;
 }
 
-int dragarc_flight_run(const dragarc_scenario *s, double dt, dragarc_flight *out, dragarc_error *err)
+/* Integrate with CVODE from y0 to impact, filling samples, apex, notes and steps; impact state in out->impact,
+ * impact time in *t_end. */
+static int integrate_cvode(const dragarc_scenario *s, flight_ctx *cx, dragarc_method method, double dt,
+                           const double y0[6], dragarc_flight *out, size_t *cap_, double *t_end, dragarc_error *err)
 {
-    memset(out, 0, sizeof *out);
-    out->terminal_speed = out->vacuum_range = out->relaxation_time = NAN;
-    int rc = dragarc_scenario_check(s, err);
-    if (rc != DRAGARC_OK)
-        return rc;
-    if (!(dt >= 0.0 && isfinite(dt)))
-        return dragarc_error_set(err, DRAGARC_EINVAL, "dt", "sampling interval must be zero or positive (got %g)", dt);
-
-    flight_ctx c;
-    memset(&c, 0, sizeof c);
-    c.forces.projectile = &s->projectile;
-    c.forces.atmosphere = &s->atmosphere;
-    c.forces.wind = &s->wind;
-    c.forces.gravity = s->gravity;
-    c.forces.ground_elevation = s->ground_elevation;
-    c.ceiling = s->atmosphere.model == DRAGARC_ATMOSPHERE_ISA ? DRAGARC_ISA_Z_MAX - s->atmosphere.site_elevation : INFINITY;
-
-    double y0[6];
-    launch_state(s, y0);
-    out->launch_energy = 0.5 * s->projectile.mass * s->launch.speed * s->launch.speed;
-    out->vacuum_range = dragarc_vacuum_range(s);
-    rc = dragarc_terminal_speed(s, s->launch.height, &out->terminal_speed, err);
-    if (rc != DRAGARC_OK)
-        return rc;
-    out->relaxation_time = out->terminal_speed / s->gravity;
-
-    dragarc_method method = s->solver.method;
-    if (method == DRAGARC_METHOD_AUTO) {
-        method = DRAGARC_METHOD_ADAMS;
-        if (isfinite(out->terminal_speed)) {
-            double rise = y0[5] > 0.0 ? y0[5] * y0[5] / (2.0 * s->gravity) : 0.0;
-            double t_fall = (s->launch.height + rise - s->ground_elevation) / out->terminal_speed;
-            double t_est = fmax(vacuum_time(s), t_fall);
-            if (t_est > STIFF_RATIO * out->relaxation_time)
-                method = DRAGARC_METHOD_BDF;
-        }
-    }
-    out->method = method;
-    {
-        dragarc_air air;
-        if (dragarc_atmosphere_eval(&s->atmosphere, s->launch.height, &air, NULL) == DRAGARC_OK &&
-            s->projectile.volume > 0.0 && air.density > 0.01 * s->projectile.mass / s->projectile.volume)
-            out->notes |= DRAGARC_NOTE_DENSE_FLUID;
-    }
-
+    int rc = DRAGARC_OK;
     SUNContext sun = NULL;
     N_Vector y = NULL, ytmp = NULL;
     SUNMatrix A = NULL;
     SUNLinearSolver LS = NULL;
     SUNNonlinearSolver NLS = NULL;
     void *mem = NULL;
-    size_t cap = 0;
 
     if (SUNContext_Create(NULL, &sun) != 0) {
         rc = dragarc_error_set(err, DRAGARC_ENOMEM, "", "could not create a SUNDIALS context");
@@ -280,12 +241,12 @@ int dragarc_flight_run(const dragarc_scenario *s, double dt, dragarc_flight *out
         rc = dragarc_error_set(err, DRAGARC_ENOMEM, "", "could not allocate the integrator");
         goto done;
     }
-    memcpy(N_VGetArrayPointer(y), y0, sizeof y0);
-    int flag = CVodeSetErrHandlerFn(mem, on_cvode_error, &c);
+    memcpy(N_VGetArrayPointer(y), y0, 6 * sizeof *y0);
+    int flag = CVodeSetErrHandlerFn(mem, on_cvode_error, cx);
     if (flag == CV_SUCCESS)
         flag = CVodeInit(mem, rhs, 0.0, y);
     if (flag == CV_SUCCESS)
-        flag = CVodeSetUserData(mem, &c);
+        flag = CVodeSetUserData(mem, cx);
     if (flag == CV_SUCCESS)
         flag = CVodeSStolerances(mem, s->solver.rtol, s->solver.atol);
     if (flag == CV_SUCCESS)
@@ -310,13 +271,13 @@ int dragarc_flight_run(const dragarc_scenario *s, double dt, dragarc_flight *out
         }
     }
     if (flag != CV_SUCCESS) {
-        rc = cvode_failure(&c, flag, 0.0, err);
+        rc = cvode_failure(cx, flag, 0.0, err);
         goto done;
     }
 
-    if ((rc = push_point(out, &cap, &c, 0.0, y0)) != DRAGARC_OK)
+    if ((rc = push_point(out, cap_, cx, 0.0, y0)) != DRAGARC_OK)
         goto nomem;
-    observe(out, &c, y0);
+    observe(out, cx, y0);
     out->apex_height = y0[2];
     out->apex_time = 0.0;
 
@@ -326,10 +287,10 @@ int dragarc_flight_run(const dragarc_scenario *s, double dt, dragarc_flight *out
     while (!landed) {
         flag = CVode(mem, s->solver.max_time, y, &t, CV_ONE_STEP);
         if (flag < 0) {
-            rc = cvode_failure(&c, flag, t, err);
+            rc = cvode_failure(cx, flag, t, err);
             goto done;
         }
-        c.rhs_failed = 0; /* a recovered trial failure is not an error */
+        cx->rhs_failed = 0; /* a recovered trial failure is not an error */
         /* In one-step mode CVODE's own step limit counts per call, so the total is checked here. */
         long nsteps = 0;
         CVodeGetNumSteps(mem, &nsteps);
@@ -352,11 +313,11 @@ int dragarc_flight_run(const dragarc_scenario *s, double dt, dragarc_flight *out
             }
             if (CVodeGetDky(mem, ts, 0, ytmp) != CV_SUCCESS)
                 break;
-            if ((rc = push_point(out, &cap, &c, ts, N_VGetArrayPointer(ytmp))) != DRAGARC_OK)
+            if ((rc = push_point(out, cap_, cx, ts, N_VGetArrayPointer(ytmp))) != DRAGARC_OK)
                 goto nomem;
             k++;
         }
-        observe(out, &c, yv);
+        observe(out, cx, yv);
         if (flag == CV_ROOT_RETURN) {
             int found[3] = {0, 0, 0};
             CVodeGetRootInfo(mem, found);
@@ -396,24 +357,11 @@ int dragarc_flight_run(const dragarc_scenario *s, double dt, dragarc_flight *out
     const double *yi = N_VGetArrayPointer(y);
     memcpy(out->impact, yi, sizeof out->impact);
     out->impact[2] = s->ground_elevation; /* the root finder leaves |z - z_g| at round-off level */
-    if (dt > 0.0 && (rc = push_point(out, &cap, &c, t, out->impact)) != DRAGARC_OK)
-        goto nomem;
-    if (dt == 0.0 && (rc = push_point(out, &cap, &c, t, out->impact)) != DRAGARC_OK)
+    if ((rc = push_point(out, cap_, cx, t, out->impact)) != DRAGARC_OK)
         goto nomem;
     CVodeGetNumSteps(mem, &out->steps);
 
-    double ex = out->impact[0], ny = out->impact[1];
-    double az = s->launch.azimuth;
-    out->time_of_flight = t;
-    out->range = hypot(ex, ny);
-    out->downrange = ex * sin(az) + ny * cos(az);
-    out->crossrange = ex * cos(az) - ny * sin(az);
-    double vh = hypot(out->impact[3], out->impact[4]);
-    out->impact_speed = sqrt(vh * vh + out->impact[5] * out->impact[5]);
-    out->impact_angle = atan2(-out->impact[5], vh);
-    out->impact_energy = 0.5 * s->projectile.mass * out->impact_speed * out->impact_speed;
-    if (out->impact_energy >= 15.0)
-        out->notes |= DRAGARC_NOTE_HIGH_ENERGY;
+    *t_end = t;
     rc = DRAGARC_OK;
     goto done;
 nomem:
@@ -434,4 +382,287 @@ done:
     if (sun)
         SUNContext_Free(&sun);
     return rc;
+}
+
+/* ---- the explicit path: GSL odeiv2 rk8pd with events located inside the step ---------------------- */
+
+/* Right-hand side in GSL's form; the same clamp at the top of the atmosphere as for CVODE. */
+static int rk_rhs(double t, const double y[], double dydt[], void *user)
+{
+    (void)t;
+    flight_ctx *c = user;
+    double ys[6] = {y[0], y[1], fmin(y[2], c->ceiling), y[3], y[4], y[5]};
+    dragarc_error e;
+    if (dragarc_forces_eval(&c->forces, ys, dydt, NULL, &e) != DRAGARC_OK) {
+        if (!c->rhs_failed)
+            c->rhs_err = e;
+        c->rhs_failed = 1;
+        return GSL_EBADFUNC;
+    }
+    for (int i = 0; i < 6; i++)
+        if (!isfinite(dydt[i])) {
+            if (!c->rhs_failed)
+                dragarc_error_set(&c->rhs_err, DRAGARC_ESOLVER, "", "the equations of motion gave a non-finite value");
+            c->rhs_failed = 1;
+            return GSL_EBADFUNC;
+        }
+    return GSL_SUCCESS;
+}
+
+/* The state at t0 + tau from (t0, y0) by one rk8pd step of size tau (tau no longer than the step the error
+ * control accepted, so the eighth-order step is at least as accurate). */
+static int rk_partial(gsl_odeiv2_step *st, const gsl_odeiv2_system *sys, double t0, const double y0[6], double tau,
+                      double y[6])
+{
+    double yerr[6];
+    memcpy(y, y0, 6 * sizeof *y);
+    if (tau == 0.0)
+        return GSL_SUCCESS;
+    gsl_odeiv2_step_reset(st);
+    return gsl_odeiv2_step_apply(st, t0, tau, y, yerr, NULL, NULL, sys);
+}
+
+/* The time in (ta, t1] where g = sign (y[k] - level) falls through zero, by the Illinois variant of regula
+ * falsi (Dowell & Jarratt 1971, BIT 11:168) on states from rk_partial out of (t0, y0), the start of the step;
+ * ystar gets the state there. g(ta) > 0 >= g(t1) on entry. */
+static int rk_locate(gsl_odeiv2_step *st, const gsl_odeiv2_system *sys, double t0, const double y0[6], double ta,
+                     const double ya[6], double t1, const double y1[6], int k, double level, double sign,
+                     double *tstar, double ystar[6])
+{
+    double a = ta, b = t1, fa = sign * (ya[k] - level), fb = sign * (y1[k] - level);
+    memcpy(ystar, y1, 6 * sizeof *ystar);
+    *tstar = t1;
+    int side = 0;
+    for (int it = 0; it < 100 && b - a > 1e-13 * fmax(1.0, fabs(b)); it++) {
+        double m = b - fb * (b - a) / (fb - fa);
+        if (!(m > a && m < b))
+            m = 0.5 * (a + b);
+        double ym[6];
+        if (rk_partial(st, sys, t0, y0, m - t0, ym) != GSL_SUCCESS)
+            return -1;
+        double fm = sign * (ym[k] - level);
+        if (fm > 0.0) {
+            a = m, fa = fm;
+            if (side == -1)
+                fb *= 0.5;
+            side = -1;
+        } else {
+            b = m, fb = fm;
+            memcpy(ystar, ym, 6 * sizeof *ystar);
+            *tstar = m;
+            if (side == 1)
+                fa *= 0.5;
+            side = 1;
+            if (fm == 0.0)
+                break;
+        }
+    }
+    return 0;
+}
+
+/* Integrate with rk8pd (Prince & Dormand 1981, J. Comput. Appl. Math. 7:67; GSL odeiv2) under GSL's
+ * standard error control (|err_i| <= atol + rtol |y_i|), one accepted step at a time. Events are found
+ * inside the step that contains them by regula falsi on partial steps from its start; samples likewise. */
+static int integrate_rk(const dragarc_scenario *s, flight_ctx *cx, double dt, const double y0[6],
+                        dragarc_flight *out, size_t *cap, double *t_end, dragarc_error *err)
+{
+    gsl_odeiv2_system sys = {rk_rhs, NULL, 6, cx};
+    gsl_odeiv2_step *step = gsl_odeiv2_step_alloc(gsl_odeiv2_step_rk8pd, 6);
+    gsl_odeiv2_step *part = gsl_odeiv2_step_alloc(gsl_odeiv2_step_rk8pd, 6);
+    gsl_odeiv2_control *con = gsl_odeiv2_control_standard_new(s->solver.atol, s->solver.rtol, 1.0, 0.0);
+    gsl_odeiv2_evolve *ev = gsl_odeiv2_evolve_alloc(6);
+    int rc = DRAGARC_OK;
+    if (!step || !part || !con || !ev) {
+        rc = dragarc_error_set(err, DRAGARC_ENOMEM, "", "could not allocate the integrator");
+        goto done;
+    }
+    double y[6], yprev[6], ytmp[6];
+    memcpy(y, y0, sizeof y);
+    double t = 0.0, h = 1e-3;
+    if ((rc = push_point(out, cap, cx, 0.0, y)) != DRAGARC_OK)
+        goto done;
+    observe(out, cx, y);
+    out->apex_height = y[2];
+    out->apex_time = 0.0;
+    long k = 1;
+    for (;;) {
+        double tprev = t;
+        memcpy(yprev, y, sizeof y);
+        int st = gsl_odeiv2_evolve_apply(ev, con, step, &sys, &t, s->solver.max_time, &h, y);
+        if (st != GSL_SUCCESS) {
+            if (cx->rhs_failed)
+                rc = dragarc_error_set(err, cx->rhs_err.code == DRAGARC_ERANGE ? DRAGARC_ERANGE : DRAGARC_ESOLVER,
+                                       cx->rhs_err.field, "at t = %.6g s: %s", t, cx->rhs_err.message);
+            else
+                rc = dragarc_error_set(err, DRAGARC_ESOLVER, "", "GSL odeiv2 rk8pd: %s at t = %.6g s", gsl_strerror(st), t);
+            goto done;
+        }
+        out->steps++;
+        if (out->steps > s->solver.max_steps) {
+            rc = dragarc_error_set(err, DRAGARC_ESOLVER, "solver.max_steps",
+                                   "GSL odeiv2 rk8pd: more than %ld steps by t = %.6g s; raise solver.max_steps or "
+                                   "loosen solver.rtol",
+                                   s->solver.max_steps, t);
+            goto done;
+        }
+        /* Events inside this step, in time order: leaving the atmosphere, the apex, the impact. */
+        double t_top = INFINITY, t_apex = INFINITY, t_hit = INFINITY;
+        double y_apex[6], y_hit[6], y_top[6];
+        const double zg = s->ground_elevation;
+        if (isfinite(cx->ceiling) && y[2] > cx->ceiling && yprev[2] <= cx->ceiling &&
+            rk_locate(part, &sys, tprev, yprev, tprev, yprev, t, y, 2, cx->ceiling, -1.0, &t_top, y_top) != 0)
+            goto partial_failed;
+        if (yprev[5] > 0.0 && y[5] <= 0.0 &&
+            rk_locate(part, &sys, tprev, yprev, tprev, yprev, t, y, 5, 0.0, 1.0, &t_apex, y_apex) != 0)
+            goto partial_failed;
+        /* The descent through the ground plane: from the apex when the step holds one (a long step may climb
+         * from the plane, or from below it, and come back down through it), else from the step's start. */
+        {
+            double ta = isfinite(t_apex) ? t_apex : tprev;
+            const double *ya = isfinite(t_apex) ? y_apex : yprev;
+            if (ya[2] > zg && y[2] <= zg &&
+                rk_locate(part, &sys, tprev, yprev, ta, ya, t, y, 2, zg, 1.0, &t_hit, y_hit) != 0)
+                goto partial_failed;
+        }
+        double t_stop = fmin(t, fmin(t_hit, t_top));
+        while (dt > 0.0 && k * dt < t_stop) {
+            if (out->npoints >= MAX_SAMPLES) {
+                rc = dragarc_error_set(err, DRAGARC_EINVAL, "dt",
+                                       "a sampling interval of %g s gives more than %d rows over this flight; use a "
+                                       "larger interval",
+                                       dt, MAX_SAMPLES);
+                goto done;
+            }
+            if (rk_partial(part, &sys, tprev, yprev, k * dt - tprev, ytmp) != GSL_SUCCESS)
+                goto partial_failed;
+            if ((rc = push_point(out, cap, cx, k * dt, ytmp)) != DRAGARC_OK)
+                goto done;
+            k++;
+        }
+        if (isfinite(t_top) && t_top <= fmin(t_hit, t_apex)) {
+            rc = dragarc_error_set(err, DRAGARC_ERANGE, "environment.atmosphere",
+                                   "at t = %.6g s the flight climbs above %g m altitude, the top of the U.S. Standard "
+                                   "Atmosphere 1976 model",
+                                   t_top, DRAGARC_ISA_Z_MAX);
+            goto done;
+        }
+        if (t_apex < t_hit) {
+            if (y_apex[2] > out->apex_height) {
+                out->apex_height = y_apex[2];
+                out->apex_time = t_apex;
+            }
+            if (y_apex[2] < s->ground_elevation) {
+                rc = dragarc_error_set(err, DRAGARC_ENOLAND, "ground.elevation",
+                                       "the flight peaks at %.6g m, below the ground plane at %g m, so it never comes "
+                                       "down onto it",
+                                       y_apex[2], s->ground_elevation);
+                goto done;
+            }
+        }
+        if (isfinite(t_hit)) {
+            observe(out, cx, y_hit);
+            memcpy(out->impact, y_hit, sizeof out->impact);
+            out->impact[2] = s->ground_elevation; /* the crossing is located to round-off */
+            if ((rc = push_point(out, cap, cx, t_hit, out->impact)) != DRAGARC_OK)
+                goto done;
+            *t_end = t_hit;
+            break;
+        }
+        observe(out, cx, y);
+        if (y[2] > out->apex_height) {
+            out->apex_height = y[2];
+            out->apex_time = t;
+        }
+        if (t >= s->solver.max_time) {
+            rc = dragarc_error_set(err, DRAGARC_ENOLAND, "solver.max_time",
+                                   "no ground impact within %g s (height %.6g m, still %.6g m above the ground); "
+                                   "raise solver.max_time or check buoyancy and wind",
+                                   s->solver.max_time, y[2], y[2] - s->ground_elevation);
+            goto done;
+        }
+    }
+    goto done;
+partial_failed:
+    rc = cx->rhs_failed ? dragarc_error_set(err, cx->rhs_err.code, cx->rhs_err.field, "%s", cx->rhs_err.message)
+                        : dragarc_error_set(err, DRAGARC_ESOLVER, "", "GSL odeiv2 rk8pd: a partial step failed");
+done:
+    if (ev)
+        gsl_odeiv2_evolve_free(ev);
+    if (con)
+        gsl_odeiv2_control_free(con);
+    if (part)
+        gsl_odeiv2_step_free(part);
+    if (step)
+        gsl_odeiv2_step_free(step);
+    return rc;
+}
+
+int dragarc_flight_run(const dragarc_scenario *s, double dt, dragarc_flight *out, dragarc_error *err)
+{
+    memset(out, 0, sizeof *out);
+    out->terminal_speed = out->vacuum_range = out->relaxation_time = NAN;
+    int rc = dragarc_scenario_check(s, err);
+    if (rc != DRAGARC_OK)
+        return rc;
+    if (!(dt >= 0.0 && isfinite(dt)))
+        return dragarc_error_set(err, DRAGARC_EINVAL, "dt", "sampling interval must be zero or positive (got %g)", dt);
+
+    flight_ctx c;
+    memset(&c, 0, sizeof c);
+    c.forces.projectile = &s->projectile;
+    c.forces.atmosphere = &s->atmosphere;
+    c.forces.wind = &s->wind;
+    c.forces.gravity = s->gravity;
+    c.forces.ground_elevation = s->ground_elevation;
+    c.ceiling = s->atmosphere.model == DRAGARC_ATMOSPHERE_ISA ? DRAGARC_ISA_Z_MAX - s->atmosphere.site_elevation : INFINITY;
+
+    double y0[6];
+    launch_state(s, y0);
+    out->launch_energy = 0.5 * s->projectile.mass * s->launch.speed * s->launch.speed;
+    out->vacuum_range = dragarc_vacuum_range(s);
+    rc = dragarc_terminal_speed(s, s->launch.height, &out->terminal_speed, err);
+    if (rc != DRAGARC_OK)
+        return rc;
+    out->relaxation_time = out->terminal_speed / s->gravity;
+
+    dragarc_method method = s->solver.method;
+    if (method == DRAGARC_METHOD_AUTO) {
+        method = DRAGARC_METHOD_RK8PD;
+        if (isfinite(out->terminal_speed)) {
+            double rise = y0[5] > 0.0 ? y0[5] * y0[5] / (2.0 * s->gravity) : 0.0;
+            double t_fall = (s->launch.height + rise - s->ground_elevation) / out->terminal_speed;
+            double t_est = fmax(vacuum_time(s), t_fall);
+            if (t_est > STIFF_RATIO * out->relaxation_time)
+                method = DRAGARC_METHOD_BDF;
+        }
+    }
+    out->method = method;
+    {
+        dragarc_air air;
+        if (dragarc_atmosphere_eval(&s->atmosphere, s->launch.height, &air, NULL) == DRAGARC_OK &&
+            s->projectile.volume > 0.0 && air.density > 0.01 * s->projectile.mass / s->projectile.volume)
+            out->notes |= DRAGARC_NOTE_DENSE_FLUID;
+    }
+
+    size_t cap = 0;
+    double t = 0.0;
+    if (method == DRAGARC_METHOD_RK8PD)
+        rc = integrate_rk(s, &c, dt, y0, out, &cap, &t, err);
+    else
+        rc = integrate_cvode(s, &c, method, dt, y0, out, &cap, &t, err);
+    if (rc != DRAGARC_OK)
+        return rc;
+    double ex = out->impact[0], ny = out->impact[1];
+    double az = s->launch.azimuth;
+    out->time_of_flight = t;
+    out->range = hypot(ex, ny);
+    out->downrange = ex * sin(az) + ny * cos(az);
+    out->crossrange = ex * cos(az) - ny * sin(az);
+    double vh = hypot(out->impact[3], out->impact[4]);
+    out->impact_speed = sqrt(vh * vh + out->impact[5] * out->impact[5]);
+    out->impact_angle = atan2(-out->impact[5], vh);
+    out->impact_energy = 0.5 * s->projectile.mass * out->impact_speed * out->impact_speed;
+    if (out->impact_energy >= 15.0)
+        out->notes |= DRAGARC_NOTE_HIGH_ENERGY;
+    return DRAGARC_OK;
 }
