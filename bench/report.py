@@ -48,8 +48,9 @@ def main():
              "reused across flights; ground impact found inside the last step by Illinois regula falsi on "
              "re-integration from the step's start, to 1e-9 s.")
     L.append("- *f-evals*: every call of `dragarc_forces_eval` during one flight, counted through a linker wrapper "
-             "(`--wrap`), the library unchanged. For dragarc this includes CVODE's right-hand sides, its "
-             "difference-quotient Jacobian columns (BDF), one diagnostic evaluation per accepted step (`observe`) "
+             "(`--wrap`), the library unchanged. For dragarc this includes the integrator's right-hand sides "
+             "(on the rk8pd path also the partial steps that locate the apex and the impact; on the CVODE paths the "
+             "difference-quotient Jacobian columns of BDF), one diagnostic evaluation per accepted step (`observe`) "
              "and the launch/impact rows; the terminal-speed solve at launch uses other calls and is not counted. "
              "For SciPy it is `nfev` of `solve_ivp` (event location uses the dense output, no extra evaluations).")
     L.append("- *Tolerances*: the same numbers mean different tests: CVODE bounds the weighted RMS norm of the "
@@ -82,8 +83,8 @@ def main():
         L.append("| solver | time per flight (µs) | vs dragarc | steps | f-evals | range (m) | range error |")
         L.append("|---|---:|---:|---:|---:|---:|---:|")
         td = d["seconds_per_flight"]
-        L.append("| dragarc (CVODE %s, its choice) | %s | 1 | %d | %d | %.9f | %s |" % (
-            d["method"], us(td), d["steps"], d["forces_evals"], d["range"], err(d["range"])))
+        L.append("| dragarc (%s %s, its choice) | %s | 1 | %d | %d | %.9f | %s |" % (
+            "GSL" if d["method"] == "rk8pd" else "CVODE", d["method"], us(td), d["steps"], d["forces_evals"], d["range"], err(d["range"])))
         fo = p["dragarc_forced"]
         L.append("| dragarc, %s forced | %s | %.2fx | %d | %d | %.9f | %s |" % (
             fo["method"], us(fo["seconds_per_flight"]), fo["seconds_per_flight"] / td, fo["steps"],
