@@ -217,6 +217,31 @@ static int cvode_failure(flight_ctx *c, int flag, double t, dragarc_error *err)
     return rc;
 }
 
+/* The errors both integrators report in the same words. */
+static int err_left_atmosphere(dragarc_error *err, double t)
+{
+    return dragarc_error_set(err, DRAGARC_ERANGE, "environment.atmosphere",
+                             "at t = %.6g s the flight climbs above %g m altitude, the top of the U.S. Standard "
+                             "Atmosphere 1976 model",
+                             t, DRAGARC_ISA_Z_MAX);
+}
+
+static int err_peaks_below(dragarc_error *err, double z_apex, double z_ground)
+{
+    return dragarc_error_set(err, DRAGARC_ENOLAND, "ground.elevation",
+                             "the flight peaks at %.6g m, below the ground plane at %g m, so it never comes down "
+                             "onto it",
+                             z_apex, z_ground);
+}
+
+static int err_no_impact(dragarc_error *err, const dragarc_scenario *s, double z)
+{
+    return dragarc_error_set(err, DRAGARC_ENOLAND, "solver.max_time",
+                             "no ground impact within %g s (height %.6g m, still %.6g m above the ground); raise "
+                             "solver.max_time or check buoyancy and wind",
+                             s->solver.max_time, z, z - s->ground_elevation);
+}
+
 /* Integrate with CVODE from y0 to impact, filling samples, apex, notes and steps; impact state in out->impact,
  * impact time in *t_end. */
 static int integrate_cvode(const dragarc_scenario *s, flight_ctx *cx, dragarc_method method, double dt,
@@ -322,10 +347,7 @@ static int integrate_cvode(const dragarc_scenario *s, flight_ctx *cx, dragarc_me
             int found[3] = {0, 0, 0};
             CVodeGetRootInfo(mem, found);
             if (found[2]) {
-                rc = dragarc_error_set(err, DRAGARC_ERANGE, "environment.atmosphere",
-                                       "at t = %.6g s the flight climbs above %g m altitude, the top of the U.S. "
-                                       "Standard Atmosphere 1976 model",
-                                       t, DRAGARC_ISA_Z_MAX);
+                rc = err_left_atmosphere(err, t);
                 goto done;
             }
             if (found[1] && yv[2] > out->apex_height) {
@@ -333,19 +355,13 @@ static int integrate_cvode(const dragarc_scenario *s, flight_ctx *cx, dragarc_me
                 out->apex_time = t;
             }
             if (found[1] && yv[2] < s->ground_elevation) {
-                rc = dragarc_error_set(err, DRAGARC_ENOLAND, "ground.elevation",
-                                       "the flight peaks at %.6g m, below the ground plane at %g m, so it never "
-                                       "comes down onto it",
-                                       yv[2], s->ground_elevation);
+                rc = err_peaks_below(err, yv[2], s->ground_elevation);
                 goto done;
             }
             if (found[0])
                 landed = 1;
         } else if (flag == CV_TSTOP_RETURN || t >= s->solver.max_time) {
-            rc = dragarc_error_set(err, DRAGARC_ENOLAND, "solver.max_time",
-                                   "no ground impact within %g s (height %.6g m, still %.6g m above the ground); "
-                                   "raise solver.max_time or check buoyancy and wind",
-                                   s->solver.max_time, yv[2], yv[2] - s->ground_elevation);
+            rc = err_no_impact(err, s, yv[2]);
             goto done;
         }
         if (!landed && yv[2] > out->apex_height) { /* a flight that climbs to the end of a step */
@@ -540,10 +556,7 @@ static int integrate_rk(const dragarc_scenario *s, flight_ctx *cx, double dt, co
             k++;
         }
         if (isfinite(t_top) && t_top <= fmin(t_hit, t_apex)) {
-            rc = dragarc_error_set(err, DRAGARC_ERANGE, "environment.atmosphere",
-                                   "at t = %.6g s the flight climbs above %g m altitude, the top of the U.S. Standard "
-                                   "Atmosphere 1976 model",
-                                   t_top, DRAGARC_ISA_Z_MAX);
+            rc = err_left_atmosphere(err, t_top);
             goto done;
         }
         if (t_apex < t_hit) {
@@ -552,10 +565,7 @@ static int integrate_rk(const dragarc_scenario *s, flight_ctx *cx, double dt, co
                 out->apex_time = t_apex;
             }
             if (y_apex[2] < s->ground_elevation) {
-                rc = dragarc_error_set(err, DRAGARC_ENOLAND, "ground.elevation",
-                                       "the flight peaks at %.6g m, below the ground plane at %g m, so it never comes "
-                                       "down onto it",
-                                       y_apex[2], s->ground_elevation);
+                rc = err_peaks_below(err, y_apex[2], s->ground_elevation);
                 goto done;
             }
         }
@@ -574,10 +584,7 @@ static int integrate_rk(const dragarc_scenario *s, flight_ctx *cx, double dt, co
             out->apex_time = t;
         }
         if (t >= s->solver.max_time) {
-            rc = dragarc_error_set(err, DRAGARC_ENOLAND, "solver.max_time",
-                                   "no ground impact within %g s (height %.6g m, still %.6g m above the ground); "
-                                   "raise solver.max_time or check buoyancy and wind",
-                                   s->solver.max_time, y[2], y[2] - s->ground_elevation);
+            rc = err_no_impact(err, s, y[2]);
             goto done;
         }
     }
