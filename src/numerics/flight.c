@@ -448,6 +448,9 @@ static int rk_locate(gsl_odeiv2_step *st, const gsl_odeiv2_system *sys, double t
     double a = ta, b = t1, fa = sign * (ya[k] - level), fb = sign * (y1[k] - level);
     memcpy(ystar, y1, 6 * sizeof *ystar);
     *tstar = t1;
+    /* Close enough when g is within 1e-12 of its change over the bracket: the crossing time is then known to
+     * about 1e-12 of the step, far inside the integration's own accuracy. */
+    const double gtol = 1e-12 * (fabs(fa) + fabs(fb));
     int side = 0;
     for (int it = 0; it < 100 && b - a > 1e-13 * fmax(1.0, fabs(b)); it++) {
         double m = b - fb * (b - a) / (fb - fa);
@@ -457,6 +460,11 @@ static int rk_locate(gsl_odeiv2_step *st, const gsl_odeiv2_system *sys, double t
         if (rk_partial(st, sys, t0, y0, m - t0, ym) != GSL_SUCCESS)
             return -1;
         double fm = sign * (ym[k] - level);
+        if (fabs(fm) <= gtol) {
+            memcpy(ystar, ym, 6 * sizeof *ystar);
+            *tstar = m;
+            break;
+        }
         if (fm > 0.0) {
             a = m, fa = fm;
             if (side == -1)

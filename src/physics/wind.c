@@ -71,6 +71,10 @@ void dragarc_wind_eval(const dragarc_wind *w, double h, double out[3])
         speed = h > w->roughness ? w->speed * log(h / w->roughness) / log(w->ref_height / w->roughness) : 0.0;
         break;
     }
+    if (speed == 0.0) { /* still air: no trigonometry on the hot path */
+        out[0] = out[1] = out[2] = 0.0;
+        return;
+    }
     double e, n;
     dragarc_wind_toward(from, &e, &n);
     out[0] = speed * e;

@@ -134,6 +134,30 @@ TEST(exponential_atmosphere_falls_by_e_per_scale_height)
     CHECK_REL(a.density, 1.2 / exp(1.0), 1e-14);
 }
 
+TEST(stored_base_pressures_follow_from_the_layer_formulas)
+{
+    /* The standard's eqs. 33a/33b carried up from p0 = 101325 Pa with g0 M0 / R* (section 1.3), evaluated
+     * here independently; the library stores the results. Table 4 of the standard prints them to 7 figures:
+     * 22632.06, 5474.889, 868.0187, 110.9063, 66.93887, 3.956420 Pa (recalled, except 22632.1 verified). */
+    const double hb[] = {0, 11000, 20000, 32000, 47000, 51000, 71000};
+    const double tb[] = {288.15, 216.65, 216.65, 228.65, 270.65, 270.65, 214.65};
+    const double lb[] = {-0.0065, 0, 0.001, 0.0028, 0, -0.0028, -0.002};
+    const double table4[] = {101325.0, 22632.06, 5474.889, 868.0187, 110.9063, 66.93887, 3.956420};
+    const double gmr = 9.80665 * 28.9644 / 8314.32;
+    double p = 101325.0;
+    for (int i = 0; i < 7; i++) {
+        double z = DRAGARC_ISA_R_EARTH * hb[i] / (DRAGARC_ISA_R_EARTH - hb[i]); /* geometric altitude of the base */
+        dragarc_air a;
+        CHECK(dragarc_isa_eval(z, 0.0, &a, NULL) == DRAGARC_OK);
+        CHECK_REL(a.pressure, p, 1e-12);
+        CHECK_REL(p, table4[i], 5e-7);
+        if (i < 6) {
+            double dh = hb[i + 1] - hb[i];
+            p = lb[i] == 0.0 ? p * exp(-gmr * dh / tb[i]) : p * pow(tb[i] / (tb[i] + lb[i] * dh), gmr / lb[i]);
+        }
+    }
+}
+
 int main(void)
 {
     RUN(isa_matches_1976_table_at_levels_through_every_layer);
@@ -142,6 +166,7 @@ int main(void)
     RUN(isa_below_sea_level_extends_the_first_layer_to_minus_5_km);
     RUN(isa_temperature_offset_keeps_pressure_and_lowers_density);
     RUN(isa_refuses_altitudes_outside_the_standard);
+    RUN(stored_base_pressures_follow_from_the_layer_formulas);
     RUN(site_elevation_shifts_the_local_datum);
     RUN(exponential_atmosphere_falls_by_e_per_scale_height);
     return check_summary();
