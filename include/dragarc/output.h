@@ -44,6 +44,14 @@ void dragarc_output_abort(dragarc_output *o);
  * buf (32 bytes suffice); "" for a value that is not finite. The number form of every CSV and JSON table. */
 void dragarc_number_format(char *buf, size_t size, double v);
 
+/* The same number written to fp ("" when not finite); as a JSON value (null when not finite). */
+void dragarc_number_write(FILE *fp, double v);
+void dragarc_json_number(FILE *fp, double v);
+/* A CSV field (quoted, quotes doubled, when it holds a comma, a quote or a line break; line breaks become
+ * spaces), and a JSON string with its quotes and escapes. */
+void dragarc_csv_text(FILE *fp, const char *s);
+void dragarc_json_text(FILE *fp, const char *s);
+
 /* Print text after `prefix`, wrapped at `width` columns, continuation lines indented by `indent`. */
 void dragarc_text_wrap(FILE *fp, const char *prefix, int indent, int width, const char *text);
 

@@ -43,31 +43,6 @@ static double value_of(const dragarc_aim_solution *q, int c)
     }
 }
 
-static void put_exact(FILE *fp, double v)
-{
-    char buf[40];
-    dragarc_number_format(buf, sizeof buf, v);
-    fputs(buf, fp);
-}
-
-static void put_text(FILE *fp, const char *s, int csv)
-{
-    if (csv && !strpbrk(s, ",\"\r\n")) {
-        fputs(s, fp);
-        return;
-    }
-    fputc('"', fp);
-    for (; *s; s++) {
-        if (*s == '"')
-            fputs(csv ? "\"\"" : "\\\"", fp);
-        else if (*s == '\\' && !csv)
-            fputs("\\\\", fp);
-        else
-            fputc(*s == '\r' || *s == '\n' ? ' ' : *s, fp);
-    }
-    fputc('"', fp);
-}
-
 static unsigned all_notes(const dragarc_aim_table_row *rows, size_t n)
 {
     unsigned notes = 0;
@@ -94,45 +69,37 @@ static void write_csv(FILE *fp, const dragarc_aim_table_row *rows, size_t n)
     fputs(",max_range_m,max_range_elevation_deg,status,message\n", fp);
     for (size_t i = 0; i < n; i++) {
         const dragarc_aim_table_row *r = &rows[i];
-        put_exact(fp, r->range);
+        dragarc_number_write(fp, r->range);
         for (int b = 0; b < 2; b++)
             for (int c = 0; c < NCOLS; c++) {
                 fputc(',', fp);
-                put_exact(fp, value_of(b ? &r->high : &r->low, c));
+                dragarc_number_write(fp, value_of(b ? &r->high : &r->low, c));
             }
         fputc(',', fp);
-        put_exact(fp, r->max_range);
+        dragarc_number_write(fp, r->max_range);
         fputc(',', fp);
-        put_exact(fp, r->max_range_elevation / DRAGARC_DEG);
+        dragarc_number_write(fp, r->max_range_elevation / DRAGARC_DEG);
         fprintf(fp, ",%s,", status_word(r->status));
-        put_text(fp, r->message, 1);
+        dragarc_csv_text(fp, r->message);
         fputc('\n', fp);
     }
-}
-
-static void json_number(FILE *fp, double v)
-{
-    if (isfinite(v))
-        put_exact(fp, v);
-    else
-        fputs("null", fp);
 }
 
 static void write_json(FILE *fp, const char *scenario, double height, const dragarc_aim_table_row *rows, size_t n)
 {
     fputs("{\n  \"scenario\": ", fp);
-    put_text(fp, scenario, 0);
+    dragarc_json_text(fp, scenario);
     fputs(",\n  \"dragarc_version\": \"" DRAGARC_VERSION_STRING "\",\n  \"target_height\": ", fp);
-    json_number(fp, height);
+    dragarc_json_number(fp, height);
     fputs(",\n  \"rows\": [", fp);
     for (size_t i = 0; i < n; i++) {
         const dragarc_aim_table_row *r = &rows[i];
         fprintf(fp, "%s\n    {\"range\": ", i ? "," : "");
-        json_number(fp, r->range);
+        dragarc_json_number(fp, r->range);
         fprintf(fp, ", \"status\": \"%s\"", status_word(r->status));
         if (r->status != DRAGARC_OK) {
             fputs(", \"message\": ", fp);
-            put_text(fp, r->message, 0);
+            dragarc_json_text(fp, r->message);
         }
         for (int b = 0; b < 2; b++) {
             const dragarc_aim_solution *q = b ? &r->high : &r->low;
@@ -143,14 +110,14 @@ static void write_json(FILE *fp, const char *scenario, double height, const drag
             }
             for (int c = 0; c < NCOLS; c++) {
                 fprintf(fp, "%s\"%s\": ", c ? ", " : "{", COLS[c].name);
-                json_number(fp, value_of(q, c));
+                dragarc_json_number(fp, value_of(q, c));
             }
             fputc('}', fp);
         }
         fputs(", \"max_range\": ", fp);
-        json_number(fp, r->max_range);
+        dragarc_json_number(fp, r->max_range);
         fputs(", \"max_range_elevation\": ", fp);
-        json_number(fp, r->max_range_elevation / DRAGARC_DEG);
+        dragarc_json_number(fp, r->max_range_elevation / DRAGARC_DEG);
         fputc('}', fp);
     }
     fputs("\n  ],\n  \"units\": {\"range\": \"m\", \"target_height\": \"m\", \"max_range\": \"m\", "
@@ -163,7 +130,7 @@ static void write_json(FILE *fp, const char *scenario, double height, const drag
     size_t nc = dragarc_cautions_notes(all_notes(rows, n), cautions, 8);
     for (size_t i = 0; i < nc; i++) {
         fputs(i ? ",\n    " : "\n    ", fp);
-        put_text(fp, cautions[i], 0);
+        dragarc_json_text(fp, cautions[i]);
     }
     fputs("\n  ]\n}\n", fp);
 }

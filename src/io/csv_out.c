@@ -6,13 +6,6 @@
 
 #include "dragarc/output.h"
 
-static void put_num(FILE *fp, double v)
-{
-    char buf[40];
-    dragarc_number_format(buf, sizeof buf, v); /* an empty cell for NaN or inf */
-    fputs(buf, fp);
-}
-
 int dragarc_flight_write_csv(FILE *fp, const dragarc_flight *f, dragarc_error *err)
 {
     fputs("t,x,y,z,vx,vy,vz,speed,mach,reynolds\n", fp);
@@ -22,7 +15,7 @@ int dragarc_flight_write_csv(FILE *fp, const dragarc_flight *f, dragarc_error *e
         for (int k = 0; k < 10; k++) {
             if (k)
                 fputc(',', fp);
-            put_num(fp, v[k]);
+            dragarc_number_write(fp, v[k]); /* an empty cell for NaN or inf */
         }
         fputc('\n', fp);
     }

@@ -170,7 +170,7 @@ static int write_status(FILE *fp, dragarc_error *err)
     return DRAGARC_OK;
 }
 
-static void put_num(FILE *fp, double v)
+void dragarc_number_write(FILE *fp, double v)
 {
     char buf[40];
     dragarc_number_format(buf, sizeof buf, v);
@@ -185,7 +185,7 @@ static const char *status_word(const dragarc_sweep_row *r)
 /* ---- CSV ------------------------------------------------------------------------------------------ */
 
 /* A CSV field, quoted (with doubled quotes) when it holds a comma, a quote or a line break. */
-static void csv_text(FILE *fp, const char *s)
+void dragarc_csv_text(FILE *fp, const char *s)
 {
     if (!strpbrk(s, ",\"\r\n")) {
         fputs(s, fp);
@@ -214,17 +214,17 @@ int dragarc_sweep_write_csv(FILE *fp, const dragarc_sweep *t, dragarc_error *err
     for (size_t i = 0; i < t->nrows; i++) {
         const dragarc_sweep_row *r = &t->rows[i];
         for (size_t k = 0; k < t->naxes; k++) {
-            put_num(fp, r->values[k]);
+            dragarc_number_write(fp, r->values[k]);
             fputc(',', fp);
         }
         for (int c = 0; c < NC; c++) {
-            put_num(fp, dragarc_sweep_column_value(r, c));
+            dragarc_number_write(fp, dragarc_sweep_column_value(r, c));
             fputc(',', fp);
         }
         dragarc_sweep_row_message(r, msg, sizeof msg);
-        csv_text(fp, status_word(r));
+        dragarc_csv_text(fp, status_word(r));
         fputc(',', fp);
-        csv_text(fp, msg);
+        dragarc_csv_text(fp, msg);
         fputc('\n', fp);
     }
     return write_status(fp, err);
@@ -232,7 +232,7 @@ int dragarc_sweep_write_csv(FILE *fp, const dragarc_sweep *t, dragarc_error *err
 
 /* ---- JSON ----------------------------------------------------------------------------------------- */
 
-static void json_text(FILE *fp, const char *s)
+void dragarc_json_text(FILE *fp, const char *s)
 {
     fputc('"', fp);
     for (const unsigned char *p = (const unsigned char *)s; *p; p++) {
@@ -246,10 +246,10 @@ static void json_text(FILE *fp, const char *s)
     fputc('"', fp);
 }
 
-static void json_num(FILE *fp, double v)
+void dragarc_json_number(FILE *fp, double v)
 {
     if (isfinite(v))
-        put_num(fp, v);
+        dragarc_number_write(fp, v);
     else
         fputs("null", fp);
 }
@@ -257,17 +257,17 @@ static void json_num(FILE *fp, double v)
 int dragarc_sweep_write_json(FILE *fp, const dragarc_sweep *t, dragarc_error *err)
 {
     fputs("{\n  \"scenario\": ", fp);
-    json_text(fp, t->scenario);
+    dragarc_json_text(fp, t->scenario);
     fputs(",\n  \"dragarc_version\": \"" DRAGARC_VERSION_STRING "\",\n  \"varied\": [", fp);
     for (size_t k = 0; k < t->naxes; k++) {
         const dragarc_sweep_axis *a = &t->axes[k];
         fprintf(fp, "%s\n    {\"name\": \"%s\", \"alias\": \"%s\", \"unit\": \"%s\", \"start\": ", k ? "," : "",
                 a->param->path, a->param->alias, a->param->unit);
-        json_num(fp, a->start);
+        dragarc_json_number(fp, a->start);
         fputs(", \"stop\": ", fp);
-        json_num(fp, a->stop);
+        dragarc_json_number(fp, a->stop);
         fputs(", \"step\": ", fp);
-        json_num(fp, a->step);
+        dragarc_json_number(fp, a->step);
         fprintf(fp, ", \"count\": %zu}", a->count);
     }
     fputs("\n  ],\n  \"rows\": [", fp);
@@ -276,20 +276,20 @@ int dragarc_sweep_write_json(FILE *fp, const dragarc_sweep *t, dragarc_error *er
         fputs(i ? ",\n    {" : "\n    {", fp);
         for (size_t k = 0; k < t->naxes; k++) {
             fprintf(fp, "\"%s\": ", t->axes[k].param->path);
-            json_num(fp, r->values[k]);
+            dragarc_json_number(fp, r->values[k]);
             fputs(", ", fp);
         }
         fputs("\"status\": ", fp);
-        json_text(fp, status_word(r));
+        dragarc_json_text(fp, status_word(r));
         for (int c = 0; c < NC; c++) {
             fprintf(fp, ", \"%s\": ", COLUMNS[c].key);
-            json_num(fp, dragarc_sweep_column_value(r, c));
+            dragarc_json_number(fp, dragarc_sweep_column_value(r, c));
         }
         if (r->status != DRAGARC_OK) {
             fputs(", \"error\": {\"field\": ", fp);
-            json_text(fp, r->error ? r->error->field : "");
+            dragarc_json_text(fp, r->error ? r->error->field : "");
             fputs(", \"message\": ", fp);
-            json_text(fp, r->error ? r->error->message : dragarc_status_name(r->status));
+            dragarc_json_text(fp, r->error ? r->error->message : dragarc_status_name(r->status));
             fputc('}', fp);
         }
         fputc('}', fp);
@@ -304,7 +304,7 @@ int dragarc_sweep_write_json(FILE *fp, const dragarc_sweep *t, dragarc_error *er
     size_t nc = dragarc_cautions_notes(t->notes, cautions, 8);
     for (size_t i = 0; i < nc; i++) {
         fputs(i ? ",\n    " : "\n    ", fp);
-        json_text(fp, cautions[i]);
+        dragarc_json_text(fp, cautions[i]);
     }
     fputs("\n  ]\n}\n", fp);
     return write_status(fp, err);
@@ -352,7 +352,7 @@ int dragarc_sweep_write_markdown(FILE *fp, const dragarc_sweep *t, dragarc_error
         fputc('|', fp);
         for (size_t k = 0; k < t->naxes; k++) {
             fputc(' ', fp);
-            put_num(fp, r->values[k]);
+            dragarc_number_write(fp, r->values[k]);
             fputs(" |", fp);
         }
         for (int c = 0; c < NC; c++) {
