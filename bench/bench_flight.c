@@ -219,7 +219,7 @@ static int ref_solver_init(ref_solver *r, ref_method m, const dragarc_scenario *
 {
     memset(r, 0, sizeof *r);
     r->method = m;
-    r->ctx.forces = (dragarc_forces){&s->projectile, &s->atmosphere, &s->wind, s->gravity, s->ground_elevation};
+    dragarc_forces_init(&r->ctx.forces, &s->projectile, &s->atmosphere, &s->wind, s->gravity, s->ground_elevation);
     r->sys = (gsl_odeiv2_system){ref_rhs, ref_jac, 6, &r->ctx};
     r->rtol = rtol;
     r->atol = atol;
@@ -410,7 +410,7 @@ static void json_problem(FILE *fp, const problem *p)
         double lo = pr->drag.u[0], hi = pr->drag.u[pr->drag.npoints - 1];
         for (int i = 0; i <= 40; i++) {
             double u = lo - 0.1 * (hi - lo) + 1.2 * (hi - lo) * i / 40.0;
-            double x = pr->drag.axis == DRAGARC_AXIS_REYNOLDS ? pow(10.0, u) : fmax(u, 0.0);
+            double x = pr->drag.axis == DRAGARC_AXIS_REYNOLDS ? exp(u) : fmax(u, 0.0);
             double cd = dragarc_drag_cd(&pr->drag, x, x, x);
             fprintf(fp, "%s[%.17g, %.17g]", i ? ", " : "", x, cd);
         }

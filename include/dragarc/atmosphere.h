@@ -10,6 +10,8 @@
 #ifndef DRAGARC_ATMOSPHERE_H
 #define DRAGARC_ATMOSPHERE_H
 
+#include <stddef.h>
+
 #include "dragarc/dragarc.h"
 
 #ifdef __cplusplus
@@ -74,6 +76,11 @@ int dragarc_atmosphere_eval(const dragarc_atmosphere *atm, double z, dragarc_air
 
 /* Check the fields of an atmosphere; on failure err->field names the bad field relative to the
  * atmosphere object ("density", "scale_height", ...). */
+/* Heights z above the site datum (m) where the model's temperature gradient jumps (the ISA's layer bases,
+ * and the 0.5 km rows of its molecular-weight table above 80 km): the equations of motion are smooth
+ * between them, not across. Writes at most max, returns how many there are; none for the other models. */
+size_t dragarc_atmosphere_breaks(const dragarc_atmosphere *atm, double *out, size_t max);
+
 int dragarc_atmosphere_check(const dragarc_atmosphere *atm, dragarc_error *err);
 
 #ifdef __cplusplus

@@ -34,7 +34,7 @@ typedef enum dragarc_drag_model {
 } dragarc_drag_model;
 
 typedef enum dragarc_drag_axis {
-    DRAGARC_AXIS_REYNOLDS = 0, /* interpolated in log10(Re) */
+    DRAGARC_AXIS_REYNOLDS = 0, /* interpolated in log(Re) */
     DRAGARC_AXIS_MACH,         /* interpolated in Mach number */
     DRAGARC_AXIS_SPEED         /* interpolated in air-relative speed, m/s */
 } dragarc_drag_axis;
@@ -49,7 +49,7 @@ typedef struct dragarc_drag {
     dragarc_drag_axis axis;
     size_t npoints;
     double *x;    /* table abscissae as given (Re, Mach or m/s), strictly increasing */
-    double *u;    /* interpolation abscissae: log10(x) for Reynolds, x otherwise */
+    double *u;    /* interpolation abscissae: ln(x) for Reynolds, x otherwise */
     double *y;    /* Cd values */
     void *interp; /* gsl_interp *, owned */
 } dragarc_drag;

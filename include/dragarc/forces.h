@@ -17,13 +17,16 @@
 extern "C" {
 #endif
 
-/* What the right-hand side needs; borrows every pointer. */
+/* What the right-hand side needs; borrows every pointer. Set it up with dragarc_forces_init, or set the
+ * fields and leave `prepared` zero (then what init works out once is worked out on every call). */
 typedef struct dragarc_forces {
     const dragarc_projectile *projectile;
     const dragarc_atmosphere *atmosphere;
     const dragarc_wind *wind;
     double gravity;          /* m/s^2 */
     double ground_elevation; /* m above the datum: wind heights are measured from here */
+    int prepared;            /* wind_toward is valid for wind->from */
+    double wind_toward[2];   /* unit vector (east, north) the wind blows toward */
 } dragarc_forces;
 
 /* What the right-hand side saw at one state, for diagnostics and output. */
@@ -35,6 +38,10 @@ typedef struct dragarc_flow {
     double reynolds;
     double drag_factor; /* kg/s */
 } dragarc_flow;
+
+/* Borrow the parts and work out once what every evaluation would repeat; call again after changing any. */
+void dragarc_forces_init(dragarc_forces *f, const dragarc_projectile *projectile, const dragarc_atmosphere *atmosphere,
+                         const dragarc_wind *wind, double gravity, double ground_elevation);
 
 /* dy/dt at state y (6 values) into dydt (6 values); fills *flow if not NULL. Returns DRAGARC_OK, or
  * the atmosphere's error (e.g. DRAGARC_ERANGE above 86 km) with err filled. Pure: no I/O, no state. */

@@ -64,6 +64,14 @@ void dragarc_wind_clear(dragarc_wind *wind);
 /* Wind velocity (m/s, out[0] east, out[1] north, out[2] = 0) at height h (m) above ground. */
 void dragarc_wind_eval(const dragarc_wind *wind, double h, double out[3]);
 
+/* The same with toward = the unit vector of dragarc_wind_toward(wind->from) worked out beforehand (used by
+ * every model but layered, whose direction changes with height; NULL: work it out here). */
+void dragarc_wind_eval_toward(const dragarc_wind *wind, double h, const double toward[2], double out[3]);
+
+/* Heights above ground (m) where the profile's slope jumps: every row of a layered wind, the ground for
+ * the power law, the roughness length for the log law. Writes at most max, returns how many there are. */
+size_t dragarc_wind_breaks(const dragarc_wind *wind, double *out, size_t max);
+
 /* Unit vector (east, north) toward which a wind `from` (rad) blows. */
 void dragarc_wind_toward(double from, double *east, double *north);
 

@@ -39,12 +39,24 @@ int dragarc_terminal_speed(const dragarc_scenario *s, double z, double *vt, drag
     if (b.air.density == 0.0 && s->projectile.drag.model != DRAGARC_DRAG_LINEAR &&
         s->projectile.drag.model != DRAGARC_DRAG_QUADRATIC)
         return DRAGARC_OK; /* vacuum: nothing holds the body back */
-    double lo = 0.0, hi = 1e-6;
-    while (imbalance(hi, &b) < 0.0) {
-        lo = hi;
-        hi *= 1.2;
-        if (hi > 1e7)
-            return DRAGARC_OK; /* no balance below 10,000 km/s: treat as none */
+    /* Bracket by factors of 4 from 1 m/s, down or up: drag times speed grows with speed in every law here,
+     * so the balance lies between the last speed short of the weight and the first past it. */
+    double lo = 0.0, hi = 1.0;
+    if (imbalance(hi, &b) < 0.0) {
+        do {
+            lo = hi;
+            hi *= 4.0;
+            if (hi > 1e7)
+                return DRAGARC_OK; /* no balance below 10,000 km/s: treat as none */
+        } while (imbalance(hi, &b) < 0.0);
+    } else {
+        lo = 0.25;
+        while (lo > 1e-12 && imbalance(lo, &b) >= 0.0) {
+            hi = lo;
+            lo *= 0.25;
+        }
+        if (lo <= 1e-12)
+            lo = 0.0;
     }
     gsl_function fn = {imbalance, &b};
     gsl_root_fsolver *solver = gsl_root_fsolver_alloc(gsl_root_fsolver_brent);

@@ -30,21 +30,24 @@
 #define SUTH_BETA 1.458e-6
 #define SUTH_S 110.4
 
+#define GMR (DRAGARC_ISA_G0 * M0 / R_STAR) /* K/m' */
+
 typedef struct layer {
     double h;     /* m', geopotential base */
     double t;     /* K, base temperature */
     double lapse; /* K/m' */
     double p;     /* Pa, base pressure */
+    double expo;  /* g0 M0 / (R* L_b), the exponent of eq. 33a (0 for isothermal layers) */
 } layer;
 
 static const layer LAYERS[] = {
-    {0.0, 288.15, -0.0065, 101325.0},
-    {11000.0, 216.65, 0.0, 22632.063973462911},
-    {20000.0, 216.65, 0.001, 5474.8886696777745},
-    {32000.0, 228.65, 0.0028, 868.01868475522792},
-    {47000.0, 270.65, 0.0, 110.90630555496608},
-    {51000.0, 270.65, -0.0028, 66.938873118687383},
-    {71000.0, 214.65, -0.002, 3.9564204280407318},
+    {0.0, 288.15, -0.0065, 101325.0, GMR / -0.0065},
+    {11000.0, 216.65, 0.0, 22632.063973462911, 0.0},
+    {20000.0, 216.65, 0.001, 5474.8886696777745, GMR / 0.001},
+    {32000.0, 228.65, 0.0028, 868.01868475522792, GMR / 0.0028},
+    {47000.0, 270.65, 0.0, 110.90630555496608, 0.0},
+    {51000.0, 270.65, -0.0028, 66.938873118687383, GMR / -0.0028},
+    {71000.0, 214.65, -0.002, 3.9564204280407318, GMR / -0.002},
 };
 #define NLAYERS (sizeof LAYERS / sizeof LAYERS[0])
 #define H_TOP 84852.0
@@ -52,11 +55,10 @@ static const layer LAYERS[] = {
 /* Pressure at geopotential H (m') within layer i whose base pressure is pb. */
 static double layer_pressure(const layer *l, double pb, double h)
 {
-    const double gmr = DRAGARC_ISA_G0 * M0 / R_STAR; /* K/m' */
     if (l->lapse == 0.0)
-        return pb * exp(-gmr * (h - l->h) / l->t);
+        return pb * exp(-GMR * (h - l->h) / l->t);
     double t = l->t + l->lapse * (h - l->h);
-    return pb * pow(l->t / t, gmr / l->lapse);
+    return pb * pow(l->t / t, l->expo);
 }
 
 double dragarc_isa_geopotential(double z) { return DRAGARC_ISA_R_EARTH * z / (DRAGARC_ISA_R_EARTH + z); }
@@ -112,6 +114,20 @@ int dragarc_isa_eval(double z, double temperature_offset, dragarc_air *out, drag
     out->speed_of_sound = air_sound_speed(tm);
     out->viscosity = dragarc_air_viscosity(t);
     return DRAGARC_OK;
+}
+
+size_t dragarc_atmosphere_breaks(const dragarc_atmosphere *atm, double *out, size_t max)
+{
+    if (atm->model != DRAGARC_ATMOSPHERE_ISA)
+        return 0;
+    size_t n = 0;
+    for (size_t i = 1; i < NLAYERS; i++, n++) /* geometric altitude of each geopotential base */
+        if (n < max)
+            out[n] = DRAGARC_ISA_R_EARTH * LAYERS[i].h / (DRAGARC_ISA_R_EARTH - LAYERS[i].h) - atm->site_elevation;
+    for (int k = 0; k <= 12; k++, n++)
+        if (n < max)
+            out[n] = 80000.0 + 500.0 * k - atm->site_elevation;
+    return n;
 }
 
 void dragarc_atmosphere_default(dragarc_atmosphere *atm)

@@ -17,9 +17,11 @@
  * Re = 4e5). The fit has a small step at Re = 4e5 (0.089 -> 0.070), as published.
  * To stay finite at Re -> 0 the code works with Cd Re / 24, so that D = (A mu / (2 d)) 24 (Cd Re / 24).
  *
- * Tables: Cd against Reynolds number (interpolated in log10 Re), Mach number or airspeed, with GSL's
+ * Tables: Cd against Reynolds number (interpolated in log Re), Mach number or airspeed, with GSL's
  * Steffen interpolation (Steffen 1990, Astron. Astrophys. 239:443: monotone between points, so no
- * spurious overshoot), linear for two points, clamped beyond the ends.
+ * spurious overshoot), linear for two points, clamped beyond the ends. The abscissa is the natural
+ * logarithm, which is cheaper than log10 and gives the same curve: Steffen's cubic does not change when
+ * the abscissa is scaled by a constant.
  */
 #include <math.h>
 #include <stdio.h>
@@ -68,20 +70,22 @@ double dragarc_sphere_cd_re24(double re)
 {
     if (re <= 0.01)
         return 1.0 + 3.0 / 16.0 * re / 24.0;
-    double w = log10(re);
+    /* One logarithm and one exponential per call: Re^a = exp(a ln Re), 10^q = exp(q ln 10). */
+    const double ln10 = 2.30258509299404568402;
+    double lnre = log(re), w = lnre / ln10;
     if (re <= 20.0)
-        return 1.0 + 0.1315 * pow(re, 0.82 - 0.05 * w);
+        return 1.0 + 0.1315 * exp((0.82 - 0.05 * w) * lnre);
     if (re <= 260.0)
-        return 1.0 + 0.1935 * pow(re, 0.6305);
+        return 1.0 + 0.1935 * exp(0.6305 * lnre);
     double cd;
     if (re <= 1.5e3)
-        cd = pow(10.0, 1.6435 - 1.1242 * w + 0.1558 * w * w);
+        cd = exp(ln10 * (1.6435 - 1.1242 * w + 0.1558 * w * w));
     else if (re <= 1.2e4)
-        cd = pow(10.0, -2.4571 + w * (2.5558 + w * (-0.9295 + w * 0.1049)));
+        cd = exp(ln10 * (-2.4571 + w * (2.5558 + w * (-0.9295 + w * 0.1049))));
     else if (re <= 4.4e4)
-        cd = pow(10.0, -1.9181 + 0.6370 * w - 0.0636 * w * w);
+        cd = exp(ln10 * (-1.9181 + 0.6370 * w - 0.0636 * w * w));
     else if (re <= 3.38e5)
-        cd = pow(10.0, -4.3390 + 1.5809 * w - 0.1546 * w * w);
+        cd = exp(ln10 * (-4.3390 + 1.5809 * w - 0.1546 * w * w));
     else if (re <= 4e5)
         cd = 29.78 - 5.3 * w;
     else if (re <= 1e6)
@@ -100,7 +104,7 @@ double dragarc_sphere_cd(double re)
 
 static double table_cd(const dragarc_drag *d, double x)
 {
-    double u = d->axis == DRAGARC_AXIS_REYNOLDS ? (x > 0.0 ? log10(x) : -INFINITY) : x;
+    double u = d->axis == DRAGARC_AXIS_REYNOLDS ? (x > 0.0 ? log(x) : -INFINITY) : x;
     if (u <= d->u[0])
         return d->y[0];
     if (u >= d->u[d->npoints - 1])
@@ -182,7 +186,7 @@ int dragarc_drag_table_set(dragarc_drag *d, dragarc_drag_axis axis, const double
         goto fail_nomem;
     for (size_t i = 0; i < n; i++) {
         xs[i] = x[i];
-        us[i] = axis == DRAGARC_AXIS_REYNOLDS ? log10(x[i]) : x[i];
+        us[i] = axis == DRAGARC_AXIS_REYNOLDS ? log(x[i]) : x[i];
         ys[i] = y[i];
     }
     for (size_t i = 1; i < n; i++)

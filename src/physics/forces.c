@@ -10,6 +10,18 @@
 
 #include "dragarc/forces.h"
 
+void dragarc_forces_init(dragarc_forces *f, const dragarc_projectile *projectile, const dragarc_atmosphere *atmosphere,
+                         const dragarc_wind *wind, double gravity, double ground_elevation)
+{
+    f->projectile = projectile;
+    f->atmosphere = atmosphere;
+    f->wind = wind;
+    f->gravity = gravity;
+    f->ground_elevation = ground_elevation;
+    dragarc_wind_toward(wind->from, &f->wind_toward[0], &f->wind_toward[1]);
+    f->prepared = 1;
+}
+
 int dragarc_forces_eval(const dragarc_forces *f, const double y[6], double dydt[6], dragarc_flow *flow,
                         dragarc_error *err)
 {
@@ -19,7 +31,7 @@ int dragarc_forces_eval(const dragarc_forces *f, const double y[6], double dydt[
     if (rc != DRAGARC_OK)
         return rc;
     double w[3];
-    dragarc_wind_eval(f->wind, y[2] - f->ground_elevation, w);
+    dragarc_wind_eval_toward(f->wind, y[2] - f->ground_elevation, f->prepared ? f->wind_toward : NULL, w);
     double rel[3] = {y[3] - w[0], y[4] - w[1], y[5] - w[2]};
     double speed = sqrt(rel[0] * rel[0] + rel[1] * rel[1] + rel[2] * rel[2]);
     double dfac = dragarc_drag_factor(&p->drag, speed, &air, p->diameter, p->area);

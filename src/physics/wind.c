@@ -54,12 +54,19 @@ static double layered_speed_dir(const dragarc_wind *w, double h, double *from)
             hi = mid;
     }
     double s = (h - l[lo].height) / (l[hi].height - l[lo].height);
-    double d = remainder(l[hi].from - l[lo].from, 2.0 * DRAGARC_PI); /* shorter arc, in [-pi, pi] */
+    double d = l[hi].from - l[lo].from; /* shorter arc, in [-pi, pi] (remainder leaves |d| <= pi as it is) */
+    if (fabs(d) > DRAGARC_PI)
+        d = remainder(d, 2.0 * DRAGARC_PI);
     *from = l[lo].from + s * d;
     return l[lo].speed + s * (l[hi].speed - l[lo].speed);
 }
 
 void dragarc_wind_eval(const dragarc_wind *w, double h, double out[3])
+{
+    dragarc_wind_eval_toward(w, h, NULL, out);
+}
+
+void dragarc_wind_eval_toward(const dragarc_wind *w, double h, const double toward[2], double out[3])
 {
     double speed = 0.0, from = w->from;
     switch (w->model) {
@@ -76,10 +83,32 @@ void dragarc_wind_eval(const dragarc_wind *w, double h, double out[3])
         return;
     }
     double e, n;
-    dragarc_wind_toward(from, &e, &n);
+    if (toward && w->model != DRAGARC_WIND_LAYERED)
+        e = toward[0], n = toward[1];
+    else
+        dragarc_wind_toward(from, &e, &n);
     out[0] = speed * e;
     out[1] = speed * n;
     out[2] = 0.0;
+}
+
+size_t dragarc_wind_breaks(const dragarc_wind *w, double *out, size_t max)
+{
+    switch (w->model) {
+    case DRAGARC_WIND_LAYERED:
+        for (size_t i = 0; i < w->nlayers && i < max; i++)
+            out[i] = w->layers[i].height;
+        return w->nlayers;
+    case DRAGARC_WIND_POWER:
+        if (max > 0)
+            out[0] = 0.0;
+        return 1;
+    case DRAGARC_WIND_LOG:
+        if (max > 0)
+            out[0] = w->roughness;
+        return 1;
+    default: return 0;
+    }
 }
 
 int dragarc_wind_check(const dragarc_wind *w, dragarc_error *err)
