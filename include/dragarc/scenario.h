@@ -21,10 +21,11 @@ extern "C" {
 #endif
 
 typedef enum dragarc_method {
-    DRAGARC_METHOD_AUTO = 0, /* rk8pd unless the drag relaxation time is short against the flight */
+    DRAGARC_METHOD_AUTO = 0, /* dop853 unless the drag relaxation time is short against the flight */
     DRAGARC_METHOD_ADAMS,    /* non-stiff: CVODE variable-order Adams-Moulton, fixed-point iteration */
     DRAGARC_METHOD_BDF,      /* stiff: CVODE BDF with Newton iteration and a dense linear solver */
-    DRAGARC_METHOD_RK8PD     /* non-stiff: GSL's explicit Runge-Kutta-Prince-Dormand 8(9) */
+    DRAGARC_METHOD_RK8PD,    /* non-stiff: GSL's explicit Runge-Kutta-Prince-Dormand 8(9) */
+    DRAGARC_METHOD_DOP853    /* non-stiff: Dormand-Prince 8(5,3) with a continuous extension (dop853.c) */
 } dragarc_method;
 
 typedef struct dragarc_launch {

@@ -609,9 +609,11 @@ static int read_solver(const cJSON *j, dragarc_solver_options *o, dragarc_error 
             o->method = DRAGARC_METHOD_BDF;
         else if (strcmp(method, "rk8pd") == 0)
             o->method = DRAGARC_METHOD_RK8PD;
+        else if (strcmp(method, "dop853") == 0)
+            o->method = DRAGARC_METHOD_DOP853;
         else
             return dragarc_error_set(err, DRAGARC_EINVAL, "solver.method",
-                                     "unknown method \"%s\" (auto, rk8pd, adams, bdf)", method);
+                                     "unknown method \"%s\" (auto, dop853, rk8pd, adams, bdf)", method);
     }
     return DRAGARC_OK;
 }

@@ -46,7 +46,7 @@ TEST(ball_flight_takes_the_explicit_path)
     s.projectile.drag.model = DRAGARC_DRAG_CONSTANT;
     s.projectile.drag.cd = 0.35;
     CHECK(dragarc_flight_run(&s, 0.0, &f, NULL) == DRAGARC_OK);
-    CHECK(f.method == DRAGARC_METHOD_RK8PD);
+    CHECK(f.method == DRAGARC_METHOD_DOP853);
     dragarc_flight_clear(&f);
 }
 
@@ -66,6 +66,43 @@ TEST(samples_are_evenly_spaced_and_end_on_the_ground)
     CHECK_ABS(last->pos[2], 0.0, 0.0);
     CHECK(last->t - f.points[f.npoints - 2].t <= 0.1 + 1e-12);
     dragarc_flight_clear(&f);
+}
+
+TEST(samples_between_steps_agree_with_steps_taken_to_them)
+{
+    /* DOP853 samples come from its continuous extension (order 7); rk8pd's from a step of the method itself
+     * to each sample time. At rtol = atol = 1e-10 both are within about 1e-9 m of the true path, so they
+     * must agree to 1e-7 relative (positions) over a whole flight in a layered wind. */
+    dragarc_scenario s;
+    dragarc_flight f[2];
+    dragarc_wind_layer rows[] = {{0.0, 2.0, 250.0 * DEG}, {20.0, 7.0, 280.0 * DEG}, {60.0, 11.0, 300.0 * DEG}};
+    make_scenario(&s, 1.2, 0.145, 0.074, 1.0, 40.0, 35.0, 9.80665, 1e-10);
+    s.projectile.drag.model = DRAGARC_DRAG_CONSTANT;
+    s.projectile.drag.cd = 0.35;
+    s.wind.model = DRAGARC_WIND_LAYERED;
+    s.wind.layers = rows;
+    s.wind.nlayers = 3;
+    const dragarc_method m[2] = {DRAGARC_METHOD_DOP853, DRAGARC_METHOD_RK8PD};
+    for (int k = 0; k < 2; k++) {
+        s.solver.method = m[k];
+        CHECK(dragarc_flight_run(&s, 0.05, &f[k], NULL) == DRAGARC_OK);
+    }
+    CHECK(f[0].npoints == f[1].npoints && f[0].npoints > 50);
+    double worst = 0.0;
+    for (size_t i = 0; i < f[0].npoints && i < f[1].npoints; i++) {
+        CHECK_ABS(f[0].points[i].t, f[1].points[i].t, 1e-9);
+        for (int j = 0; j < 3; j++) {
+            double d = fabs(f[0].points[i].pos[j] - f[1].points[i].pos[j]);
+            worst = fmax(worst, d);
+            CHECK(d <= 1e-7 * (1.0 + f[0].range));
+            CHECK_ABS(f[0].points[i].vel[j], f[1].points[i].vel[j], 1e-7 * 40.0);
+        }
+    }
+    printf("  %zu samples, largest position difference %.2e m\n", f[0].npoints, worst);
+    s.wind.layers = NULL; /* borrowed rows */
+    s.wind.nlayers = 0;
+    dragarc_flight_clear(&f[0]);
+    dragarc_flight_clear(&f[1]);
 }
 
 TEST(downward_launch_has_its_apex_at_the_launch_point)
@@ -157,7 +194,7 @@ TEST(running_out_of_steps_is_an_error_naming_the_limit)
     s.projectile.drag.cd = 0.35;
     s.solver.max_steps = 10;
     CHECK(dragarc_flight_run(&s, 0.0, &f, &e) == DRAGARC_ESOLVER);
-    CHECK(strcmp(e.field, "solver.max_steps") == 0 && strstr(e.message, "GSL odeiv2 rk8pd: more than 10 steps"));
+    CHECK(strcmp(e.field, "solver.max_steps") == 0 && strstr(e.message, "DOP853: more than 10 steps"));
     dragarc_flight_clear(&f);
     s.solver.method = DRAGARC_METHOD_ADAMS; /* CVODE's path names its own flag */
     CHECK(dragarc_flight_run(&s, 0.0, &f, &e) == DRAGARC_ESOLVER);
@@ -181,10 +218,10 @@ TEST(invalid_scenario_is_refused_before_flying)
     dragarc_flight_clear(&f);
 }
 
-TEST(the_three_integrators_agree_on_a_grid_of_flights)
+TEST(the_four_integrators_agree_on_a_grid_of_flights)
 {
-    /* One accuracy contract across paths: at rtol = atol = 1e-10 the explicit rk8pd path and CVODE's Adams
-     * and BDF give the same time of flight, range, crossrange, apex and impact speed to 1e-7 relative
+    /* One accuracy contract across paths: at rtol = atol = 1e-10 the explicit DOP853 and rk8pd paths and
+     * CVODE's Adams and BDF give the same time of flight, range, crossrange, apex and impact speed to 1e-7 relative
      * (1e-6 m absolute), each path's global error being about 10-100 times the tolerance. Cases: a ball in
      * wind (constant Cd, ISA), a sphere-drag drop of 0.4 mm from 2 m, a linear-drag body in vacuum from a
      * hill, a layered-wind fragment falling 3 km through ISA air, a throw onto a terrace above the launch. */
@@ -215,10 +252,11 @@ TEST(the_three_integrators_agree_on_a_grid_of_flights)
     cases[4].projectile.drag.model = DRAGARC_DRAG_CONSTANT;
     cases[4].projectile.drag.cd = 0.35;
     cases[4].ground_elevation = 6.0;
-    const dragarc_method methods[] = {DRAGARC_METHOD_RK8PD, DRAGARC_METHOD_ADAMS, DRAGARC_METHOD_BDF};
+    const dragarc_method methods[] = {DRAGARC_METHOD_DOP853, DRAGARC_METHOD_RK8PD, DRAGARC_METHOD_ADAMS,
+                                      DRAGARC_METHOD_BDF};
     for (size_t i = 0; i < 5; i++) {
-        dragarc_flight f[3];
-        for (size_t m = 0; m < 3; m++) {
+        dragarc_flight f[4];
+        for (size_t m = 0; m < 4; m++) {
             cases[i].solver.method = methods[m];
             dragarc_error e;
             int rc = dragarc_flight_run(&cases[i], 0.0, &f[m], &e);
@@ -226,16 +264,16 @@ TEST(the_three_integrators_agree_on_a_grid_of_flights)
                 printf("  case %zu, %s: %s\n", i, dragarc_method_name(methods[m]), e.message);
             CHECK(rc == DRAGARC_OK);
         }
-        printf("  case %zu: rk8pd %ld steps, adams %ld, bdf %ld; range %.9f / %.9f / %.9f m\n", i, f[0].steps,
-               f[1].steps, f[2].steps, f[0].range, f[1].range, f[2].range);
-        for (size_t m = 1; m < 3; m++) {
+        printf("  case %zu: dop853 %ld steps, rk8pd %ld, adams %ld, bdf %ld; range %.9f / %.9f / %.9f / %.9f m\n", i,
+               f[0].steps, f[1].steps, f[2].steps, f[3].steps, f[0].range, f[1].range, f[2].range, f[3].range);
+        for (size_t m = 1; m < 4; m++) {
             CHECK_ABS(f[m].time_of_flight, f[0].time_of_flight, 1e-7 * f[0].time_of_flight);
             CHECK_ABS(f[m].range, f[0].range, 1e-6 + 1e-7 * f[0].range);
             CHECK_ABS(f[m].crossrange, f[0].crossrange, 1e-6 + 1e-7 * f[0].range);
             CHECK_ABS(f[m].apex_height, f[0].apex_height, 1e-6 + 1e-7 * f[0].apex_height);
             CHECK_ABS(f[m].impact_speed, f[0].impact_speed, 1e-7 * f[0].impact_speed);
         }
-        for (size_t m = 0; m < 3; m++)
+        for (size_t m = 0; m < 4; m++)
             dragarc_flight_clear(&f[m]);
     }
 }
@@ -245,8 +283,9 @@ int main(void)
     dragarc_init();
     RUN(fine_drop_goes_to_bdf_and_agrees_with_adams);
     RUN(ball_flight_takes_the_explicit_path);
-    RUN(the_three_integrators_agree_on_a_grid_of_flights);
+    RUN(the_four_integrators_agree_on_a_grid_of_flights);
     RUN(samples_are_evenly_spaced_and_end_on_the_ground);
+    RUN(samples_between_steps_agree_with_steps_taken_to_them);
     RUN(downward_launch_has_its_apex_at_the_launch_point);
     RUN(landing_on_raised_ground_counts_only_the_descending_crossing);
     RUN(wind_from_the_left_pushes_the_impact_to_the_right);
