@@ -1,11 +1,14 @@
-/* bench_flight.c: time dragarc_flight_run on three problems against a tight GSL odeiv2 reference.
+/* bench_flight.c: time dragarc_flight_run on four problems against a tight GSL odeiv2 reference.
  * SPDX-License-Identifier: GPL-3.0-or-later
  *
  * The problems are of our own invention, defined once here as dragarc_scenario records and written
  * to a JSON file that bench/scipy_bench.py reads, so both sides fly the same equations:
  *   ball      0.15 kg, 0.073 m sphere, Cd(Re) table, ISA air, constant wind; about 5 s
  *   fragment  0.5 kg, 0.08 m, Cd(Mach) table through transonic, ISA air, layered wind, from 30 km
- *   drop      100 um water drop, smooth-sphere drag, constant air, 3 m/s wind: stiff
+ *   drop      100 um water drop, smooth-sphere drag, constant air, 3 m/s wind: mildly stiff (~150
+ *             relaxation times in the flight), still cheapest with an explicit method at rtol 1e-8
+ *   fine_drop 20 um water drop, the same air and wind: stiff (~70,000 relaxation times), where an
+ *             implicit method pays off
  * The equations of motion are those of forces.h:
  *   dx/dt = v,  dv/dt = -g z^ + (rho V g / m) z^ - (D(|v - w|) / m) (v - w)
  * The reference integrates the same right-hand side (dragarc_forces_eval) with GSL's explicit
@@ -21,6 +24,7 @@
  * counted in a thread-local counter. The library's code is unchanged.
  *
  * Usage: bench_flight [--loop SECONDS] [--repeats N] [--threads N] [--json PATH]
+ *        bench_flight --check [--json PATH]   (the agreement checks only, nothing timed: a ctest)
  *        bench_flight --profile PROBLEM   (only dragarc flights of one problem for about 3 s, to run under perf)
  * Exit status 0, 2 on bad usage, 3 when a flight fails or dragarc and the reference disagree.
  */
@@ -44,7 +48,7 @@
 #define DEG (PI / 180.0)
 #define RANGE_RTOL 1e-6   /* agreement required between dragarc and the reference before timing */
 #define ROOT_TTOL 1e-9    /* s, impact time tolerance of the reference */
-#define NPROBLEMS 3
+#define NPROBLEMS 4
 #define TIGHT_TOL 1e-12   /* rtol = atol of the rk8pd solution that measures every solver's range error */
 
 /* ---- counting evaluations of the equations of motion (linker --wrap) ---- */
@@ -131,7 +135,8 @@ static int make_problems(problem *pb, dragarc_error *err)
     /* 3: a 100 um water drop released at rest 1 m up in a 3 m/s wind from the west. */
     s = &pb[2].s;
     pb[2].name = "drop";
-    pb[2].what = "100 um water drop from rest at 1 m, sphere drag, constant air 1.2 kg/m^3, 3 m/s wind (stiff)";
+    pb[2].what = "100 um water drop from rest at 1 m, sphere drag, constant air 1.2 kg/m^3, 3 m/s wind (mildly "
+                 "stiff: about 150 relaxation times)";
     pb[2].stiff = 1;
     dragarc_scenario_default(s);
     snprintf(s->name, sizeof s->name, "bench drop");
@@ -153,6 +158,22 @@ static int make_problems(problem *pb, dragarc_error *err)
     s->wind.from = 270.0 * DEG;
     s->solver.rtol = 1e-8;
     s->solver.atol = 1e-8;
+
+    /* 4: the same release with a 20 um drop, which drifts for about 80 s. */
+    s = &pb[3].s;
+    pb[3].name = "fine_drop";
+    pb[3].what = "20 um water drop from rest at 1 m, sphere drag, constant air 1.2 kg/m^3, 3 m/s wind (stiff: "
+                 "about 70,000 relaxation times)";
+    pb[3].stiff = 1;
+    dragarc_scenario_default(s);
+    if ((rc = dragarc_scenario_copy(s, &pb[2].s, err)) != DRAGARC_OK)
+        return rc;
+    snprintf(s->name, sizeof s->name, "bench fine drop");
+    d = 20e-6;
+    s->projectile.diameter = d;
+    s->projectile.area = 0.25 * PI * d * d;
+    s->projectile.volume = PI * d * d * d / 6.0;
+    s->projectile.mass = 998.2 * s->projectile.volume;
     return DRAGARC_OK;
 }
 
@@ -338,6 +359,11 @@ typedef int (*fly_fn)(void *arg);
  * about `loop` seconds. */
 static int time_per_flight(fly_fn fly, void *arg, double loop, int repeats, double *per, long *n_out)
 {
+    if (loop == 0.0) { /* --check: agreement only, nothing timed */
+        *per = 0.0;
+        *n_out = 0;
+        return 0;
+    }
     double t_start = now();
     long n = 0;
     while (now() - t_start < 0.1 * loop || n < 1) {
@@ -384,6 +410,47 @@ static int fly_ref(void *arg)
     ref_arg *a = arg;
     ref_result res;
     return ref_fly(a->r, a->s, &res);
+}
+
+/* Flights of s per second on `threads` threads, each flying its own copy of the scenario, for about
+ * `seconds` in all; the range of one flight in *range. Returns the number of failed flights. */
+static int throughput(const dragarc_scenario *s, int threads, double seconds, double loop, long *n, double *secs,
+                      double *range)
+{
+    double t_one;
+    long n_one;
+    dragarc_flight one;
+    if (dragarc_flight_run(s, 0.0, &one, NULL) != DRAGARC_OK) {
+        dragarc_flight_clear(&one);
+        return 1;
+    }
+    *range = one.range;
+    dragarc_flight_clear(&one);
+    if (time_per_flight(fly_dragarc, (void *)s, 0.2 * loop, 1, &t_one, &n_one) != 0)
+        return 1;
+    *n = (long)ceil(seconds * threads / t_one);
+    const long total = *n;
+    int fails = 0;
+    double t0 = now();
+#pragma omp parallel num_threads(threads) reduction(+ : fails)
+    {
+        dragarc_scenario mine;
+        dragarc_scenario_default(&mine);
+        if (dragarc_scenario_copy(&mine, s, NULL) != DRAGARC_OK)
+            fails++;
+        else {
+#pragma omp for schedule(dynamic, 64)
+            for (long i = 0; i < total; i++) {
+                dragarc_flight f;
+                if (dragarc_flight_run(&mine, 0.0, &f, NULL) != DRAGARC_OK)
+                    fails++;
+                dragarc_flight_clear(&f);
+            }
+        }
+        dragarc_scenario_clear(&mine);
+    }
+    *secs = now() - t0;
+    return fails;
 }
 
 /* ---- JSON output of the problems for the SciPy side ---- */
@@ -442,7 +509,8 @@ static void json_problem(FILE *fp, const problem *p)
 static void usage(void)
 {
     fprintf(stderr, "usage: bench_flight [--loop SECONDS] [--repeats N] [--threads N] [--json PATH]\n"
-                    "       bench_flight --profile ball|fragment|drop\n");
+                    "       bench_flight --check [--json PATH]\n"
+                    "       bench_flight --profile ball|fragment|drop|fine_drop\n");
 }
 
 int main(int argc, char **argv)
@@ -450,6 +518,7 @@ int main(int argc, char **argv)
     double loop = 0.5, mt_seconds = 2.0;
     int repeats = 5, threads = 2;
     const char *json_path = NULL, *profile = NULL;
+    int check = 0;
     for (int i = 1; i < argc; i++) {
         if (strcmp(argv[i], "--loop") == 0 && i + 1 < argc)
             loop = atof(argv[++i]);
@@ -459,6 +528,8 @@ int main(int argc, char **argv)
             threads = atoi(argv[++i]);
         else if (strcmp(argv[i], "--json") == 0 && i + 1 < argc)
             json_path = argv[++i];
+        else if (strcmp(argv[i], "--check") == 0)
+            check = 1;
         else if (strcmp(argv[i], "--profile") == 0 && i + 1 < argc)
             profile = argv[++i];
         else {
@@ -470,6 +541,8 @@ int main(int argc, char **argv)
         usage();
         return 2;
     }
+    if (check)
+        loop = 0.0;
     dragarc_init();
 
     problem pb[NPROBLEMS];
@@ -504,7 +577,8 @@ int main(int argc, char **argv)
     if (fp)
         fprintf(fp, "{\n  \"problems\": [\n");
     int status = 0;
-    printf("%-9s %-10s %12s %8s %10s %16s %s\n", "problem", "solver", "us/flight", "steps", "f-evals", "range m",
+    if (!check)
+        printf("%-9s %-10s %12s %8s %10s %16s %s\n", "problem", "solver", "us/flight", "steps", "f-evals", "range m",
            "method");
     for (int k = 0; k < NPROBLEMS && status == 0; k++) {
         problem *p = &pb[k];
@@ -534,9 +608,10 @@ int main(int argc, char **argv)
             status = 3;
         }
         ref_solver_free(&tight);
-        /* The same flight with the method dragarc did not choose, forced. */
+        /* The same flight with the method dragarc did not choose, forced: BDF for an explicit choice, DOP853
+         * for an implicit one. */
         dragarc_scenario other = p->s; /* shallow: shares the tables, read only */
-        other.solver.method = f.method == DRAGARC_METHOD_BDF ? DRAGARC_METHOD_ADAMS : DRAGARC_METHOD_BDF;
+        other.solver.method = f.method == DRAGARC_METHOD_BDF ? DRAGARC_METHOD_DOP853 : DRAGARC_METHOD_BDF;
         dragarc_flight fo;
         memset(&fo, 0, sizeof fo);
         long ev1 = n_forces_eval;
@@ -552,6 +627,14 @@ int main(int argc, char **argv)
                     RANGE_RTOL);
             status = 3;
         }
+        /* The accuracy contract: the global range error of a flight at tolerance rtol stays within 10 rtol (the
+         * local error per step is held to rtol; a few tens of steps add up to a few rtol at most here). */
+        double tight_err = fabs(f.range - tight_res.range) / fabs(tight_res.range);
+        if (status == 0 && !(tight_err <= 10.0 * p->s.solver.rtol)) {
+            fprintf(stderr, "bench_flight: %s: dragarc's range %.12g m is %.3g from the 1e-12 solution %.12g m "
+                    "(more than 10 rtol)\n", p->name, f.range, tight_err, tight_res.range);
+            status = 3;
+        }
         for (int m = 0; m < nref && status == 0; m++) {
             double rel = fabs(f.range - ref[m].range) / fabs(ref[m].range);
             if (!(rel <= RANGE_RTOL)) {
@@ -561,6 +644,14 @@ int main(int argc, char **argv)
                         p->name, f.range, REF_NAMES[m], ref[m].range, rel, RANGE_RTOL);
                 status = 3;
             }
+        }
+        if (check && status == 0) {
+            printf("%-9s agree: dragarc (%s) %.12g m, %.1e from the 1e-12 solution; %s forced %.1e;", p->name,
+                   dragarc_method_name(f.method), f.range, tight_err, dragarc_method_name(other.solver.method),
+                   fabs(fo.range - f.range) / f.range);
+            for (int m = 0; m < nref; m++)
+                printf(" %s %.1e;", REF_NAMES[m], fabs(ref[m].range - f.range) / f.range);
+            printf("\n");
         }
         if (status != 0) {
             for (int m = 0; m < nref; m++)
@@ -575,7 +666,8 @@ int main(int argc, char **argv)
             status = 3;
             break;
         }
-        printf("%-9s %-10s %12.2f %8ld %10ld %16.9f %s\n", p->name, "dragarc", 1e6 * t_d, f.steps, d_evals, f.range,
+        if (!check)
+            printf("%-9s %-10s %12.2f %8ld %10ld %16.9f %s\n", p->name, "dragarc", 1e6 * t_d, f.steps, d_evals, f.range,
                dragarc_method_name(f.method));
         double t_o;
         long n_o;
@@ -583,7 +675,8 @@ int main(int argc, char **argv)
             status = 3;
             break;
         }
-        printf("%-9s %-10s %12.2f %8ld %10ld %16.9f forced %s\n", p->name, "dragarc", 1e6 * t_o, fo.steps, o_evals,
+        if (!check)
+            printf("%-9s %-10s %12.2f %8ld %10ld %16.9f forced %s\n", p->name, "dragarc", 1e6 * t_o, fo.steps, o_evals,
                fo.range, dragarc_method_name(fo.method));
         double t_r[2] = {NAN, NAN};
         long n_r[2] = {0, 0};
@@ -593,7 +686,8 @@ int main(int argc, char **argv)
                 status = 3;
                 break;
             }
-            printf("%-9s %-10s %12.2f %8ld %10ld %16.9f\n", p->name, REF_NAMES[m], 1e6 * t_r[m], ref[m].steps,
+            if (!check)
+                printf("%-9s %-10s %12.2f %8ld %10ld %16.9f\n", p->name, REF_NAMES[m], 1e6 * t_r[m], ref[m].steps,
                    ref[m].evals, ref[m].range);
         }
         if (fp) {
@@ -621,52 +715,35 @@ int main(int argc, char **argv)
     if (fp && status == 0)
         fprintf(fp, "  ],\n");
 
-    /* Fragment flights per second on `threads` threads, each flying its own copy of the scenario. */
-    double rate = NAN, t_mt = NAN;
-    long n_mt = 0;
-    int fails = 0;
-    if (status == 0) {
-        double t_one;
-        long n_one;
-        if (time_per_flight(fly_dragarc, &pb[1].s, 0.2 * loop, 1, &t_one, &n_one) != 0)
-            t_one = 1.0, status = 3;
-        n_mt = (long)ceil(mt_seconds * threads / t_one);
-        double t0 = now();
-#pragma omp parallel num_threads(threads) reduction(+ : fails)
-        {
-            dragarc_scenario mine;
-            dragarc_scenario_default(&mine);
-            if (dragarc_scenario_copy(&mine, &pb[1].s, NULL) != DRAGARC_OK)
-                fails++;
-            else {
-#pragma omp for schedule(dynamic, 64)
-                for (long i = 0; i < n_mt; i++) {
-                    dragarc_flight f;
-                    if (dragarc_flight_run(&mine, 0.0, &f, NULL) != DRAGARC_OK)
-                        fails++;
-                    dragarc_flight_clear(&f);
-                }
-            }
-            dragarc_scenario_clear(&mine);
-        }
-        t_mt = now() - t0;
-        rate = (double)n_mt / t_mt;
-        if (fails) {
-            fprintf(stderr, "bench_flight: %d fragment flights failed on %d threads\n", fails, threads);
+    /* Fragment flights per second on `threads` threads: the problem as defined (rtol 1e-8), and at rtol =
+     * atol = 1e-6, a tolerance a footprint study might choose (its range error is stated beside it). */
+    double rate[2] = {NAN, NAN}, t_mt[2] = {NAN, NAN}, tol_mt[2] = {1e-8, 1e-6}, range_mt[2] = {NAN, NAN};
+    long n_mt[2] = {0, 0};
+    for (int v = 0; v < 2 && status == 0 && !check; v++) {
+        dragarc_scenario frag = pb[1].s; /* shallow: shares the tables, read only */
+        frag.solver.rtol = frag.solver.atol = tol_mt[v];
+        if (throughput(&frag, threads, mt_seconds, loop, &n_mt[v], &t_mt[v], &range_mt[v]) != 0) {
+            fprintf(stderr, "bench_flight: fragment flights failed on %d threads\n", threads);
             status = 3;
+            break;
         }
-        printf("fragment on %d threads: %ld flights in %.3f s = %.0f flights/s (1e6 flights in %.1f s)\n", threads,
-               n_mt, t_mt, rate, 1e6 / rate);
+        rate[v] = (double)n_mt[v] / t_mt[v];
+        printf("fragment at rtol %g on %d threads: %ld flights in %.3f s = %.0f flights/s (1e6 flights in %.1f s)\n",
+               tol_mt[v], threads, n_mt[v], t_mt[v], rate[v], 1e6 / rate[v]);
     }
     struct rusage ru;
     getrusage(RUSAGE_SELF, &ru);
     printf("peak memory (ru_maxrss): %ld KiB\n", ru.ru_maxrss);
     if (fp) {
         if (status == 0)
-            fprintf(fp, "  \"parallel\": {\"problem\": \"fragment\", \"threads\": %d, \"max_threads\": %d, "
-                    "\"flights\": %ld, \"seconds\": %.6g, \"flights_per_second\": %.6g},\n"
-                    "  \"peak_rss_kib\": %ld\n}\n",
-                    threads, omp_get_num_procs(), n_mt, t_mt, rate, ru.ru_maxrss);
+            for (int v = 0; v < 2 && !check; v++)
+                fprintf(fp, "  \"%s\": {\"problem\": \"fragment\", \"rtol\": %g, \"threads\": %d, "
+                        "\"max_threads\": %d, \"flights\": %ld, \"seconds\": %.6g, \"flights_per_second\": %.6g, "
+                        "\"range\": %.17g},\n",
+                        v ? "parallel_loose" : "parallel", tol_mt[v], threads, omp_get_num_procs(), n_mt[v], t_mt[v],
+                        rate[v], range_mt[v]);
+        if (status == 0)
+            fprintf(fp, "  \"peak_rss_kib\": %ld\n}\n", ru.ru_maxrss);
         if (fclose(fp) != 0)
             status = 3;
     }

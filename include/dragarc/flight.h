@@ -2,8 +2,9 @@
  *
  * Copyright (C) 2026 the dragarc developers. SPDX-License-Identifier: GPL-3.0-or-later
  *
- * The integrator is SUNDIALS CVODE (Adams-Moulton or BDF). Ground impact is located by CVODE's root
- * finding on z - z_ground (descending), the apex on vz (descending).
+ * Integrated by DOP853 (explicit, the default for non-stiff flights), GSL's rk8pd, or SUNDIALS CVODE (BDF
+ * for stiff flights, Adams-Moulton on request): see src/numerics/flight.c and docs/models.md. Ground impact
+ * is where z falls through z_ground, the apex where vz falls through 0.
  */
 #ifndef DRAGARC_FLIGHT_H
 #define DRAGARC_FLIGHT_H
@@ -65,7 +66,8 @@ typedef struct dragarc_flight {
 /* Fly scenario s. dt > 0 samples the state every dt seconds (plus launch and impact); dt = 0 keeps
  * only launch and impact. Fills *out (caller clears with dragarc_flight_clear, also after failure).
  * Errors: DRAGARC_EINVAL (scenario fails dragarc_scenario_check), DRAGARC_ENOLAND (no impact
- * within solver.max_time), DRAGARC_ESOLVER (CVODE failed; the message names the CVODE flag and t),
+ * within solver.max_time), DRAGARC_ESOLVER (the integrator failed or ran out of steps; the message names the
+ * method, or the CVODE flag, and t),
  * DRAGARC_ERANGE (the atmosphere model was left, e.g. above 86 km). */
 int dragarc_flight_run(const dragarc_scenario *s, double dt, dragarc_flight *out, dragarc_error *err);
 
@@ -80,7 +82,7 @@ int dragarc_terminal_speed(const dragarc_scenario *s, double z, double *vt, drag
 /* Horizontal range (m) of the same launch in vacuum to the scenario's ground; NaN if never lands. */
 double dragarc_vacuum_range(const dragarc_scenario *s);
 
-/* "adams", "bdf" or "auto". */
+/* "auto", "dop853", "rk8pd", "adams" or "bdf". */
 const char *dragarc_method_name(dragarc_method m);
 
 #ifdef __cplusplus
