@@ -85,6 +85,16 @@ typedef struct problem {
     int stiff; /* also time GSL's implicit method */
 } problem;
 
+/* A water drop of diameter d (m): a sphere of density 998.2 kg/m^3. */
+static void water_drop(dragarc_scenario *s, double d)
+{
+    s->projectile.diameter = d;
+    s->projectile.area = 0.25 * PI * d * d;
+    s->projectile.volume = PI * d * d * d / 6.0;
+    s->projectile.density = 998.2;
+    s->projectile.mass = 998.2 * s->projectile.volume;
+}
+
 static int make_problems(problem *pb, dragarc_error *err)
 {
     int rc;
@@ -140,12 +150,7 @@ static int make_problems(problem *pb, dragarc_error *err)
     pb[2].stiff = 1;
     dragarc_scenario_default(s);
     snprintf(s->name, sizeof s->name, "bench drop");
-    double d = 100e-6;
-    s->projectile.diameter = d;
-    s->projectile.area = 0.25 * PI * d * d;
-    s->projectile.volume = PI * d * d * d / 6.0;
-    s->projectile.density = 998.2;
-    s->projectile.mass = 998.2 * s->projectile.volume;
+    water_drop(s, 100e-6);
     s->projectile.drag.model = DRAGARC_DRAG_SPHERE;
     s->launch = (dragarc_launch){.speed = 0.0, .elevation = 0.0, .azimuth = 0.0, .height = 1.0};
     s->atmosphere.model = DRAGARC_ATMOSPHERE_CONSTANT;
@@ -169,11 +174,7 @@ static int make_problems(problem *pb, dragarc_error *err)
     if ((rc = dragarc_scenario_copy(s, &pb[2].s, err)) != DRAGARC_OK)
         return rc;
     snprintf(s->name, sizeof s->name, "bench fine drop");
-    d = 20e-6;
-    s->projectile.diameter = d;
-    s->projectile.area = 0.25 * PI * d * d;
-    s->projectile.volume = PI * d * d * d / 6.0;
-    s->projectile.mass = 998.2 * s->projectile.volume;
+    water_drop(s, 20e-6);
     return DRAGARC_OK;
 }
 
