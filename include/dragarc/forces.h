@@ -25,8 +25,9 @@ typedef struct dragarc_forces {
     const dragarc_wind *wind;
     double gravity;          /* m/s^2 */
     double ground_elevation; /* m above the datum: wind heights are measured from here */
-    int prepared;            /* wind_toward is valid for wind->from */
+    int prepared;            /* the fields below are valid for the parts borrowed */
     double wind_toward[2];   /* unit vector (east, north) the wind blows toward */
+    double inv_mass;         /* 1/kg */
 } dragarc_forces;
 
 /* What the right-hand side saw at one state, for diagnostics and output. */

@@ -198,7 +198,10 @@ int dop853_step(dop853 *s, double t_end)
             if (!isfinite(err)) {
                 bad = 1;
             } else if (err <= 1.0) {
-                if (s->f(s->t + h, ynew, s->k[12], s->user) != 0) {
+                s->at_step_end = 1;
+                int failed = s->f(s->t + h, ynew, s->k[12], s->user) != 0;
+                s->at_step_end = 0;
+                if (failed) {
                     s->nfev++;
                     bad = 1;
                 } else {

@@ -40,6 +40,7 @@ typedef struct dop853 {
     double facold;                                       /* for step-size control */
     int rejected;                                        /* the last attempt was rejected */
     int dense_ready;                                     /* cont[] holds the last step's extension */
+    int at_step_end;     /* set while f is evaluated at the end of a step just accepted (its diagnostics) */
     double k[16][DOP853_N];                              /* stages (k[12] = f at the step's end) */
     double cont[7][DOP853_N];                            /* coefficients of the continuous extension */
     long nfev, nsteps, nrejected;

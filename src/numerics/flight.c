@@ -54,7 +54,8 @@ typedef struct flight_ctx {
     dragarc_error rhs_err; /* first failure seen inside the right-hand side */
     int rhs_failed;
     char cvode_msg[256];   /* last message from CVODE's error handler */
-    dragarc_flow flow;     /* what the last evaluation saw (DOP853 path) */
+    dragarc_flow flow;     /* what the evaluation at the end of the last DOP853 step saw */
+    const dop853 *stepper; /* the DOP853 stepper, while it runs */
     double *breaks;        /* m above the datum: heights where the equations of motion are not smooth */
     size_t nbreaks;
 } flight_ctx;
@@ -646,15 +647,16 @@ done:
 
 /* ---- the explicit default: DOP853 with events and samples from its continuous extension ------------- */
 
-/* Right-hand side in the stepper's form, keeping what the flow looked like: the last evaluation of an
- * accepted step is at its end, so the diagnostics of each step cost no extra evaluation. */
+/* Right-hand side in the stepper's form, keeping what the flow looked like at the end of each accepted step
+ * (the stepper evaluates f there anyway), so the diagnostics of a step cost no extra evaluation. */
 static int dop_rhs(double t, const double y[6], double dydt[6], void *user)
 {
     (void)t;
     flight_ctx *c = user;
     double ys[6] = {y[0], y[1], y[2] < c->ceiling ? y[2] : c->ceiling, y[3], y[4], y[5]};
     dragarc_error e;
-    if (dragarc_forces_eval(&c->forces, ys, dydt, &c->flow, &e) != DRAGARC_OK) {
+    dragarc_flow *flow = c->stepper && c->stepper->at_step_end ? &c->flow : NULL;
+    if (dragarc_forces_eval(&c->forces, ys, dydt, flow, &e) != DRAGARC_OK) {
         if (!c->rhs_failed)
             c->rhs_err = e;
         c->rhs_failed = 1;
@@ -848,6 +850,7 @@ static int integrate_dop853(const dragarc_scenario *s, flight_ctx *cx, double dt
                             dragarc_flight *out, size_t *cap, double *t_end, dragarc_error *err)
 {
     dop853 st;
+    cx->stepper = &st; /* for dop_rhs: which evaluation ends a step */
     int rc, ds = dop853_init(&st, dop_rhs, cx, s->solver.rtol, s->solver.atol, 0.0, y0, s->solver.max_time);
     if (ds != DOP853_OK)
         return dop_failure(cx, ds, 0.0, err);

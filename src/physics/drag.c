@@ -139,9 +139,10 @@ double dragarc_drag_factor(const dragarc_drag *d, double speed, const dragarc_ai
         return 12.0 * area * air->viscosity / diameter * dragarc_sphere_cd_re24(re);
     }
     case DRAGARC_DRAG_TABLE: {
-        double re = air->density * speed * diameter / air->viscosity;
-        double mach = speed / air->speed_of_sound;
-        return 0.5 * air->density * dragarc_drag_cd(d, re, mach, speed) * area * speed;
+        double x = d->axis == DRAGARC_AXIS_REYNOLDS ? air->density * speed * diameter / air->viscosity
+                   : d->axis == DRAGARC_AXIS_MACH   ? speed / air->speed_of_sound
+                                                    : speed;
+        return 0.5 * air->density * table_cd(d, x) * area * speed;
     }
     }
     return 0.0;

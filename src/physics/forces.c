@@ -19,6 +19,7 @@ void dragarc_forces_init(dragarc_forces *f, const dragarc_projectile *projectile
     f->gravity = gravity;
     f->ground_elevation = ground_elevation;
     dragarc_wind_toward(wind->from, &f->wind_toward[0], &f->wind_toward[1]);
+    f->inv_mass = 1.0 / projectile->mass;
     f->prepared = 1;
 }
 
@@ -35,8 +36,9 @@ int dragarc_forces_eval(const dragarc_forces *f, const double y[6], double dydt[
     double rel[3] = {y[3] - w[0], y[4] - w[1], y[5] - w[2]};
     double speed = sqrt(rel[0] * rel[0] + rel[1] * rel[1] + rel[2] * rel[2]);
     double dfac = dragarc_drag_factor(&p->drag, speed, &air, p->diameter, p->area);
-    double dm = dfac / p->mass;
-    double buoy = air.density * p->volume * f->gravity / p->mass;
+    double inv_m = f->prepared ? f->inv_mass : 1.0 / p->mass;
+    double dm = dfac * inv_m;
+    double buoy = air.density * p->volume * f->gravity * inv_m;
     dydt[0] = y[3];
     dydt[1] = y[4];
     dydt[2] = y[5];
