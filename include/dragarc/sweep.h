@@ -14,6 +14,7 @@
 #include <stddef.h>
 
 #include "dragarc/dragarc.h"
+#include "dragarc/quantity.h"
 #include "dragarc/scenario.h"
 
 #ifdef __cplusplus
@@ -29,6 +30,7 @@ typedef struct dragarc_scenario_param {
     const char *path;  /* canonical scenario key path, "launch.speed" */
     const char *alias; /* short name, "speed" */
     const char *unit;  /* unit of its values: "m/s", "degree", ...; "" for a pure number */
+    dragarc_quantity quantity; /* what its values measure (for values with units at the interface) */
 } dragarc_scenario_param;
 
 /* All settable parameters, in a fixed order; *count receives how many. */

@@ -8,6 +8,7 @@
 
 #include "dragarc/dragarc.h"
 #include "dragarc/flight.h"
+#include "dragarc/quantity.h"
 #include "dragarc/scenario.h"
 
 /* Exit statuses (documented in docs/cli.md). */
@@ -22,6 +23,15 @@ int cli_usage_error(const char *cmd, const char *fmt, ...) __attribute__((format
 
 /* Parse a finite double from an option value; 0 on success. */
 int cli_parse_double(const char *text, double *out);
+
+/* A command-line value of quantity q: a plain number in the quantity's interface unit (metres, m/s,
+ * degrees, kelvin, ...) or a number with a unit ("150 yd", "35 kft", "18 degF"), read by UDUNITS-2 (loaded
+ * on first use). 0 on success; otherwise -1, with why holding the reason when the text has a number
+ * (an unknown unit, a unit of another quantity) and empty when it is no number at all. */
+int cli_parse_value(const char *text, dragarc_quantity q, double *out, char *why, size_t n);
+
+/* Free the units database cli_parse_value loaded, if it did. */
+void cli_units_release(void);
 
 /* The ':'-separated profile folders: $DRAGARC_PROFILE_PATH first, then the built-in ones. The
  * returned string is static storage in the CLI. */

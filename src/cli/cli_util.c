@@ -9,6 +9,7 @@
 #include "cli/cli.h"
 #include "dragarc/cautions.h"
 #include "dragarc/output.h"
+#include "dragarc/units.h"
 
 #ifndef DRAGARC_PROFILE_DIRS
 #define DRAGARC_PROFILE_DIRS "profiles"
@@ -53,6 +54,36 @@ int cli_parse_double(const char *text, double *out)
         return -1;
     *out = v;
     return 0;
+}
+
+/* The units database, loaded the first time a value carries a unit; the CLI runs one command on one thread. */
+static dragarc_units *cli_units;
+
+int cli_parse_value(const char *text, dragarc_quantity q, double *out, char *why, size_t n)
+{
+    if (n > 0)
+        why[0] = '\0';
+    if (cli_parse_double(text, out) == 0)
+        return 0;
+    char *end = NULL;
+    if (!text || (strtod(text, &end), end == text) || *end == '\0')
+        return -1; /* no number, or a number alone that is not finite: the caller's own message */
+    dragarc_error err;
+    if (!cli_units && dragarc_units_new(&cli_units, &err) != DRAGARC_OK) {
+        snprintf(why, n, "%s", err.message);
+        return -1;
+    }
+    if (dragarc_units_parse(cli_units, text, q, out, &err) == DRAGARC_OK)
+        return 0;
+    if (!strstr(err.message, "does not start with a number"))
+        snprintf(why, n, "%s", err.message);
+    return -1;
+}
+
+void cli_units_release(void)
+{
+    dragarc_units_free(cli_units);
+    cli_units = NULL;
 }
 
 const char *cli_profile_path(void)

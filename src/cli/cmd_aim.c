@@ -33,6 +33,7 @@ static const char HELP[] =
     "  --json                print one JSON object instead of the summary\n"
     "  -h, --help            this help\n"
     "\n"
+    "Lengths may carry a unit, read by UDUNITS-2: --range \"150 yd\" --height \"3 ft\" (docs/units.md).\n"
     "exit status: 0 solved, 1 the target is out of reach (the maximum range is printed), 2 bad usage or\n"
     "input, 3 the computation failed.\n";
 
@@ -82,8 +83,14 @@ int cmd_aim(int argc, char **argv)
         } else {
             return cli_usage_error("aim", "only one scenario file, got '%s' and '%s'", file, a);
         }
-        if (target && (++i >= argc || cli_parse_double(argv[i], target) != 0))
-            return cli_usage_error("aim", "%s needs a number of metres", a);
+        if (target) {
+            char why[256];
+            if (++i >= argc)
+                return cli_usage_error("aim", "%s needs a number of metres", a);
+            if (cli_parse_value(argv[i], DRAGARC_Q_LENGTH, target, why, sizeof why) != 0)
+                return why[0] ? cli_usage_error("aim", "%s %s", a, why)
+                              : cli_usage_error("aim", "%s needs a number of metres", a);
+        }
     }
     if (!file || !*file)
         return cli_usage_error("aim", "needs a scenario file");

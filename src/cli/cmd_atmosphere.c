@@ -17,7 +17,10 @@ static const char HELP[] =
     "\n"
     "  --temperature-offset K  shift every temperature by K kelvin; pressure stays standard\n"
     "  --json                  print {\"levels\": [...]} instead of a table\n"
-    "  -h, --help              this help\n";
+    "  -h, --help              this help\n"
+    "\n"
+    "Values may carry a unit, read by UDUNITS-2: \"35 kft\", --temperature-offset \"-9 degF\" (a difference:\n"
+    "-5 K). See docs/units.md.\n";
 
 int cmd_atmosphere(int argc, char **argv)
 {
@@ -40,15 +43,25 @@ int cmd_atmosphere(int argc, char **argv)
         } else if (strcmp(a, "--json") == 0) {
             json = 1;
         } else if (strcmp(a, "--temperature-offset") == 0) {
-            if (++i >= argc || cli_parse_double(argv[i], &offset) != 0) {
-                status = cli_usage_error("atmosphere", "--temperature-offset needs a number of kelvin");
+            char why[256];
+            if (++i >= argc ||
+                cli_parse_value(argv[i], DRAGARC_Q_TEMPERATURE_DIFFERENCE, &offset, why, sizeof why) != 0) {
+                status = i < argc && why[0] ? cli_usage_error("atmosphere", "--temperature-offset %s", why)
+                                            : cli_usage_error("atmosphere", "--temperature-offset needs a number of kelvin");
                 goto done;
             }
-        } else if (cli_parse_double(a, &alt[n]) == 0) {
-            n++;
         } else {
-            status = cli_usage_error("atmosphere", "'%s' is neither an option nor an altitude in metres", a);
-            goto done;
+            char why[256];
+            if (a[0] == '-' && !(a[1] == '.' || (a[1] >= '0' && a[1] <= '9'))) {
+                status = cli_usage_error("atmosphere", "'%s' is neither an option nor an altitude in metres", a);
+                goto done;
+            }
+            if (cli_parse_value(a, DRAGARC_Q_LENGTH, &alt[n], why, sizeof why) != 0) {
+                status = why[0] ? cli_usage_error("atmosphere", "altitude %s", why)
+                                : cli_usage_error("atmosphere", "'%s' is neither an option nor an altitude in metres", a);
+                goto done;
+            }
+            n++;
         }
     }
     if (n == 0) {

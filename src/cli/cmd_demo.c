@@ -29,14 +29,14 @@ static const demo_case CASES[] = {
      "{\"name\": \"hill-top practice ball\","
      " \"projectile\": {\"mass\": 0.16, \"diameter\": 0.072, \"drag\": {\"model\": \"constant\", \"cd\": 0.38}},"
      " \"launch\": {\"speed\": 38.0, \"elevation\": 32.0, \"azimuth\": 20.0, \"height\": 1.8},"
-     " \"environment\": {\"atmosphere\": {\"model\": \"isa\", \"site_elevation\": 450.0, \"temperature_offset\": 8.0},"
+     " \"environment\": {\"atmosphere\": {\"model\": \"isa\", \"site_elevation\": 450.0, \"temperature_offset\": \"8 K\"},"
      "   \"wind\": {\"model\": \"log\", \"speed\": 6.0, \"from\": 290.0, \"ref_height\": 10.0, \"roughness\": 0.03}},"
      " \"ground\": {\"elevation\": 0.0}}",
      "Drag takes a large share of the vacuum range away, and the breeze from the west-north-west, "
      "stronger aloft than at head height (log-law profile), pushes the ball to the right of its line."},
     {"2. A 0.6 mm droplet leaving a sprinkler nozzle",
      "{\"name\": \"sprinkler droplet 0.6 mm\","
-     " \"projectile\": {\"density\": 998.2, \"diameter\": 0.0006, \"drag\": {\"model\": \"sphere\"}},"
+     " \"projectile\": {\"density\": 998.2, \"diameter\": \"0.6 mm\", \"drag\": {\"model\": \"sphere\"}},"
      " \"launch\": {\"speed\": 12.0, \"elevation\": 25.0, \"azimuth\": 90.0, \"height\": 0.8},"
      " \"environment\": {\"atmosphere\": {\"model\": \"isa\", \"site_elevation\": 120.0, \"temperature_offset\": 5.0},"
      "   \"wind\": {\"model\": \"log\", \"speed\": 3.0, \"from\": 0.0, \"ref_height\": 10.0, \"roughness\": 0.05}}}",
@@ -47,7 +47,7 @@ static const demo_case CASES[] = {
      "{\"name\": \"fragment shed at 3 km\","
      " \"projectile\": {\"mass\": 0.04, \"diameter\": 0.03, \"area\": 0.0009, \"volume\": 1.5e-5,"
      "   \"drag\": {\"model\": \"constant\", \"cd\": 1.1}},"
-     " \"launch\": {\"speed\": 120.0, \"elevation\": 5.0, \"azimuth\": 135.0, \"height\": 3000.0},"
+     " \"launch\": {\"speed\": \"233 kt\", \"elevation\": 5.0, \"azimuth\": 135.0, \"height\": \"3 km\"},"
      " \"environment\": {\"wind\": {\"model\": \"layered\", \"layers\": ["
      "   {\"height\": 0, \"speed\": 4, \"from\": 200}, {\"height\": 1000, \"speed\": 9, \"from\": 230},"
      "   {\"height\": 3000, \"speed\": 15, \"from\": 250}]}},"

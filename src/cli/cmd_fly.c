@@ -2,6 +2,7 @@
  * SPDX-License-Identifier: GPL-3.0-or-later
  */
 #include <stdio.h>
+#include <math.h>
 #include <string.h>
 
 #include "cli/cli.h"
@@ -16,9 +17,10 @@ static const char HELP[] =
     "  --json               print one JSON object instead of the summary\n"
     "  --trajectory FILE    write t,x,y,z,vx,vy,vz,speed,mach,reynolds (SI) every --dt seconds, plus the\n"
     "                       exact impact row; written whole or not at all\n"
-    "  --dt SECONDS         sampling interval for --trajectory (default 0.05)\n"
+    "  --dt SECONDS         sampling interval for --trajectory (default 0.05; or with a unit, \"50 ms\")\n"
     "  -h, --help           this help\n"
     "\n"
+    "Numeric values in the scenario may carry units (\"89.5 mph\", \"3 ft\"): see docs/units.md.\n"
     "Profiles named in a scenario are searched in $DRAGARC_PROFILE_PATH, then the built-in folders.\n"
     "exit status: 0 success, 2 bad usage or input, 3 the computation failed (solver failure,\n"
     "no impact within solver.max_time, atmosphere left).\n";
@@ -42,8 +44,10 @@ int cmd_fly(int argc, char **argv)
             if (strcmp(o.trajectory, "-") == 0)
                 return cli_usage_error("fly", "--trajectory needs a file name: standard output carries the summary");
         } else if (strcmp(a, "--dt") == 0) {
-            if (++i >= argc || cli_parse_double(argv[i], &o.dt) != 0 || !(o.dt > 0.0))
-                return cli_usage_error("fly", "--dt needs a positive number of seconds");
+            char why[256] = "";
+            if (++i >= argc || cli_parse_value(argv[i], DRAGARC_Q_TIME, &o.dt, why, sizeof why) != 0 || !(o.dt > 0.0))
+                return why[0] ? cli_usage_error("fly", "--dt %s", why)
+                              : cli_usage_error("fly", "--dt needs a positive number of seconds");
             dt_given = 1;
         } else if (a[0] == '-' && a[1] != '\0') {
             return cli_usage_error("fly", "unknown option '%s'", a);

@@ -26,16 +26,18 @@ static const char HELP_HEAD[] =
     "and energy, then the cautions. Up to 3 parameters, 100000 values each, 1000000 rows. Rows are flown\n"
     "in parallel (OMP_NUM_THREADS threads); the numbers do not depend on the number of threads.\n"
     "\n"
-    "  --vary NAME=START:STOP:STEP  values START, START+STEP, ... up to STOP (included), in the units of\n"
-    "                       the scenario file (degrees for angles); the first --vary varies slowest\n"
+    "  --vary NAME=START:STOP:STEP  values START, START+STEP, ... up to STOP (included), in the unit below\n"
+    "                       or each with a unit of its own (\"speed=60 mph:100 mph:10 mph\", docs/units.md);\n"
+    "                       the first --vary varies slowest\n"
     "  --csv                CSV: a header row with SI units in the column names, every number exact;\n"
     "                       data only, so no cautions\n"
     "  --json               one JSON object: varied, rows, units and cautions\n"
     "  --markdown           a Markdown table with the cautions\n"
     "  -o, --output FILE    write to FILE, whole or not at all, instead of standard output\n"
-    "  --ranges START:STOP:STEP  an aim table instead: for each target range (m) along the launch azimuth,\n"
-    "                       the low and high elevations at the scenario's speed that land on it, with\n"
-    "                       the azimuth turned for the wind (see 'dragarc aim'); at most 10000 ranges\n"
+    "  --ranges START:STOP:STEP  an aim table instead: for each target range (m, or with a unit) along\n"
+    "                       the launch azimuth, the low and high elevations at the scenario's speed that\n"
+    "                       land on it, with the azimuth turned for the wind (see 'dragarc aim'); at most\n"
+    "                       10000 ranges\n"
     "  --height METRES      the aim table's target plane above the site datum (default: the ground)\n"
     "  -h, --help           this help\n"
     "\n"
@@ -158,18 +160,36 @@ static int write_table(FILE *fp, table_format format, const dragarc_sweep *t, dr
     }
 }
 
-/* "START:STOP:STEP" into at most `max` target ranges; returns how many, or 0 when malformed. */
-static size_t parse_ranges(const char *spec, double *out, size_t max)
+/* "START:STOP:STEP", each a value of quantity q (a number, or a number with a unit), into v[3]. 0 on success;
+ * -1 when malformed, with why naming a unit problem (empty when a part is no number). */
+static int parse_triple(const char *spec, dragarc_quantity q, double v[3], char *why, size_t n)
 {
-    double v[3];
+    why[0] = '\0';
     const char *p = spec;
     for (int k = 0; k < 3; k++) {
-        char *end = NULL;
-        v[k] = strtod(p, &end);
-        if (end == p || !isfinite(v[k]) || (k < 2 ? *end != ':' : *end != '\0'))
-            return 0;
-        p = end + 1;
+        const char *colon = k < 2 ? strchr(p, ':') : NULL;
+        if (k < 2 && !colon)
+            return -1;
+        size_t len = colon ? (size_t)(colon - p) : strlen(p);
+        char part[128];
+        if (len == 0 || len >= sizeof part || (k == 2 && strchr(p, ':')))
+            return -1;
+        memcpy(part, p, len);
+        part[len] = '\0';
+        if (cli_parse_value(part, q, &v[k], why, n) != 0)
+            return -1;
+        p = colon ? colon + 1 : p + len;
     }
+    return 0;
+}
+
+/* "START:STOP:STEP" into at most `max` target ranges; returns how many, or 0 when malformed (why says why
+ * when it is a unit). */
+static size_t parse_ranges(const char *spec, double *out, size_t max, char *why, size_t nwhy)
+{
+    double v[3];
+    if (parse_triple(spec, DRAGARC_Q_LENGTH, v, why, nwhy) != 0)
+        return 0;
     if (!(v[2] > 0.0) || v[1] < v[0])
         return 0;
     size_t n = 0;
@@ -182,12 +202,42 @@ static size_t parse_ranges(const char *spec, double *out, size_t max)
     return n;
 }
 
+/* --vary NAME=START:STOP:STEP where the values may carry units of the parameter's quantity. 0 on success;
+ * otherwise the exit status of the usage error printed. */
+static int parse_vary(const char *spec, dragarc_sweep_axis *axis)
+{
+    dragarc_error err;
+    if (dragarc_sweep_axis_parse(axis, spec, &err) == DRAGARC_OK)
+        return 0;
+    const char *eq = strchr(spec, '=');
+    char name[64];
+    size_t nlen = eq ? (size_t)(eq - spec) : 0;
+    const dragarc_scenario_param *p = NULL;
+    if (eq && nlen > 0 && nlen < sizeof name) {
+        memcpy(name, spec, nlen);
+        name[nlen] = '\0';
+        p = dragarc_scenario_param_find(name);
+    }
+    double v[3];
+    char why[256];
+    if (p && parse_triple(eq + 1, p->quantity, v, why, sizeof why) == 0) {
+        if (dragarc_sweep_axis_init(axis, p->path, v[0], v[1], v[2], &err) == DRAGARC_OK)
+            return 0;
+    } else if (p && why[0]) {
+        return cli_usage_error("table", "--vary %s: %s: %s", spec, p->path, why);
+    }
+    return cli_usage_error("table", "--vary %s: %s%s%s", spec, err.field, err.field[0] ? ": " : "", err.message);
+}
+
 #define MAX_RANGES 10000
 
 static int aim_table(const char *file, const char *spec, double height, table_format format, const char *output)
 {
     static double ranges[MAX_RANGES];
-    size_t n = parse_ranges(spec, ranges, MAX_RANGES);
+    char why[256];
+    size_t n = parse_ranges(spec, ranges, MAX_RANGES, why, sizeof why);
+    if (n == 0 && why[0])
+        return cli_usage_error("table", "--ranges %s", why);
     if (n == 0)
         return cli_usage_error("table", "--ranges needs START:STOP:STEP with 0 < START <= STOP, STEP > 0 and at most "
                                         "%d values, not '%s'",
@@ -269,9 +319,9 @@ int cmd_table(int argc, char **argv)
                 return cli_usage_error("table", "--vary needs NAME=START:STOP:STEP");
             if (naxes == DRAGARC_SWEEP_MAX_AXES)
                 return cli_usage_error("table", "at most %d --vary options", DRAGARC_SWEEP_MAX_AXES);
-            if (dragarc_sweep_axis_parse(&axes[naxes], argv[i], &err) != DRAGARC_OK)
-                return cli_usage_error("table", "--vary %s: %s%s%s", argv[i], err.field, err.field[0] ? ": " : "",
-                                       err.message);
+            int st = parse_vary(argv[i], &axes[naxes]);
+            if (st != 0)
+                return st;
             naxes++;
         } else if (strcmp(a, "--csv") == 0 || strcmp(a, "--json") == 0 || strcmp(a, "--markdown") == 0) {
             f = a[2] == 'c' ? FORMAT_CSV : a[2] == 'j' ? FORMAT_JSON : FORMAT_MARKDOWN;
@@ -284,8 +334,10 @@ int cmd_table(int argc, char **argv)
                 return cli_usage_error("table", "--ranges needs START:STOP:STEP");
             ranges = argv[i];
         } else if (strcmp(a, "--height") == 0) {
-            if (++i >= argc || cli_parse_double(argv[i], &height) != 0)
-                return cli_usage_error("table", "--height needs a number of metres");
+            char why[256];
+            if (++i >= argc || cli_parse_value(argv[i], DRAGARC_Q_LENGTH, &height, why, sizeof why) != 0)
+                return i < argc && why[0] ? cli_usage_error("table", "--height %s", why)
+                                          : cli_usage_error("table", "--height needs a number of metres");
         } else if (strcmp(a, "-o") == 0 || strcmp(a, "--output") == 0) {
             if (++i >= argc || !*argv[i])
                 return cli_usage_error("table", "%s needs a file name", a);

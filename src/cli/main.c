@@ -33,6 +33,7 @@ static int run(int argc, char **argv);
 int main(int argc, char **argv)
 {
     int status = run(argc, argv);
+    cli_units_release();
     if (fflush(stdout) != 0 || ferror(stdout)) {
         fputs("dragarc: cannot write to standard output\n", stderr);
         return EXIT_FAILED;

@@ -15,6 +15,7 @@
 #include "core/constants.h"
 #include "dragarc/scenario.h"
 #include "dragarc/output.h"
+#include "dragarc/units.h"
 
 #define PATH_MAX_LEN 128
 
@@ -175,6 +176,140 @@ static int check_source(const cJSON *obj, const char *path, dragarc_error *err)
             return dragarc_error_set(err, DRAGARC_EINVAL, sub, "must be a string, not %s", type_name(it));
         }
     return DRAGARC_OK;
+}
+
+/* ---- values with units ---------------------------------------------------------------------- */
+
+/* The quantity of every numeric field that may be written with a unit, by its path with array indices
+ * written "[]". A string at any of these paths is read as a value with a unit (units.h) and replaced by
+ * its number in SI units (degrees for angles) before the scenario is read; a string anywhere else is left
+ * for the reader to refuse. docs/scenario.md lists the same fields. */
+static const struct {
+    const char *path;
+    dragarc_quantity q;
+} UNIT_FIELDS[] = {
+    {"projectile.mass", DRAGARC_Q_MASS},
+    {"projectile.density", DRAGARC_Q_DENSITY},
+    {"projectile.diameter", DRAGARC_Q_LENGTH},
+    {"projectile.area", DRAGARC_Q_AREA},
+    {"projectile.volume", DRAGARC_Q_VOLUME},
+    {"projectile.drag.cd", DRAGARC_Q_NUMBER},
+    {"projectile.drag.k", DRAGARC_Q_LINEAR_DRAG},
+    {"projectile.drag.c", DRAGARC_Q_QUADRATIC_DRAG},
+    {"launch.speed", DRAGARC_Q_SPEED},
+    {"launch.elevation", DRAGARC_Q_ANGLE},
+    {"launch.azimuth", DRAGARC_Q_ANGLE},
+    {"launch.height", DRAGARC_Q_LENGTH},
+    {"environment.gravity", DRAGARC_Q_ACCELERATION},
+    {"environment.atmosphere.site_elevation", DRAGARC_Q_LENGTH},
+    {"environment.atmosphere.temperature_offset", DRAGARC_Q_TEMPERATURE_DIFFERENCE},
+    {"environment.atmosphere.density", DRAGARC_Q_DENSITY},
+    {"environment.atmosphere.viscosity", DRAGARC_Q_VISCOSITY},
+    {"environment.atmosphere.temperature", DRAGARC_Q_TEMPERATURE},
+    {"environment.atmosphere.speed_of_sound", DRAGARC_Q_SPEED},
+    {"environment.atmosphere.scale_height", DRAGARC_Q_LENGTH},
+    {"environment.wind.speed", DRAGARC_Q_SPEED},
+    {"environment.wind.from", DRAGARC_Q_ANGLE},
+    {"environment.wind.ref_height", DRAGARC_Q_LENGTH},
+    {"environment.wind.exponent", DRAGARC_Q_NUMBER},
+    {"environment.wind.roughness", DRAGARC_Q_LENGTH},
+    {"environment.wind.layers[].height", DRAGARC_Q_LENGTH},
+    {"environment.wind.layers[].speed", DRAGARC_Q_SPEED},
+    {"environment.wind.layers[].from", DRAGARC_Q_ANGLE},
+    {"ground.elevation", DRAGARC_Q_LENGTH},
+    {"solver.max_time", DRAGARC_Q_TIME},
+};
+
+typedef struct unit_pass {
+    dragarc_units *units; /* loaded at the first string that needs it */
+} unit_pass;
+
+/* Replace the string node j (at field, whose quantity is q) by its value in SI units. */
+static int convert_value(unit_pass *up, cJSON *j, const char *field, dragarc_quantity q, dragarc_error *err)
+{
+    /* A string is for a number with its unit; a number alone belongs outside quotes. */
+    char *end = NULL;
+    strtod(j->valuestring, &end);
+    while (end && *end == ' ')
+        end++;
+    if (end != j->valuestring && end && *end == '\0')
+        return q == DRAGARC_Q_NUMBER
+                   ? dragarc_error_set(err, DRAGARC_EINVAL, field, "\"%s\" is a string: write the number without quotes",
+                                       j->valuestring)
+                   : dragarc_error_set(err, DRAGARC_EINVAL, field,
+                                       "\"%s\" has no unit: write the number without quotes (in %s), or add its unit",
+                                       j->valuestring, dragarc_quantity_unit(q));
+    if (!up->units) {
+        int rc = dragarc_units_new(&up->units, err);
+        if (rc != DRAGARC_OK) {
+            dragarc_error_prefix(err, field);
+            return rc;
+        }
+    }
+    double v;
+    int rc = dragarc_units_parse(up->units, j->valuestring, q, &v, err);
+    if (rc != DRAGARC_OK) {
+        dragarc_error_prefix(err, field);
+        return rc;
+    }
+    cJSON_free(j->valuestring);
+    j->valuestring = NULL;
+    j->type = cJSON_Number;
+    cJSON_SetNumberValue(j, v);
+    return DRAGARC_OK;
+}
+
+/* Walk node j at field (with indices) and pattern (indices as "[]"), converting strings with units. */
+static int convert_units(unit_pass *up, cJSON *j, const char *field, const char *pattern, dragarc_error *err)
+{
+    if (cJSON_IsString(j) && j->valuestring) {
+        for (size_t i = 0; i < sizeof UNIT_FIELDS / sizeof UNIT_FIELDS[0]; i++)
+            if (strcmp(pattern, UNIT_FIELDS[i].path) == 0)
+                return convert_value(up, j, field, UNIT_FIELDS[i].q, err);
+        return DRAGARC_OK;
+    }
+    if (strcmp(pattern, "projectile.drag") == 0 && cJSON_IsObject(j)) {
+        /* Table points are [x, cd]: x takes a unit when the table is against speed. */
+        const cJSON *axis = cJSON_GetObjectItemCaseSensitive(j, "x");
+        cJSON *pts = cJSON_GetObjectItemCaseSensitive(j, "points");
+        int by_speed = cJSON_IsString(axis) && axis->valuestring && strcmp(axis->valuestring, "speed") == 0;
+        if (by_speed && cJSON_IsArray(pts)) {
+            int i = 0;
+            for (cJSON *p = pts->child; p; p = p->next, i++) {
+                if (cJSON_IsArray(p) && cJSON_IsString(p->child) && p->child->valuestring) {
+                    char pf[PATH_MAX_LEN];
+                    snprintf(pf, sizeof pf, "%s.points[%d][0]", field, i);
+                    TRY(convert_value(up, p->child, pf, DRAGARC_Q_SPEED, err));
+                }
+            }
+        }
+    }
+    if (cJSON_IsObject(j) || cJSON_IsArray(j)) {
+        int i = 0;
+        for (cJSON *c = j->child; c; c = c->next, i++) {
+            char cf[PATH_MAX_LEN], cp[PATH_MAX_LEN];
+            if (cJSON_IsArray(j)) {
+                snprintf(cf, sizeof cf, "%s[%d]", field, i);
+                snprintf(cp, sizeof cp, "%s[]", pattern);
+            } else {
+                if (!c->string)
+                    continue;
+                join(cf, sizeof cf, field, c->string);
+                join(cp, sizeof cp, pattern, c->string);
+            }
+            TRY(convert_units(up, c, cf, cp, err));
+        }
+    }
+    return DRAGARC_OK;
+}
+
+/* The pass over a whole scenario (path "") or a profile (path "projectile"). */
+static int with_units(cJSON *root, const char *path, dragarc_error *err)
+{
+    unit_pass up = {NULL};
+    int rc = convert_units(&up, root, path, path, err);
+    dragarc_units_free(up.units);
+    return rc;
 }
 
 /* ---- drag ----------------------------------------------------------------------------------- */
@@ -357,7 +492,9 @@ static int read_projectile_file(const char *file, dragarc_projectile *p, dragarc
         }
         return rc;
     }
-    rc = read_projectile_object(root, "projectile", p, err);
+    rc = with_units(root, "projectile", err);
+    if (rc == DRAGARC_OK)
+        rc = read_projectile_object(root, "projectile", p, err);
     cJSON_Delete(root);
     if (rc != DRAGARC_OK && err) {
         char msg[sizeof err->message];
@@ -663,7 +800,9 @@ int dragarc_scenario_parse(const char *json, const char *base_dir, const char *p
     int rc = parse_text(json, "the scenario", &root, err);
     if (rc != DRAGARC_OK)
         return rc;
-    rc = read_scenario(root, base_dir, profile_path, out, err);
+    rc = with_units(root, "", err);
+    if (rc == DRAGARC_OK)
+        rc = read_scenario(root, base_dir, profile_path, out, err);
     cJSON_Delete(root);
     if (rc != DRAGARC_OK)
         dragarc_scenario_clear(out);

@@ -40,19 +40,19 @@ typedef enum param_id {
 
 /* In param_id order. */
 static const dragarc_scenario_param PARAMS[P_COUNT] = {
-    {"launch.speed", "speed", "m/s"},
-    {"launch.elevation", "elevation", "degree"},
-    {"launch.azimuth", "azimuth", "degree"},
-    {"launch.height", "height", "m"},
-    {"environment.wind.speed", "wind_speed", "m/s"},
-    {"environment.wind.from", "wind_from", "degree"},
-    {"projectile.mass", "mass", "kg"},
-    {"projectile.diameter", "diameter", "m"},
-    {"projectile.drag.cd", "cd", ""},
-    {"environment.atmosphere.site_elevation", "site_elevation", "m"},
-    {"environment.atmosphere.temperature_offset", "temperature_offset", "K"},
-    {"ground.elevation", "ground_elevation", "m"},
-    {"environment.gravity", "gravity", "m/s^2"},
+    {"launch.speed", "speed", "m/s", DRAGARC_Q_SPEED},
+    {"launch.elevation", "elevation", "degree", DRAGARC_Q_ANGLE},
+    {"launch.azimuth", "azimuth", "degree", DRAGARC_Q_ANGLE},
+    {"launch.height", "height", "m", DRAGARC_Q_LENGTH},
+    {"environment.wind.speed", "wind_speed", "m/s", DRAGARC_Q_SPEED},
+    {"environment.wind.from", "wind_from", "degree", DRAGARC_Q_ANGLE},
+    {"projectile.mass", "mass", "kg", DRAGARC_Q_MASS},
+    {"projectile.diameter", "diameter", "m", DRAGARC_Q_LENGTH},
+    {"projectile.drag.cd", "cd", "", DRAGARC_Q_NUMBER},
+    {"environment.atmosphere.site_elevation", "site_elevation", "m", DRAGARC_Q_LENGTH},
+    {"environment.atmosphere.temperature_offset", "temperature_offset", "K", DRAGARC_Q_TEMPERATURE_DIFFERENCE},
+    {"ground.elevation", "ground_elevation", "m", DRAGARC_Q_LENGTH},
+    {"environment.gravity", "gravity", "m/s^2", DRAGARC_Q_ACCELERATION},
 };
 
 const dragarc_scenario_param *dragarc_scenario_params(size_t *count)

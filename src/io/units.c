@@ -1,0 +1,205 @@
+/* units.c: values with units at the interface, read with UDUNITS-2.
+ * SPDX-License-Identifier: GPL-3.0-or-later
+ *
+ * A value is a number followed by an optional unit expression in UDUNITS-2's grammar ("89.5 mph",
+ * "1.2e3 ft", "9.81 m/s2", "20 degC"). It is converted to the quantity's interface unit by UDUNITS-2's
+ * converter: x_SI = cv(x), or for a temperature difference x_SI = x times the converter's slope, so that the
+ * offset of a Celsius or Fahrenheit scale drops out ("18 degF" is 10 K). Angles convert to degrees, the interface unit
+ * of angles; UDUNITS counts the radian as dimensionless, so an angle's unit must be built on the radian
+ * (degree, rad, arcmin, revolution), not merely be a pure number.
+ *
+ * Symbols added or corrected here, each with its exact definition (NIST Special Publication 811, 2008
+ * edition, appendix B.8 and B.9, "Factors for units listed alphabetically"):
+ *   mph  mile per hour      0.44704 m/s exactly   (UDUNITS reads "mph" as milli-phot)
+ *   kph  kilometre per hour 1/3.6 m/s             (UDUNITS reads "kph" as kilo-phot)
+ *   nmi  nautical mile      1852 m exactly        (UDUNITS reads "nmi" as nano-mile)
+ *   kn   knot               1852/3600 m/s         (absent; "kt" and "knot" are UDUNITS's own)
+ *   fps  foot per second    0.3048 m/s exactly    (absent)
+ *   gal  US gallon          3.785411784e-3 m^3    (UDUNITS reads "gal" as the galileo, 0.01 m/s^2)
+ *   gpm  US gallon a minute                       (absent)
+ *   oz   avoirdupois ounce  0.028349523125 kg     (UDUNITS reads "oz" as the fluid ounce, a volume)
+ *   lbm  pound (mass)       0.45359237 kg         (absent; UDUNITS's "lb" is the same pound)
+ *   deg  degree of arc      pi/180 rad            (absent)
+ *   rev  revolution         2 pi rad              (absent)
+ *   cP   centipoise         1e-3 Pa s             (absent)
+ */
+#include <ctype.h>
+#include <math.h>
+#include <stdio.h>
+#include <stdlib.h>
+#include <string.h>
+
+#include <udunits2.h>
+
+#include "dragarc/units.h"
+
+static const struct {
+    const char *symbol, *definition;
+} ADDED[] = {
+    {"mph", "mile/hour"},    {"kph", "km/hour"},     {"nmi", "1852 m"},          {"kn", "1852 m/hour"},
+    {"fps", "0.3048 m/s"},   {"gal", "3.785411784e-3 m3"}, {"gpm", "3.785411784e-3 m3/minute"},
+    {"oz", "0.028349523125 kg"}, {"lbm", "0.45359237 kg"}, {"deg", "degree"}, {"rev", "revolution"},
+    {"cP", "1e-3 Pa.s"},
+};
+
+struct dragarc_units {
+    ut_system *sys;
+    ut_unit *target[DRAGARC_Q_COUNT]; /* NULL for pure numbers */
+    ut_unit *radian;
+};
+
+void dragarc_units_free(dragarc_units *u)
+{
+    if (!u)
+        return;
+    for (int q = 0; q < DRAGARC_Q_COUNT; q++)
+        ut_free(u->target[q]);
+    ut_free(u->radian);
+    if (u->sys)
+        ut_free_system(u->sys);
+    free(u);
+}
+
+int dragarc_units_new(dragarc_units **out, dragarc_error *err)
+{
+    *out = NULL;
+    ut_set_error_message_handler(ut_ignore); /* UDUNITS would print to stderr; the library never prints */
+    dragarc_units *u = calloc(1, sizeof *u);
+    if (!u)
+        return dragarc_error_set(err, DRAGARC_ENOMEM, "", "out of memory for the units database");
+    u->sys = ut_read_xml(NULL);
+    if (!u->sys) {
+        const char *path = getenv("UDUNITS2_XML_PATH");
+        dragarc_units_free(u);
+        return dragarc_error_set(err, DRAGARC_EINVAL, "",
+                                 "the UDUNITS-2 units database could not be read (%s); is Debian's libudunits2-data "
+                                 "installed?",
+                                 path ? path : "the installed default");
+    }
+    for (size_t i = 0; i < sizeof ADDED / sizeof ADDED[0]; i++) {
+        ut_unit *v = ut_parse(u->sys, ADDED[i].definition, UT_ASCII);
+        ut_unmap_symbol_to_unit(u->sys, ADDED[i].symbol, UT_ASCII);
+        ut_unmap_name_to_unit(u->sys, ADDED[i].symbol, UT_ASCII); /* "gal" is the galileo's name */
+        int st = v ? ut_map_symbol_to_unit(ADDED[i].symbol, UT_ASCII, v) : UT_PARSE;
+        ut_free(v);
+        if (st != UT_SUCCESS) {
+            dragarc_units_free(u);
+            return dragarc_error_set(err, DRAGARC_EINVAL, "", "units: could not define \"%s\" as %s (UDUNITS status %d)",
+                                     ADDED[i].symbol, ADDED[i].definition, (int)st);
+        }
+    }
+    for (int q = 1; q < DRAGARC_Q_COUNT; q++) {
+        u->target[q] = ut_parse(u->sys, dragarc_quantity_unit(q), UT_ASCII);
+        if (!u->target[q]) {
+            dragarc_units_free(u);
+            return dragarc_error_set(err, DRAGARC_EINVAL, "", "units: UDUNITS-2 does not know \"%s\"", dragarc_quantity_unit(q));
+        }
+    }
+    u->radian = ut_parse(u->sys, "rad", UT_ASCII);
+    if (!u->radian) {
+        dragarc_units_free(u);
+        return dragarc_error_set(err, DRAGARC_EINVAL, "", "units: UDUNITS-2 does not know the radian");
+    }
+    *out = u;
+    return DRAGARC_OK;
+}
+
+/* Convertible as the same dimension: UDUNITS-2 also converts between reciprocal units (Hz and s, rpm and
+ * s/rad), through x -> k/x, which would read "10 Hz" as a time of 0.1 s; such a converter sends 0 to
+ * infinity, and is refused here. */
+static int convertible(const ut_unit *from, const ut_unit *to)
+{
+    if (!ut_are_convertible(from, to))
+        return 0;
+    cv_converter *cv = ut_get_converter((ut_unit *)from, (ut_unit *)to);
+    if (!cv)
+        return 0;
+    int linear = isfinite(cv_convert_double(cv, 0.0));
+    cv_free(cv);
+    return linear;
+}
+
+/* An angle's unit is a multiple of the radian: its definition names "rad" (UDUNITS treats the radian as
+ * dimensionless, so convertibility alone would let any pure number through). */
+static int is_angle_unit(const dragarc_units *u, const ut_unit *unit)
+{
+    char def[256];
+    if (!convertible(unit, u->radian))
+        return 0;
+    int n = ut_format(unit, def, sizeof def, UT_ASCII | UT_DEFINITION);
+    return n > 0 && (size_t)n < sizeof def && strstr(def, "rad") != NULL;
+}
+
+/* Which quantity a unit measures, for the message when it is not the one expected. */
+static const char *measures(const dragarc_units *u, const ut_unit *unit)
+{
+    if (is_angle_unit(u, unit))
+        return dragarc_quantity_name(DRAGARC_Q_ANGLE);
+    for (int q = 1; q < DRAGARC_Q_COUNT; q++)
+        if (q != DRAGARC_Q_ANGLE && q != DRAGARC_Q_TEMPERATURE_DIFFERENCE && convertible(unit, u->target[q]))
+            return dragarc_quantity_name(q);
+    ut_unit *one = ut_get_dimensionless_unit_one(u->sys);
+    int dimensionless = one && convertible(unit, one);
+    ut_free(one);
+    return dimensionless ? "a pure number" : NULL;
+}
+
+int dragarc_units_parse(dragarc_units *u, const char *text, dragarc_quantity q, double *out, dragarc_error *err)
+{
+    if (!text || (unsigned)q >= DRAGARC_Q_COUNT)
+        return dragarc_error_set(err, DRAGARC_EINVAL, "", "no value");
+    char *end = NULL;
+    double v = strtod(text, &end);
+    if (end == text)
+        return dragarc_error_set(err, DRAGARC_EINVAL, "", "\"%s\" does not start with a number", text);
+    while (*end && isspace((unsigned char)*end))
+        end++;
+    char unit_text[128];
+    size_t len = strlen(end);
+    while (len > 0 && isspace((unsigned char)end[len - 1]))
+        len--;
+    if (len >= sizeof unit_text)
+        return dragarc_error_set(err, DRAGARC_EINVAL, "", "\"%s\": the unit is too long", text);
+    memcpy(unit_text, end, len);
+    unit_text[len] = '\0';
+    if (!isfinite(v))
+        return dragarc_error_set(err, DRAGARC_EINVAL, "", "\"%s\" is not a finite number", text);
+    if (len == 0) { /* a number alone is in the quantity's own unit */
+        *out = v;
+        return DRAGARC_OK;
+    }
+    if (q == DRAGARC_Q_NUMBER)
+        return dragarc_error_set(err, DRAGARC_EINVAL, "", "\"%s\": this is a pure number and takes no unit", text);
+    ut_unit *unit = ut_parse(u->sys, unit_text, UT_UTF8);
+    if (!unit)
+        return dragarc_error_set(err, DRAGARC_EINVAL, "", "\"%s\": unknown unit \"%s\"", text, unit_text);
+    int ok = q == DRAGARC_Q_ANGLE ? is_angle_unit(u, unit) : convertible(unit, u->target[q]);
+    if (q != DRAGARC_Q_ANGLE && ok && is_angle_unit(u, unit) && !is_angle_unit(u, u->target[q]))
+        ok = 0; /* "30 deg" is no pure number, even though UDUNITS would convert it */
+    if (!ok) {
+        const char *what = measures(u, unit);
+        int rc = what ? dragarc_error_set(err, DRAGARC_EINVAL, "", "\"%s\" is %s, expected %s", text, what,
+                                          dragarc_quantity_name(q))
+                      : dragarc_error_set(err, DRAGARC_EINVAL, "", "\"%s\" is not %s (in %s)", text, dragarc_quantity_name(q),
+                                          dragarc_quantity_unit(q));
+        ut_free(unit);
+        return rc;
+    }
+    cv_converter *cv = ut_get_converter(unit, u->target[q]);
+    ut_free(unit);
+    if (!cv)
+        return dragarc_error_set(err, DRAGARC_EINVAL, "", "\"%s\": no conversion to %s", text, dragarc_quantity_unit(q));
+    double si = cv_convert_double(cv, v);
+    double zero = cv_convert_double(cv, 0.0);
+    if (q == DRAGARC_Q_TEMPERATURE_DIFFERENCE && zero != 0.0) {
+        /* A difference on a scale with an offset (degC, degF): only the slope counts. Taken over a wide
+         * interval, so that the offset (hundreds of kelvin) cancels to round-off of the slope itself. */
+        double slope = (cv_convert_double(cv, 1e6) - cv_convert_double(cv, -1e6)) / 2e6;
+        si = slope * v;
+    }
+    cv_free(cv);
+    if (!isfinite(si))
+        return dragarc_error_set(err, DRAGARC_EINVAL, "", "\"%s\" is out of range in %s", text, dragarc_quantity_unit(q));
+    *out = si;
+    return DRAGARC_OK;
+}

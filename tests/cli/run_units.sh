@@ -1,0 +1,73 @@
+#!/usr/bin/env bash
+# run_units.sh: values with units at the command line and in scenario files give the same results as the
+# same values in SI units, to the last digit printed (docs/units.md).
+# SPDX-License-Identifier: GPL-3.0-or-later
+#
+# usage: run_units.sh DRAGARC_BINARY TESTS_DATA_DIR
+#
+# The unit factors are the exact definitions of NIST Special Publication 811 (2008), appendix B (1 ft =
+# 0.3048 m, 1 yd = 0.9144 m, 1 mph = 0.44704 m/s, 1 oz = 0.028349523125 kg, 1 in = 0.0254 m, a difference
+# of 1 degF = 5/9 K); the SI twins below were converted by hand with them. Prints "ok NAME" or
+# "FAIL NAME: why" per check, then "N passed, M failed"; exits 1 if any failed, 2 if it cannot run.
+
+set -u
+export LC_ALL=C
+
+if [ "$#" -ne 2 ]; then
+    echo "usage: $0 DRAGARC_BINARY TESTS_DATA_DIR" >&2
+    exit 2
+fi
+bin=$1
+data=$(cd -- "$2" 2>/dev/null && pwd -P) || data=
+if [ ! -x "$bin" ] || [ -z "$data" ] || [ ! -f "$data/batted-ball-us.json" ]; then
+    echo "$0: needs the dragarc binary and the tests/data folder" >&2
+    exit 2
+fi
+root=$(mktemp -d "${TMPDIR:-/tmp}/dragarc-units.XXXXXX") || exit 2
+trap 'rm -rf -- "$root"' EXIT
+
+passed=0 failed=0
+check() { # check NAME: compares $root/a and $root/b, which must both exist and be equal
+    if [ ! -s "$root/a" ] || [ ! -s "$root/b" ]; then
+        echo "FAIL $1: no output ($(head -c 200 "$root/err" 2>/dev/null))"
+        failed=$((failed + 1))
+    elif ! cmp -s "$root/a" "$root/b"; then
+        echo "FAIL $1: outputs differ: $(diff "$root/a" "$root/b" | head -4 | tr '\n' ' ')"
+        failed=$((failed + 1))
+    else
+        echo "ok $1"
+        passed=$((passed + 1))
+    fi
+}
+
+# A scenario in US units and its SI twin: the same flight, every printed digit (the name line aside).
+"$bin" fly "$data/batted-ball-us.json" 2>"$root/err" | tail -n +2 >"$root/a"
+"$bin" fly "$data/batted-ball-si.json" 2>"$root/err" | tail -n +2 >"$root/b"
+check "fly: batted ball in US units = its SI twin (human summary)"
+"$bin" fly "$data/batted-ball-us.json" --json 2>"$root/err" | grep -v '"scenario"' >"$root/a"
+"$bin" fly "$data/batted-ball-si.json" --json 2>"$root/err" | grep -v '"scenario"' >"$root/b"
+check "fly --json: batted ball in US units = its SI twin, all 17 digits"
+
+# Command-line values with units.
+# 25 yd is 22.860000000000003 m in doubles (0.9144 has no exact binary form), so the aim search may take
+# another flight or two; the solutions must agree to every digit printed.
+"$bin" aim "$data/courtyard-lob.json" --range "25 yd" --height "2 ft" 2>"$root/err" | grep -v "flights flown" >"$root/a"
+"$bin" aim "$data/courtyard-lob.json" --range 22.86 --height 0.6096 2>"$root/err" | grep -v "flights flown" >"$root/b"
+check "aim --range \"25 yd\" --height \"2 ft\" = --range 22.86 --height 0.6096 (the solutions as printed)"
+"$bin" table "$data/ball-in-wind.json" --vary "speed=60 mph:100 mph:20 mph" --vary "temperature_offset=0 degF:18 degF:9 degF" --csv \
+    2>"$root/err" >"$root/a"
+"$bin" table "$data/ball-in-wind.json" --vary speed=26.8224:44.704:8.9408 --vary temperature_offset=0:10:5 --csv \
+    2>"$root/err" >"$root/b"
+check "table --vary with mph and degF differences = the same table in m/s and K"
+"$bin" table "$data/courtyard-lob.json" --ranges "10 yd:20 yd:5 yd" 2>"$root/err" >"$root/a"
+"$bin" table "$data/courtyard-lob.json" --ranges 9.144:18.288:4.572 2>"$root/err" >"$root/b"
+check "table --ranges in yards = the same aim table in metres (as printed)"
+"$bin" atmosphere "35 kft" "-1000 ft" --temperature-offset "-9 degF" 2>"$root/err" >"$root/a"
+"$bin" atmosphere 10668 -304.8 --temperature-offset -5 2>"$root/err" >"$root/b"
+check "atmosphere \"35 kft\" \"-1000 ft\" --temperature-offset \"-9 degF\" = 10668 -304.8 --temperature-offset -5"
+"$bin" fly "$data/ball-in-wind.json" --trajectory "$root/a" --dt "100 ms" 2>"$root/err" >/dev/null
+"$bin" fly "$data/ball-in-wind.json" --trajectory "$root/b" --dt 0.1 2>"$root/err" >/dev/null
+check "fly --dt \"100 ms\" = --dt 0.1"
+
+echo "$passed passed, $failed failed"
+[ "$failed" -eq 0 ]
