@@ -16,6 +16,7 @@
 #include "dragarc/flight.h"
 #include "dragarc/scenario.h"
 #include "dragarc/sweep.h"
+#include "dragarc/units.h"
 
 #ifdef __cplusplus
 extern "C" {
@@ -58,13 +59,17 @@ void dragarc_text_wrap(FILE *fp, const char *prefix, int indent, int width, cons
 /* Print "Cautions:" and the cautions for these DRAGARC_NOTE_* flags as wrapped "  - " items. */
 void dragarc_cautions_print(FILE *fp, unsigned notes, int width);
 
-/* Write the flight's sampled points as CSV with a header row:
- * t,x,y,z,vx,vy,vz,speed,mach,reynolds (SI units: s, m, m/s; Mach and Reynolds numbers). */
-int dragarc_flight_write_csv(FILE *fp, const dragarc_flight *f, dragarc_error *err);
+/* Write the flight's sampled points as CSV with a header row whose names carry the units of display d
+ * (NULL: SI): t_s,x_m,y_m,z_m,vx_m_s,vy_m_s,vz_m_s,speed_m_s,mach,reynolds. */
+int dragarc_flight_write_csv(FILE *fp, const dragarc_flight *f, const dragarc_display *d, dragarc_error *err);
 
-/* The `fly --json` document: {"scenario", "summary": {...}, "solver": {...}, "cautions": [...]}.
- * Angles in degrees. Caller frees the returned string with free(); NULL when out of memory. */
-char *dragarc_flight_json(const dragarc_scenario *s, const dragarc_flight *f);
+/* The `fly --json` document: {"scenario", "summary": {...}, "solver": {...}, "units": {...}, "cautions": [...]},
+ * values in the units of display d (NULL: SI, degrees for angles), each named in "units". Caller frees the
+ * returned string with free(); NULL when out of memory. */
+char *dragarc_flight_json(const dragarc_scenario *s, const dragarc_flight *f, const dragarc_display *d);
+
+/* "m/s" -> "m_s", "ft.lbf" -> "ft_lbf": a unit as the tail of a column name (n bytes at most). */
+void dragarc_unit_column_suffix(const char *symbol, char *out, size_t n);
 
 /* The `aim --json` document: {"scenario", "target", "solutions": [...], "max_range",
  * "max_range_elevation", "flights", "units", "cautions"}; angles in degrees. Caller frees with free(). */

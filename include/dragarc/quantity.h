@@ -30,6 +30,7 @@ typedef enum dragarc_quantity {
     DRAGARC_Q_ANGLE,                 /* degree (the interface unit of angles) */
     DRAGARC_Q_LINEAR_DRAG,           /* kg/s = N s/m */
     DRAGARC_Q_QUADRATIC_DRAG,        /* kg/m = N s^2/m^2 */
+    DRAGARC_Q_ENERGY,                /* J */
     DRAGARC_Q_COUNT
 } dragarc_quantity;
 

@@ -36,6 +36,51 @@ void dragarc_units_free(dragarc_units *u);
  * number given a unit, a result that is not finite). */
 int dragarc_units_parse(dragarc_units *u, const char *text, dragarc_quantity q, double *out, dragarc_error *err);
 
+/* ---- output units ---- */
+
+/* One output unit: value_out = scale * value_SI + offset (offset only for absolute temperatures). */
+typedef struct dragarc_unit_out {
+    char symbol[24]; /* as printed: "m", "ft", "mph", "degree" */
+    double scale, offset;
+} dragarc_unit_out;
+
+#define DRAGARC_DISPLAY_MAX_FIELDS 32
+
+/* The units results are written in: one per quantity, and overrides for single output fields ("range"
+ * in yards while other lengths are in feet). A plain struct: copy it freely. */
+typedef struct dragarc_display {
+    dragarc_unit_out quantity[DRAGARC_Q_COUNT];
+    size_t nfields;
+    struct {
+        char name[32];
+        dragarc_quantity q;
+        dragarc_unit_out unit;
+    } fields[DRAGARC_DISPLAY_MAX_FIELDS];
+} dragarc_display;
+
+/* SI units (degrees for angles); needs no units database. */
+void dragarc_display_si(dragarc_display *d);
+
+/* A named set: "si", or "us" (ft, mph, lb, degF, psi, ft.lbf, ...: docs/units.md). */
+int dragarc_display_system(dragarc_display *d, dragarc_units *u, const char *name, dragarc_error *err);
+
+/* Override KEY=UNIT: KEY is a quantity ("length", "speed", "energy", ...) or an output field ("range",
+ * "impact_speed", ...: dragarc_display_fields); UNIT must measure the same quantity. */
+int dragarc_display_set(dragarc_display *d, dragarc_units *u, const char *key, const char *unit, dragarc_error *err);
+
+/* The unit for output field `field` (NULL: none) of quantity q. */
+const dragarc_unit_out *dragarc_display_unit(const dragarc_display *d, const char *field, dragarc_quantity q);
+
+/* A value in SI units (degrees for angles) in unit u. */
+double dragarc_display_value(const dragarc_unit_out *u, double si);
+
+/* The output fields that may be given a unit of their own, with their quantities; *count gets how many. */
+typedef struct dragarc_output_field {
+    const char *name;
+    dragarc_quantity q;
+} dragarc_output_field;
+const dragarc_output_field *dragarc_display_fields(size_t *count);
+
 #ifdef __cplusplus
 }
 #endif

@@ -9,6 +9,7 @@
 #include "dragarc/dragarc.h"
 #include "dragarc/flight.h"
 #include "dragarc/quantity.h"
+#include "dragarc/units.h"
 #include "dragarc/scenario.h"
 
 /* Exit statuses (documented in docs/cli.md). */
@@ -37,8 +38,14 @@ void cli_units_release(void);
  * returned string is static storage in the CLI. */
 const char *cli_profile_path(void);
 
-/* Print the human summary of a flight to fp, and its cautions when cautions_too. */
-void cli_print_flight(FILE *fp, const char *label, const dragarc_scenario *s, const dragarc_flight *f, int cautions_too);
+/* Print the human summary of a flight to fp in the units of d (NULL: SI), and its cautions when cautions_too. */
+void cli_print_flight(FILE *fp, const char *label, const dragarc_scenario *s, const dragarc_flight *f,
+                      const dragarc_display *d, int cautions_too);
+
+/* The output units from --units SYSTEM (NULL: si) and --unit KEY=UNIT options, into *d. 0 on success, else
+ * the exit status of the usage error printed. */
+int cli_display_options(const char *cmd, const char *system, const char *const *specs, size_t nspecs,
+                        dragarc_display *d);
 
 
 /* Fly a scenario and write its outputs; shared by `fly` and `demo`. */
@@ -46,6 +53,7 @@ typedef struct cli_fly_options {
     int json;
     const char *trajectory; /* CSV path or NULL */
     double dt;              /* s, sampling interval for the trajectory */
+    dragarc_display display; /* output units */
 } cli_fly_options;
 int cli_fly_scenario(const char *where, const dragarc_scenario *s, const cli_fly_options *o);
 

@@ -111,33 +111,86 @@ static void describe_drag(char *buf, size_t n, const dragarc_drag *d)
     }
 }
 
-void cli_print_flight(FILE *fp, const char *label, const dragarc_scenario *s, const dragarc_flight *f, int cautions_too)
+void cli_print_flight(FILE *fp, const char *label, const dragarc_scenario *s, const dragarc_flight *f,
+                      const dragarc_display *d, int cautions_too)
 {
+    dragarc_display si;
+    if (!d) {
+        dragarc_display_si(&si);
+        d = &si;
+    }
+#define SHOW(field, q, v) dragarc_display_value(dragarc_display_unit(d, field, q), v)
+#define UNIT(field, q) dragarc_display_unit(d, field, q)->symbol
     const dragarc_projectile *p = &s->projectile;
     char drag[96];
     describe_drag(drag, sizeof drag, &p->drag);
     fprintf(fp, "%s%s%s\n", label, s->name[0] ? ": " : "", s->name);
-    fprintf(fp, "  projectile      %s%s%.4g kg, diameter %.4g m, drag %s\n", p->name, p->name[0] ? ", " : "",
-            p->mass, p->diameter, drag);
-    fprintf(fp, "  launch          %.4g m/s at %.4g deg elevation, azimuth %.4g deg, from %.4g m\n",
-            s->launch.speed, s->launch.elevation * DEG, s->launch.azimuth * DEG, s->launch.height);
-    fprintf(fp, "  range           %.2f m (downrange %.2f m, crossrange %.2f m %s)\n", f->range, f->downrange,
-            fabs(f->crossrange), f->crossrange >= -0.005 ? "right" : "left"); /* no "0.00 m left" */
-    fprintf(fp, "  time of flight  %.3f s\n", f->time_of_flight);
-    fprintf(fp, "  apex height     %.2f m at %.3f s\n", f->apex_height, f->apex_time);
-    fprintf(fp, "  impact          %.2f m/s at %.1f deg below horizontal, %.3g J\n", f->impact_speed,
-            f->impact_angle * DEG, f->impact_energy);
+    fprintf(fp, "  projectile      %s%s%.4g %s, diameter %.4g %s, drag %s\n", p->name, p->name[0] ? ", " : "",
+            SHOW("mass", DRAGARC_Q_MASS, p->mass), UNIT("mass", DRAGARC_Q_MASS),
+            SHOW("diameter", DRAGARC_Q_LENGTH, p->diameter), UNIT("diameter", DRAGARC_Q_LENGTH), drag);
+    const char *angle = UNIT(NULL, DRAGARC_Q_ANGLE);
+    if (strcmp(angle, "degree") == 0)
+        angle = "deg";
+    fprintf(fp, "  launch          %.4g %s at %.4g %s elevation, azimuth %.4g %s, from %.4g %s\n",
+            SHOW("launch_speed", DRAGARC_Q_SPEED, s->launch.speed), UNIT("launch_speed", DRAGARC_Q_SPEED),
+            SHOW(NULL, DRAGARC_Q_ANGLE, s->launch.elevation * DEG), angle,
+            SHOW(NULL, DRAGARC_Q_ANGLE, s->launch.azimuth * DEG), angle,
+            SHOW("launch_height", DRAGARC_Q_LENGTH, s->launch.height), UNIT("launch_height", DRAGARC_Q_LENGTH));
+    double cross = SHOW("crossrange", DRAGARC_Q_LENGTH, f->crossrange);
+    fprintf(fp, "  range           %.2f %s (downrange %.2f %s, crossrange %.2f %s %s)\n",
+            SHOW("range", DRAGARC_Q_LENGTH, f->range), UNIT("range", DRAGARC_Q_LENGTH),
+            SHOW("downrange", DRAGARC_Q_LENGTH, f->downrange), UNIT("downrange", DRAGARC_Q_LENGTH), fabs(cross),
+            UNIT("crossrange", DRAGARC_Q_LENGTH), cross >= -0.005 ? "right" : "left"); /* no "0.00 m left" */
+    fprintf(fp, "  time of flight  %.3f %s\n", SHOW("time_of_flight", DRAGARC_Q_TIME, f->time_of_flight),
+            UNIT("time_of_flight", DRAGARC_Q_TIME));
+    fprintf(fp, "  apex height     %.2f %s at %.3f %s\n", SHOW("apex_height", DRAGARC_Q_LENGTH, f->apex_height),
+            UNIT("apex_height", DRAGARC_Q_LENGTH), SHOW("apex_time", DRAGARC_Q_TIME, f->apex_time),
+            UNIT("apex_time", DRAGARC_Q_TIME));
+    const char *iangle = UNIT("impact_angle", DRAGARC_Q_ANGLE);
+    fprintf(fp, "  impact          %.2f %s at %.1f %s below horizontal, %.3g %s\n",
+            SHOW("impact_speed", DRAGARC_Q_SPEED, f->impact_speed), UNIT("impact_speed", DRAGARC_Q_SPEED),
+            SHOW("impact_angle", DRAGARC_Q_ANGLE, f->impact_angle * DEG), strcmp(iangle, "degree") == 0 ? "deg" : iangle,
+            SHOW("impact_energy", DRAGARC_Q_ENERGY, f->impact_energy), UNIT("impact_energy", DRAGARC_Q_ENERGY));
     if (isfinite(f->terminal_speed))
-        fprintf(fp, "  terminal speed  %.3f m/s (still air at launch height)\n", f->terminal_speed);
+        fprintf(fp, "  terminal speed  %.3f %s (still air at launch height)\n",
+                SHOW("terminal_speed", DRAGARC_Q_SPEED, f->terminal_speed), UNIT("terminal_speed", DRAGARC_Q_SPEED));
     else
         fprintf(fp, "  terminal speed  none (no drag, or the body does not sink)\n");
     if (isfinite(f->vacuum_range))
-        fprintf(fp, "  vacuum range    %.2f m (same launch without air)\n", f->vacuum_range);
+        fprintf(fp, "  vacuum range    %.2f %s (same launch without air)\n",
+                SHOW("vacuum_range", DRAGARC_Q_LENGTH, f->vacuum_range), UNIT("vacuum_range", DRAGARC_Q_LENGTH));
     fprintf(fp, "  solver          %s, %ld steps, rtol %.1e, atol %.1e\n", dragarc_method_name(f->method), f->steps,
             s->solver.rtol, s->solver.atol);
+#undef SHOW
+#undef UNIT
     if (!cautions_too)
         return;
     dragarc_cautions_print(fp, f->notes, 100);
+}
+
+int cli_display_options(const char *cmd, const char *system, const char *const *specs, size_t nspecs,
+                        dragarc_display *d)
+{
+    dragarc_display_si(d);
+    if (!system && nspecs == 0)
+        return 0;
+    dragarc_error err;
+    if (!cli_units && dragarc_units_new(&cli_units, &err) != DRAGARC_OK)
+        return cli_report(cmd, &err);
+    if (system && dragarc_display_system(d, cli_units, system, &err) != DRAGARC_OK)
+        return cli_usage_error(cmd, "--units: %s", err.message);
+    for (size_t i = 0; i < nspecs; i++) {
+        const char *eq = strchr(specs[i], '=');
+        char key[64];
+        size_t n = eq ? (size_t)(eq - specs[i]) : 0;
+        if (!eq || n == 0 || n >= sizeof key || !eq[1])
+            return cli_usage_error(cmd, "--unit needs KEY=UNIT, such as range=yd or speed=mph, not '%s'", specs[i]);
+        memcpy(key, specs[i], n);
+        key[n] = '\0';
+        if (dragarc_display_set(d, cli_units, key, eq + 1, &err) != DRAGARC_OK)
+            return cli_usage_error(cmd, "--unit %s: %s", specs[i], err.message);
+    }
+    return 0;
 }
 
 int cli_fly_scenario(const char *where, const dragarc_scenario *s, const cli_fly_options *o)
@@ -158,7 +211,7 @@ int cli_fly_scenario(const char *where, const dragarc_scenario *s, const cli_fly
         dragarc_output out;
         rc = dragarc_output_open(&out, o->trajectory, &err);
         if (rc == DRAGARC_OK) {
-            rc = dragarc_flight_write_csv(out.fp, &f, &err);
+            rc = dragarc_flight_write_csv(out.fp, &f, &o->display, &err);
             if (rc == DRAGARC_OK)
                 rc = dragarc_output_commit(&out, &err);
             else
@@ -171,7 +224,7 @@ int cli_fly_scenario(const char *where, const dragarc_scenario *s, const cli_fly
         }
     }
     if (o->json) {
-        char *text = dragarc_flight_json(s, &f);
+        char *text = dragarc_flight_json(s, &f, &o->display);
         if (!text) {
             dragarc_flight_clear(&f);
             dragarc_error_set(&err, DRAGARC_ENOMEM, "", "out of memory writing JSON");
@@ -180,7 +233,7 @@ int cli_fly_scenario(const char *where, const dragarc_scenario *s, const cli_fly
         puts(text);
         free(text);
     } else {
-        cli_print_flight(stdout, "dragarc fly", s, &f, 1);
+        cli_print_flight(stdout, "dragarc fly", s, &f, &o->display, 1);
     }
     dragarc_flight_clear(&f);
     return EXIT_OK;

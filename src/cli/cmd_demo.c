@@ -128,7 +128,7 @@ int cmd_demo(int argc, char **argv)
             dragarc_scenario_clear(&s);
             return cli_report("demo", &err);
         }
-        cli_print_flight(stdout, CASES[k].title, &s, &f, 0);
+        cli_print_flight(stdout, CASES[k].title, &s, &f, NULL, 0);
         if (isfinite(f.vacuum_range) && f.vacuum_range > 0.0)
             printf("  drag shortened the range to %.0f %% of the vacuum range\n", 100.0 * f.range / f.vacuum_range);
         if (isfinite(f.relaxation_time))

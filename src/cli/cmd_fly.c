@@ -8,16 +8,20 @@
 #include "cli/cli.h"
 
 static const char HELP[] =
-    "usage: dragarc fly SCENARIO [--json] [--trajectory FILE.csv] [--dt SECONDS]\n"
+    "usage: dragarc fly SCENARIO [--json] [--trajectory FILE.csv] [--dt SECONDS] [--units si|us]\n"
+    "                            [--unit KEY=UNIT ...]\n"
     "\n"
     "Fly the scenario file SCENARIO (JSON, see docs/scenario.md) from launch to ground impact and print\n"
     "range, downrange and crossrange, time of flight, apex, impact speed, angle and energy, the still-air\n"
     "terminal speed and the vacuum range, with cautions.\n"
     "\n"
     "  --json               print one JSON object instead of the summary\n"
-    "  --trajectory FILE    write t,x,y,z,vx,vy,vz,speed,mach,reynolds (SI) every --dt seconds, plus the\n"
-    "                       exact impact row; written whole or not at all\n"
+    "  --trajectory FILE    write t,x,y,z,vx,vy,vz,speed,mach,reynolds (units in the column names) every\n"
+    "                       --dt seconds, plus the exact impact row; written whole or not at all\n"
     "  --dt SECONDS         sampling interval for --trajectory (default 0.05; or with a unit, \"50 ms\")\n"
+    "  --units si|us        the units of every output: SI (default) or US customary (ft, mph, lb, ft.lbf)\n"
+    "  --unit KEY=UNIT      one quantity (length=yd, speed=kt, energy=J) or one field (range=yd,\n"
+    "                       impact_speed=mph) in a unit of its own; repeat for more (docs/units.md)\n"
     "  -h, --help           this help\n"
     "\n"
     "Numeric values in the scenario may carry units (\"89.5 mph\", \"3 ft\"): see docs/units.md.\n"
@@ -28,7 +32,8 @@ static const char HELP[] =
 int cmd_fly(int argc, char **argv)
 {
     cli_fly_options o = {.json = 0, .trajectory = NULL, .dt = 0.05};
-    const char *file = NULL;
+    const char *file = NULL, *system = NULL, *specs[DRAGARC_DISPLAY_MAX_FIELDS + DRAGARC_Q_COUNT];
+    size_t nspecs = 0;
     int dt_given = 0;
     for (int i = 1; i < argc; i++) {
         const char *a = argv[i];
@@ -49,6 +54,16 @@ int cmd_fly(int argc, char **argv)
                 return why[0] ? cli_usage_error("fly", "--dt %s", why)
                               : cli_usage_error("fly", "--dt needs a positive number of seconds");
             dt_given = 1;
+        } else if (strcmp(a, "--units") == 0) {
+            if (++i >= argc)
+                return cli_usage_error("fly", "--units needs si or us");
+            system = argv[i];
+        } else if (strcmp(a, "--unit") == 0) {
+            if (++i >= argc)
+                return cli_usage_error("fly", "--unit needs KEY=UNIT, such as range=yd or speed=mph");
+            if (nspecs == sizeof specs / sizeof specs[0])
+                return cli_usage_error("fly", "too many --unit options");
+            specs[nspecs++] = argv[i];
         } else if (a[0] == '-' && a[1] != '\0') {
             return cli_usage_error("fly", "unknown option '%s'", a);
         } else if (!file) {
@@ -61,6 +76,9 @@ int cmd_fly(int argc, char **argv)
         return cli_usage_error("fly", "needs a scenario file");
     if (dt_given && !o.trajectory)
         return cli_usage_error("fly", "--dt sets the --trajectory interval; give --trajectory FILE too");
+    int st = cli_display_options("fly", system, specs, nspecs, &o.display);
+    if (st != 0)
+        return st;
     dragarc_scenario s;
     dragarc_error err;
     if (dragarc_scenario_read(file, cli_profile_path(), &s, &err) != DRAGARC_OK)

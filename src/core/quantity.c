@@ -22,6 +22,7 @@ static const struct {
     [DRAGARC_Q_ANGLE] = {"an angle", "degree"},
     [DRAGARC_Q_LINEAR_DRAG] = {"a linear drag constant (force per speed)", "kg/s"},
     [DRAGARC_Q_QUADRATIC_DRAG] = {"a quadratic drag constant (force per speed squared)", "kg/m"},
+    [DRAGARC_Q_ENERGY] = {"an energy", "J"},
 };
 
 const char *dragarc_quantity_name(dragarc_quantity q)

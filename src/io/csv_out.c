@@ -1,4 +1,5 @@
-/* csv_out.c: trajectory samples as CSV (C locale, '.' decimal separator, 17 significant digits max).
+/* csv_out.c: trajectory samples as CSV (C locale, '.' decimal separator, 17 significant digits max), in the
+ * units of a display, named in the column names.
  * SPDX-License-Identifier: GPL-3.0-or-later
  */
 #include <errno.h>
@@ -6,12 +7,40 @@
 
 #include "dragarc/output.h"
 
-int dragarc_flight_write_csv(FILE *fp, const dragarc_flight *f, dragarc_error *err)
+void dragarc_unit_column_suffix(const char *symbol, char *out, size_t n)
 {
-    fputs("t,x,y,z,vx,vy,vz,speed,mach,reynolds\n", fp);
+    size_t k = 0;
+    for (const char *c = symbol; *c && k + 1 < n; c++) {
+        if (*c == '(' || *c == ')')
+            continue;
+        out[k++] = (*c == '/' || *c == '.' || *c == ' ' || *c == '^') ? '_' : *c;
+    }
+    if (n > 0)
+        out[k] = '\0';
+}
+
+int dragarc_flight_write_csv(FILE *fp, const dragarc_flight *f, const dragarc_display *d, dragarc_error *err)
+{
+    dragarc_display si;
+    if (!d) {
+        dragarc_display_si(&si);
+        d = &si;
+    }
+    const dragarc_unit_out *ut = dragarc_display_unit(d, NULL, DRAGARC_Q_TIME);
+    const dragarc_unit_out *ul = dragarc_display_unit(d, NULL, DRAGARC_Q_LENGTH);
+    const dragarc_unit_out *uv = dragarc_display_unit(d, NULL, DRAGARC_Q_SPEED);
+    char st[32], sl[32], sv[32];
+    dragarc_unit_column_suffix(ut->symbol, st, sizeof st);
+    dragarc_unit_column_suffix(ul->symbol, sl, sizeof sl);
+    dragarc_unit_column_suffix(uv->symbol, sv, sizeof sv);
+    fprintf(fp, "t_%s,x_%s,y_%s,z_%s,vx_%s,vy_%s,vz_%s,speed_%s,mach,reynolds\n", st, sl, sl, sl, sv, sv, sv, sv);
     for (size_t i = 0; i < f->npoints; i++) {
         const dragarc_flight_point *p = &f->points[i];
-        double v[10] = {p->t, p->pos[0], p->pos[1], p->pos[2], p->vel[0], p->vel[1], p->vel[2], p->speed, p->mach, p->reynolds};
+        double v[10] = {dragarc_display_value(ut, p->t),      dragarc_display_value(ul, p->pos[0]),
+                        dragarc_display_value(ul, p->pos[1]), dragarc_display_value(ul, p->pos[2]),
+                        dragarc_display_value(uv, p->vel[0]), dragarc_display_value(uv, p->vel[1]),
+                        dragarc_display_value(uv, p->vel[2]), dragarc_display_value(uv, p->speed),
+                        p->mach,                              p->reynolds};
         for (int k = 0; k < 10; k++) {
             if (k)
                 fputc(',', fp);

@@ -14,6 +14,7 @@
 #include "dragarc/aim.h"
 #include "dragarc/cautions.h"
 #include "dragarc/output.h"
+#include "dragarc/units.h"
 
 static void add_num(cJSON *o, const char *key, double v)
 {
@@ -55,42 +56,60 @@ static void add_cautions(cJSON *doc, unsigned notes)
         cJSON_AddItemToArray(ca, cJSON_CreateString(cautions[i]));
 }
 
-char *dragarc_flight_json(const dragarc_scenario *s, const dragarc_flight *f)
+/* A summary value in its display unit, with its unit recorded in `units`. */
+static void add_shown(cJSON *o, cJSON *units, const dragarc_display *d, const char *key, dragarc_quantity q, double si)
 {
+    const dragarc_unit_out *u = dragarc_display_unit(d, key, q);
+    add_num(o, key, dragarc_display_value(u, si));
+    cJSON_AddStringToObject(units, key, u->symbol);
+}
+
+static cJSON *vec3_shown(cJSON *units, const dragarc_display *d, const char *key, dragarc_quantity q, const double *v)
+{
+    const dragarc_unit_out *u = dragarc_display_unit(d, key, q);
+    double w[3] = {dragarc_display_value(u, v[0]), dragarc_display_value(u, v[1]), dragarc_display_value(u, v[2])};
+    cJSON_AddStringToObject(units, key, u->symbol);
+    return vec3(w);
+}
+
+char *dragarc_flight_json(const dragarc_scenario *s, const dragarc_flight *f, const dragarc_display *d)
+{
+    dragarc_display si;
+    if (!d) {
+        dragarc_display_si(&si);
+        d = &si;
+    }
     cJSON *doc = cJSON_CreateObject();
     if (!doc)
         return NULL;
     cJSON_AddStringToObject(doc, "scenario", s->name);
     cJSON_AddStringToObject(doc, "dragarc_version", DRAGARC_VERSION_STRING);
     cJSON *sum = cJSON_AddObjectToObject(doc, "summary");
-    add_num(sum, "range", f->range);
-    add_num(sum, "downrange", f->downrange);
-    add_num(sum, "crossrange", f->crossrange);
-    add_num(sum, "time_of_flight", f->time_of_flight);
-    add_num(sum, "apex_height", f->apex_height);
-    add_num(sum, "apex_time", f->apex_time);
-    add_num(sum, "impact_speed", f->impact_speed);
-    add_num(sum, "impact_angle", f->impact_angle / DRAGARC_DEG);
-    add_num(sum, "impact_energy", f->impact_energy);
-    add_num(sum, "launch_energy", f->launch_energy);
-    add_num(sum, "terminal_speed", f->terminal_speed);
-    add_num(sum, "vacuum_range", f->vacuum_range);
-    cJSON_AddItemToObject(sum, "impact_position", vec3(f->impact));
-    cJSON_AddItemToObject(sum, "impact_velocity", vec3(f->impact + 3));
+    cJSON *sol = cJSON_AddObjectToObject(doc, "solver");
+    cJSON *un = cJSON_CreateObject();
+    add_shown(sum, un, d, "range", DRAGARC_Q_LENGTH, f->range);
+    add_shown(sum, un, d, "downrange", DRAGARC_Q_LENGTH, f->downrange);
+    add_shown(sum, un, d, "crossrange", DRAGARC_Q_LENGTH, f->crossrange);
+    add_shown(sum, un, d, "time_of_flight", DRAGARC_Q_TIME, f->time_of_flight);
+    add_shown(sum, un, d, "apex_height", DRAGARC_Q_LENGTH, f->apex_height);
+    add_shown(sum, un, d, "apex_time", DRAGARC_Q_TIME, f->apex_time);
+    add_shown(sum, un, d, "impact_speed", DRAGARC_Q_SPEED, f->impact_speed);
+    add_shown(sum, un, d, "impact_angle", DRAGARC_Q_ANGLE, f->impact_angle / DRAGARC_DEG);
+    add_shown(sum, un, d, "impact_energy", DRAGARC_Q_ENERGY, f->impact_energy);
+    add_shown(sum, un, d, "launch_energy", DRAGARC_Q_ENERGY, f->launch_energy);
+    add_shown(sum, un, d, "terminal_speed", DRAGARC_Q_SPEED, f->terminal_speed);
+    add_shown(sum, un, d, "vacuum_range", DRAGARC_Q_LENGTH, f->vacuum_range);
+    cJSON_AddItemToObject(sum, "impact_position", vec3_shown(un, d, "impact_position", DRAGARC_Q_LENGTH, f->impact));
+    cJSON_AddItemToObject(sum, "impact_velocity",
+                          vec3_shown(un, d, "impact_velocity", DRAGARC_Q_SPEED, f->impact + 3));
     add_num(sum, "max_mach", f->max_mach);
     add_num(sum, "max_reynolds", f->max_reynolds);
-    cJSON *sol = cJSON_AddObjectToObject(doc, "solver");
     cJSON_AddStringToObject(sol, "method", dragarc_method_name(f->method));
     cJSON_AddNumberToObject(sol, "steps", (double)f->steps);
     cJSON_AddNumberToObject(sol, "rtol", s->solver.rtol);
     cJSON_AddNumberToObject(sol, "atol", s->solver.atol);
-    add_num(sol, "relaxation_time", f->relaxation_time);
-    static const char *const units[] = {"range", "m", "downrange", "m", "crossrange", "m", "time_of_flight", "s",
-                                        "apex_height", "m", "apex_time", "s", "impact_speed", "m/s",
-                                        "impact_angle", "degree", "impact_energy", "J", "launch_energy", "J",
-                                        "terminal_speed", "m/s", "vacuum_range", "m", "impact_position", "m",
-                                        "impact_velocity", "m/s", "relaxation_time", "s", NULL};
-    add_units(doc, units);
+    add_shown(sol, un, d, "relaxation_time", DRAGARC_Q_TIME, f->relaxation_time);
+    cJSON_AddItemToObject(doc, "units", un);
     add_cautions(doc, f->notes);
     return finish(doc);
 }

@@ -203,3 +203,185 @@ int dragarc_units_parse(dragarc_units *u, const char *text, dragarc_quantity q, 
     *out = si;
     return DRAGARC_OK;
 }
+
+/* ---- output units ---------------------------------------------------------------------------------- */
+
+/* Output fields that may have a unit of their own (docs/units.md, "Output units"). */
+static const dragarc_output_field FIELDS[] = {
+    {"range", DRAGARC_Q_LENGTH},           {"downrange", DRAGARC_Q_LENGTH},
+    {"crossrange", DRAGARC_Q_LENGTH},      {"apex_height", DRAGARC_Q_LENGTH},
+    {"vacuum_range", DRAGARC_Q_LENGTH},    {"impact_position", DRAGARC_Q_LENGTH},
+    {"launch_height", DRAGARC_Q_LENGTH},   {"diameter", DRAGARC_Q_LENGTH},
+    {"altitude", DRAGARC_Q_LENGTH},        {"time_of_flight", DRAGARC_Q_TIME},
+    {"apex_time", DRAGARC_Q_TIME},         {"relaxation_time", DRAGARC_Q_TIME},
+    {"impact_speed", DRAGARC_Q_SPEED},     {"terminal_speed", DRAGARC_Q_SPEED},
+    {"launch_speed", DRAGARC_Q_SPEED},     {"impact_velocity", DRAGARC_Q_SPEED},
+    {"speed_of_sound", DRAGARC_Q_SPEED},   {"impact_energy", DRAGARC_Q_ENERGY},
+    {"launch_energy", DRAGARC_Q_ENERGY},   {"mass", DRAGARC_Q_MASS},
+    {"impact_angle", DRAGARC_Q_ANGLE},     {"pressure", DRAGARC_Q_PRESSURE},
+    {"density", DRAGARC_Q_DENSITY},        {"temperature", DRAGARC_Q_TEMPERATURE},
+    {"viscosity", DRAGARC_Q_VISCOSITY},
+};
+
+/* Quantity keywords for --unit, in quantity order (NULL: not settable). */
+static const char *const QUANTITY_KEYS[DRAGARC_Q_COUNT] = {
+    [DRAGARC_Q_LENGTH] = "length",
+    [DRAGARC_Q_SPEED] = "speed",
+    [DRAGARC_Q_MASS] = "mass",
+    [DRAGARC_Q_TIME] = "time",
+    [DRAGARC_Q_TEMPERATURE] = "temperature",
+    [DRAGARC_Q_TEMPERATURE_DIFFERENCE] = "temperature_difference",
+    [DRAGARC_Q_PRESSURE] = "pressure",
+    [DRAGARC_Q_DENSITY] = "density",
+    [DRAGARC_Q_VISCOSITY] = "viscosity",
+    [DRAGARC_Q_ACCELERATION] = "acceleration",
+    [DRAGARC_Q_AREA] = "area",
+    [DRAGARC_Q_VOLUME] = "volume",
+    [DRAGARC_Q_ANGLE] = "angle",
+    [DRAGARC_Q_LINEAR_DRAG] = "linear_drag",
+    [DRAGARC_Q_QUADRATIC_DRAG] = "quadratic_drag",
+    [DRAGARC_Q_ENERGY] = "energy",
+};
+
+/* US customary units for each quantity (NIST SP 811 names; ft.lbf for energy, lb/ft3 for density). */
+static const char *const US_UNITS[DRAGARC_Q_COUNT] = {
+    [DRAGARC_Q_LENGTH] = "ft",
+    [DRAGARC_Q_SPEED] = "mph",
+    [DRAGARC_Q_MASS] = "lb",
+    [DRAGARC_Q_TIME] = "s",
+    [DRAGARC_Q_TEMPERATURE] = "degF",
+    [DRAGARC_Q_TEMPERATURE_DIFFERENCE] = "degF",
+    [DRAGARC_Q_PRESSURE] = "psi",
+    [DRAGARC_Q_DENSITY] = "lb/ft3",
+    [DRAGARC_Q_VISCOSITY] = "lb/(ft.s)",
+    [DRAGARC_Q_ACCELERATION] = "ft/s2",
+    [DRAGARC_Q_AREA] = "ft2",
+    [DRAGARC_Q_VOLUME] = "ft3",
+    [DRAGARC_Q_ANGLE] = "degree",
+    [DRAGARC_Q_LINEAR_DRAG] = "lb/s",
+    [DRAGARC_Q_QUADRATIC_DRAG] = "lb/ft",
+    [DRAGARC_Q_ENERGY] = "ft.lbf",
+};
+
+const dragarc_output_field *dragarc_display_fields(size_t *count)
+{
+    if (count)
+        *count = sizeof FIELDS / sizeof FIELDS[0];
+    return FIELDS;
+}
+
+static void unit_identity(dragarc_unit_out *o, const char *symbol)
+{
+    snprintf(o->symbol, sizeof o->symbol, "%s", symbol);
+    o->scale = 1.0;
+    o->offset = 0.0;
+}
+
+void dragarc_display_si(dragarc_display *d)
+{
+    memset(d, 0, sizeof *d);
+    for (int q = 0; q < DRAGARC_Q_COUNT; q++)
+        unit_identity(&d->quantity[q], dragarc_quantity_unit((dragarc_quantity)q));
+}
+
+/* "a mass" -> "mass", "an angle" -> "angle" */
+static const char *bare(const char *name)
+{
+    return strncmp(name, "an ", 3) == 0 ? name + 3 : strncmp(name, "a ", 2) == 0 ? name + 2 : name;
+}
+
+/* The output unit `symbol` for quantity q: its scale and offset from the SI (degree) unit, by UDUNITS-2. */
+static int unit_for(dragarc_units *u, dragarc_quantity q, const char *symbol, dragarc_unit_out *o, dragarc_error *err)
+{
+    if (strlen(symbol) >= sizeof o->symbol)
+        return dragarc_error_set(err, DRAGARC_EINVAL, "", "\"%s\": the unit is too long", symbol);
+    if (q == DRAGARC_Q_NUMBER)
+        return dragarc_error_set(err, DRAGARC_EINVAL, "", "\"%s\": a pure number takes no unit", symbol);
+    ut_unit *unit = ut_parse(u->sys, symbol, UT_UTF8);
+    if (!unit)
+        return dragarc_error_set(err, DRAGARC_EINVAL, "", "unknown unit \"%s\"", symbol);
+    int ok = q == DRAGARC_Q_ANGLE ? is_angle_unit(u, unit) : convertible(unit, u->target[q]);
+    if (q != DRAGARC_Q_ANGLE && ok && is_angle_unit(u, unit) && !is_angle_unit(u, u->target[q]))
+        ok = 0;
+    if (!ok) {
+        const char *what = measures(u, unit);
+        ut_free(unit);
+        return what ? dragarc_error_set(err, DRAGARC_EINVAL, "", "\"%s\" is a unit of %s, not of %s", symbol, bare(what),
+                                        bare(dragarc_quantity_name(q)))
+                    : dragarc_error_set(err, DRAGARC_EINVAL, "", "\"%s\" is not a unit of %s", symbol,
+                                        bare(dragarc_quantity_name(q)));
+    }
+    cv_converter *cv = ut_get_converter(u->target[q], unit);
+    ut_free(unit);
+    if (!cv)
+        return dragarc_error_set(err, DRAGARC_EINVAL, "", "no conversion from %s to \"%s\"", dragarc_quantity_unit(q),
+                                 symbol);
+    snprintf(o->symbol, sizeof o->symbol, "%s", symbol);
+    o->offset = cv_convert_double(cv, 0.0);
+    if (o->offset == 0.0)
+        o->scale = cv_convert_double(cv, 1.0);
+    else /* the slope, taken wide so that the offset cancels to round-off (see dragarc_units_parse) */
+        o->scale = (cv_convert_double(cv, 1e6) - cv_convert_double(cv, -1e6)) / 2e6;
+    if (q == DRAGARC_Q_TEMPERATURE_DIFFERENCE)
+        o->offset = 0.0; /* a difference has no zero point */
+    cv_free(cv);
+    return DRAGARC_OK;
+}
+
+int dragarc_display_system(dragarc_display *d, dragarc_units *u, const char *name, dragarc_error *err)
+{
+    dragarc_display_si(d);
+    if (strcmp(name, "si") == 0)
+        return DRAGARC_OK;
+    if (strcmp(name, "us") != 0)
+        return dragarc_error_set(err, DRAGARC_EINVAL, "", "unknown unit system \"%s\" (si, us)", name);
+    for (int q = 1; q < DRAGARC_Q_COUNT; q++) {
+        int rc = unit_for(u, (dragarc_quantity)q, US_UNITS[q], &d->quantity[q], err);
+        if (rc != DRAGARC_OK)
+            return rc;
+    }
+    return DRAGARC_OK;
+}
+
+int dragarc_display_set(dragarc_display *d, dragarc_units *u, const char *key, const char *unit, dragarc_error *err)
+{
+    for (int q = 1; q < DRAGARC_Q_COUNT; q++)
+        if (QUANTITY_KEYS[q] && strcmp(key, QUANTITY_KEYS[q]) == 0)
+            return unit_for(u, (dragarc_quantity)q, unit, &d->quantity[q], err);
+    for (size_t i = 0; i < sizeof FIELDS / sizeof FIELDS[0]; i++) {
+        if (strcmp(key, FIELDS[i].name) != 0)
+            continue;
+        size_t k = 0;
+        while (k < d->nfields && strcmp(d->fields[k].name, key) != 0)
+            k++;
+        if (k == DRAGARC_DISPLAY_MAX_FIELDS)
+            return dragarc_error_set(err, DRAGARC_EINVAL, "", "too many fields with units of their own");
+        dragarc_unit_out o;
+        int rc = unit_for(u, FIELDS[i].q, unit, &o, err);
+        if (rc != DRAGARC_OK)
+            return rc;
+        snprintf(d->fields[k].name, sizeof d->fields[k].name, "%s", key);
+        d->fields[k].q = FIELDS[i].q;
+        d->fields[k].unit = o;
+        if (k == d->nfields)
+            d->nfields++;
+        return DRAGARC_OK;
+    }
+    return dragarc_error_set(err, DRAGARC_EINVAL, "",
+                             "\"%s\" is neither a quantity (length, speed, mass, time, energy, angle, temperature, "
+                             "pressure, ...) nor an output field (range, impact_speed, ...)",
+                             key);
+}
+
+const dragarc_unit_out *dragarc_display_unit(const dragarc_display *d, const char *field, dragarc_quantity q)
+{
+    for (size_t k = 0; field && k < d->nfields; k++)
+        if (strcmp(d->fields[k].name, field) == 0)
+            return &d->fields[k].unit;
+    return &d->quantity[(unsigned)q < DRAGARC_Q_COUNT ? q : 0];
+}
+
+double dragarc_display_value(const dragarc_unit_out *u, double si)
+{
+    return u->scale * si + u->offset;
+}

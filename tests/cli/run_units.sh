@@ -69,5 +69,27 @@ check "atmosphere \"35 kft\" \"-1000 ft\" --temperature-offset \"-9 degF\" = 106
 "$bin" fly "$data/ball-in-wind.json" --trajectory "$root/b" --dt 0.1 2>"$root/err" >/dev/null
 check "fly --dt \"100 ms\" = --dt 0.1"
 
+# Output units: the same flight shown in feet, yards and mph, against the SI result converted by the same
+# exact factors (awk's doubles; the human summary prints two decimals, the JSON all 17 digits).
+m=$("$bin" fly "$data/batted-ball-si.json" --json | awk -F'\t' '$3 == "\"range\":" {sub(/,$/, "", $4); print $4; exit}')
+printf '  range           %.2f ft\n' "$(awk -v m="$m" 'BEGIN {printf "%.17g", m / 0.3048}')" >"$root/b"
+"$bin" fly "$data/batted-ball-si.json" --units us 2>"$root/err" | awk '/^  range / {print $1, $2, $3}' |
+    sed 's/^/  /; s/range /range           /' >"$root/a"
+check "fly --units us: the range in feet is the SI range / 0.3048"
+# dragarc multiplies by UDUNITS-2's factor 1/0.9144, awk divides by 0.9144: a few units in the last place apart.
+echo "within 1e-15" >"$root/b"
+"$bin" fly "$data/batted-ball-si.json" --unit range=yd --json 2>"$root/err" |
+    awk -F'\t' -v m="$m" '$3 == "\"range\":" {sub(/,$/, "", $4); d = $4 - m / 0.9144; if (d < 0) d = -d;
+        if (d <= 1e-15 * $4) print "within 1e-15"; else printf "%.17g against %.17g\n", $4, m / 0.9144; exit}' >"$root/a"
+check "fly --unit range=yd --json: the range in yards is the SI range / 0.9144"
+"$bin" fly "$data/batted-ball-si.json" --units us --unit range=yd --json 2>"$root/err" |
+    awk -F'\t' '$3 ~ /^"(range|downrange|impact_speed|impact_energy)":$/ && $4 ~ /^"/ {print $3, $4}' >"$root/a"
+printf '%s\n' '"range": "yd",' '"downrange": "ft",' '"impact_speed": "mph",' '"impact_energy": "ft.lbf",' >"$root/b"
+check "fly --units us --unit range=yd --json: the units object names each value's unit"
+"$bin" fly "$data/ball-in-wind.json" --units us --trajectory "$root/t.csv" 2>"$root/err" >/dev/null
+head -1 "$root/t.csv" >"$root/a"
+echo "t_s,x_ft,y_ft,z_ft,vx_mph,vy_mph,vz_mph,speed_mph,mach,reynolds" >"$root/b"
+check "fly --units us --trajectory: the column names carry the units"
+
 echo "$passed passed, $failed failed"
 [ "$failed" -eq 0 ]

@@ -141,6 +141,67 @@ TEST(quantities_have_names_and_units)
     CHECK(strcmp(dragarc_quantity_name((dragarc_quantity)99), "an unknown quantity") == 0);
 }
 
+/* Output units: a value in SI shown in the display's unit; the exact factors are the inverses of the
+ * NIST SP 811 definitions above (1 ft.lbf = 0.3048 m x 4.4482216152605 N = 1.3558179483314004 J; 4.4482216152605 N
+ * is the pound-force, 0.45359237 kg x 9.80665 m/s^2, exact). */
+static double shown(const dragarc_display *d, const char *field, dragarc_quantity q, double v)
+{
+    return dragarc_display_value(dragarc_display_unit(d, field, q), v);
+}
+
+TEST(us_output_units_convert_by_the_exact_factors)
+{
+    dragarc_display d;
+    dragarc_error e;
+    CHECK(dragarc_display_system(&d, U, "us", &e) == DRAGARC_OK);
+    CHECK_ABS(shown(&d, "range", DRAGARC_Q_LENGTH, 0.3048), 1.0, ULP2(1.0));
+    CHECK_ABS(shown(&d, NULL, DRAGARC_Q_SPEED, 0.44704), 1.0, ULP2(1.0));
+    CHECK_ABS(shown(&d, NULL, DRAGARC_Q_MASS, 0.45359237), 1.0, ULP2(1.0));
+    CHECK_ABS(shown(&d, NULL, DRAGARC_Q_ENERGY, 0.3048 * 0.45359237 * 9.80665), 1.0, 4.0 * ULP2(1.0));
+    CHECK_ABS(shown(&d, NULL, DRAGARC_Q_TEMPERATURE, 293.15), 68.0, 1e-12);
+    CHECK_ABS(shown(&d, NULL, DRAGARC_Q_TEMPERATURE_DIFFERENCE, 5.0), 9.0, ULP2(9.0));
+    CHECK_ABS(shown(&d, NULL, DRAGARC_Q_ANGLE, 30.0), 30.0, 0.0);
+    CHECK_ABS(shown(&d, NULL, DRAGARC_Q_TIME, 2.5), 2.5, 0.0);
+    CHECK(strcmp(dragarc_display_unit(&d, "range", DRAGARC_Q_LENGTH)->symbol, "ft") == 0);
+    CHECK(strcmp(dragarc_display_unit(&d, NULL, DRAGARC_Q_ENERGY)->symbol, "ft.lbf") == 0);
+}
+
+TEST(a_field_override_beats_its_quantity_and_the_system)
+{
+    dragarc_display d;
+    dragarc_error e;
+    CHECK(dragarc_display_system(&d, U, "us", &e) == DRAGARC_OK);
+    CHECK(dragarc_display_set(&d, U, "range", "yd", &e) == DRAGARC_OK);
+    CHECK(dragarc_display_set(&d, U, "speed", "kt", &e) == DRAGARC_OK);
+    CHECK_ABS(shown(&d, "range", DRAGARC_Q_LENGTH, 0.9144), 1.0, ULP2(1.0));
+    CHECK_ABS(shown(&d, "downrange", DRAGARC_Q_LENGTH, 0.3048), 1.0, ULP2(1.0)); /* still feet */
+    CHECK_ABS(shown(&d, "impact_speed", DRAGARC_Q_SPEED, 1852.0 / 3600.0), 1.0, ULP2(1.0));
+    CHECK(dragarc_display_set(&d, U, "range", "m", &e) == DRAGARC_OK); /* set again: replaced */
+    CHECK_ABS(shown(&d, "range", DRAGARC_Q_LENGTH, 2.0), 2.0, 0.0);
+    CHECK(d.nfields == 1);
+    dragarc_display si;
+    dragarc_display_si(&si);
+    CHECK_ABS(shown(&si, "range", DRAGARC_Q_LENGTH, 2.0), 2.0, 0.0);
+    CHECK(strcmp(dragarc_display_unit(&si, NULL, DRAGARC_Q_ANGLE)->symbol, "degree") == 0);
+}
+
+TEST(output_units_of_the_wrong_quantity_are_refused)
+{
+    dragarc_display d;
+    dragarc_error e;
+    dragarc_display_si(&d);
+    CHECK(dragarc_display_set(&d, U, "range", "kg", &e) == DRAGARC_EINVAL);
+    CHECK(strcmp(e.message, "\"kg\" is a unit of mass, not of length") == 0);
+    CHECK(dragarc_display_set(&d, U, "energy", "W", &e) == DRAGARC_EINVAL);
+    CHECK(strstr(e.message, "\"W\" is not a unit of energy") != NULL);
+    CHECK(dragarc_display_set(&d, U, "angle", "%", &e) == DRAGARC_EINVAL);
+    CHECK(dragarc_display_set(&d, U, "colour", "m", &e) == DRAGARC_EINVAL);
+    CHECK(strstr(e.message, "neither a quantity") != NULL);
+    CHECK(dragarc_display_system(&d, U, "metric", &e) == DRAGARC_EINVAL);
+    CHECK(strstr(e.message, "unknown unit system") != NULL);
+    CHECK(dragarc_display_set(&d, U, "range", "blorp", &e) == DRAGARC_EINVAL);
+}
+
 int main(void)
 {
     dragarc_error e;
@@ -156,6 +217,9 @@ int main(void)
     RUN(a_unit_of_another_quantity_is_named_in_the_error);
     RUN(malformed_values_are_refused);
     RUN(quantities_have_names_and_units);
+    RUN(us_output_units_convert_by_the_exact_factors);
+    RUN(a_field_override_beats_its_quantity_and_the_system);
+    RUN(output_units_of_the_wrong_quantity_are_refused);
     dragarc_units_free(U);
     return check_summary();
 }
