@@ -72,11 +72,12 @@ char *dragarc_flight_json(const dragarc_scenario *s, const dragarc_flight *f, co
 void dragarc_unit_column_suffix(const char *symbol, char *out, size_t n);
 
 /* The `aim --json` document: {"scenario", "target", "solutions": [...], "max_range",
- * "max_range_elevation", "flights", "units", "cautions"}; angles in degrees. Caller frees with free(). */
+ * "max_range_elevation", "flights", "units", "cautions"}, in the units of display d (NULL: SI, degrees for
+ * angles) named in "units". Caller frees with free(). */
 struct dragarc_aim_request;
 struct dragarc_aim_result;
 char *dragarc_aim_json(const dragarc_scenario *s, const struct dragarc_aim_request *req,
-                       const struct dragarc_aim_result *r);
+                       const struct dragarc_aim_result *r, const dragarc_display *d);
 
 /* Output forms of the tables. */
 typedef enum dragarc_table_format {
@@ -91,8 +92,10 @@ struct dragarc_aim_table_row;
 int dragarc_aim_table_write(FILE *fp, dragarc_table_format format, const char *scenario, double height,
                             const struct dragarc_aim_table_row *rows, size_t n, dragarc_error *err);
 
-/* The `atmosphere --json` document for n altitudes (m) and their states. Caller frees with free(). */
-char *dragarc_atmosphere_json(const double *altitudes, const dragarc_air *levels, size_t n, double temperature_offset);
+/* The `atmosphere --json` document for n altitudes (m) and their states, in the units of display d (NULL:
+ * SI) named in "units". Caller frees with free(). */
+char *dragarc_atmosphere_json(const double *altitudes, const dragarc_air *levels, size_t n, double temperature_offset,
+                              const dragarc_display *d);
 
 /* ---- tables of flights (sweep.h; the formats are documented in docs/table.md) ---- */
 

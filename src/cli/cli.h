@@ -42,6 +42,11 @@ const char *cli_profile_path(void);
 void cli_print_flight(FILE *fp, const char *label, const dragarc_scenario *s, const dragarc_flight *f,
                       const dragarc_display *d, int cautions_too);
 
+/* If argv[*i] is --units or --unit, take its value (advancing *i) into *system or specs[*nspecs] (at most
+ * max) and return 0, or the exit status of a usage error; -1 when argv[*i] is neither. */
+int cli_units_option(const char *cmd, int argc, char **argv, int *i, const char **system, const char **specs,
+                     size_t *nspecs, size_t max);
+
 /* The output units from --units SYSTEM (NULL: si) and --unit KEY=UNIT options, into *d. 0 on success, else
  * the exit status of the usage error printed. */
 int cli_display_options(const char *cmd, const char *system, const char *const *specs, size_t nspecs,

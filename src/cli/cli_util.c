@@ -168,6 +168,26 @@ void cli_print_flight(FILE *fp, const char *label, const dragarc_scenario *s, co
     dragarc_cautions_print(fp, f->notes, 100);
 }
 
+int cli_units_option(const char *cmd, int argc, char **argv, int *i, const char **system, const char **specs,
+                     size_t *nspecs, size_t max)
+{
+    const char *a = argv[*i];
+    if (strcmp(a, "--units") == 0) {
+        if (++*i >= argc)
+            return cli_usage_error(cmd, "--units needs si or us");
+        *system = argv[*i];
+        return 0;
+    }
+    if (strcmp(a, "--unit") != 0)
+        return -1;
+    if (++*i >= argc)
+        return cli_usage_error(cmd, "--unit needs KEY=UNIT, such as range=yd or speed=mph");
+    if (*nspecs == max)
+        return cli_usage_error(cmd, "too many --unit options");
+    specs[(*nspecs)++] = argv[*i];
+    return 0;
+}
+
 int cli_display_options(const char *cmd, const char *system, const char *const *specs, size_t nspecs,
                         dragarc_display *d)
 {

@@ -16,7 +16,7 @@
 
 static const char HELP[] =
     "usage: dragarc aim SCENARIO --range METRES [--height METRES] [--crossrange METRES]\n"
-    "                   [--solve elevation|speed] [--keep-azimuth] [--json]\n"
+    "                   [--solve elevation|speed] [--keep-azimuth] [--json] [--units si|us] [--unit KEY=UNIT]\n"
     "\n"
     "Find every launch that lands on a target: by default keep launch.speed and find the elevations\n"
     "(the low, direct one and the high, lofted one), or with --solve speed keep launch.elevation and find\n"
@@ -31,6 +31,8 @@ static const char HELP[] =
     "  --solve WHAT          elevation (default) or speed\n"
     "  --keep-azimuth        do not turn the azimuth (the miss is then measured along the line)\n"
     "  --json                print one JSON object instead of the summary\n"
+    "  --units si|us         the units of every output: SI (default) or US customary (ft, mph, lb, ft.lbf)\n"
+    "  --unit KEY=UNIT       a quantity (length=yd) or a field (range=yd) in a unit of its own; repeatable\n"
     "  -h, --help            this help\n"
     "\n"
     "Lengths may carry a unit, read by UDUNITS-2: --range \"150 yd\" --height \"3 ft\" (docs/units.md).\n"
@@ -48,7 +50,9 @@ int cmd_aim(int argc, char **argv)
 {
     dragarc_aim_request req;
     dragarc_aim_request_default(&req);
-    const char *file = NULL;
+    const char *file = NULL, *system = NULL, *specs[DRAGARC_DISPLAY_MAX_FIELDS + DRAGARC_Q_COUNT];
+    size_t nspecs = 0;
+    int st;
     int json = 0, have_range = 0;
     for (int i = 1; i < argc; i++) {
         const char *a = argv[i];
@@ -58,6 +62,10 @@ int cmd_aim(int argc, char **argv)
             return EXIT_OK;
         } else if (strcmp(a, "--json") == 0) {
             json = 1;
+        } else if ((st = cli_units_option("aim", argc, argv, &i, &system, specs, &nspecs,
+                                          sizeof specs / sizeof specs[0])) >= 0) {
+            if (st != 0)
+                return st;
         } else if (strcmp(a, "--keep-azimuth") == 0) {
             req.solve_azimuth = 0;
         } else if (strcmp(a, "--range") == 0) {
@@ -98,6 +106,10 @@ int cmd_aim(int argc, char **argv)
         return cli_usage_error("aim", "needs --range METRES");
     if (!(req.range > 0.0))
         return cli_usage_error("aim", "--range must be positive (got %g)", req.range);
+    dragarc_display d;
+    st = cli_display_options("aim", system, specs, nspecs, &d);
+    if (st != 0)
+        return st;
     dragarc_scenario s;
     dragarc_error err;
     if (dragarc_scenario_read(file, cli_profile_path(), &s, &err) != DRAGARC_OK)
@@ -117,7 +129,7 @@ int cmd_aim(int argc, char **argv)
         return rc;
     }
     if (json) {
-        char *text = dragarc_aim_json(&s, &req, &r);
+        char *text = dragarc_aim_json(&s, &req, &r, &d);
         if (!text) {
             dragarc_scenario_clear(&s);
             fputs("dragarc: aim: out of memory\n", stderr);
@@ -129,26 +141,45 @@ int cmd_aim(int argc, char **argv)
         return EXIT_OK;
     }
     double h = isnan(req.height) ? s.ground_elevation : req.height;
+#define SHOW(field, q, v) dragarc_display_value(dragarc_display_unit(&d, field, q), v)
+#define UNIT(field, q) dragarc_display_unit(&d, field, q)->symbol
+    const char *deg = UNIT(NULL, DRAGARC_Q_ANGLE);
+    if (strcmp(deg, "degree") == 0)
+        deg = "deg";
     printf("dragarc aim%s%s\n", s.name[0] ? ": " : "", s.name);
-    printf("  target          %.2f m along azimuth %.4g deg, %.2f m %s, on the plane at %.2f m\n", req.range,
-           s.launch.azimuth * DEG, fabs(req.crossrange), req.crossrange >= 0 ? "right" : "left", h);
+    printf("  target          %.2f %s along azimuth %.4g %s, %.2f %s %s, on the plane at %.2f %s\n",
+           SHOW("range", DRAGARC_Q_LENGTH, req.range), UNIT("range", DRAGARC_Q_LENGTH),
+           SHOW(NULL, DRAGARC_Q_ANGLE, s.launch.azimuth * DEG), deg,
+           fabs(SHOW("crossrange", DRAGARC_Q_LENGTH, req.crossrange)), UNIT("crossrange", DRAGARC_Q_LENGTH),
+           req.crossrange >= 0 ? "right" : "left", SHOW("height", DRAGARC_Q_LENGTH, h), UNIT("height", DRAGARC_Q_LENGTH));
     if (req.mode == DRAGARC_AIM_ELEVATION) {
-        printf("  launch speed    %.4g m/s (kept)\n", s.launch.speed);
-        printf("  maximum range   %.2f m at %.3f deg elevation\n", r.max_range, r.max_range_elevation * DEG);
+        printf("  launch speed    %.4g %s (kept)\n", SHOW("launch_speed", DRAGARC_Q_SPEED, s.launch.speed),
+               UNIT("launch_speed", DRAGARC_Q_SPEED));
+        printf("  maximum range   %.2f %s at %.3f %s elevation\n", SHOW("max_range", DRAGARC_Q_LENGTH, r.max_range),
+               UNIT("max_range", DRAGARC_Q_LENGTH), SHOW(NULL, DRAGARC_Q_ANGLE, r.max_range_elevation * DEG), deg);
     } else {
-        printf("  elevation       %.4g deg (kept)\n", s.launch.elevation * DEG);
+        printf("  elevation       %.4g %s (kept)\n", SHOW(NULL, DRAGARC_Q_ANGLE, s.launch.elevation * DEG), deg);
     }
     unsigned notes = 0;
     for (size_t i = 0; i < r.nsolutions; i++) {
         const dragarc_aim_solution *q = &r.solutions[i];
-        printf("  solution %zu%s: elevation %.4f deg, speed %.4f m/s, azimuth %.4f deg (aim %.4f deg %s)\n", i + 1,
-               branch_name(i, r.nsolutions, req.mode), q->elevation * DEG, q->speed, q->azimuth * DEG,
-               fabs(q->azimuth_correction * DEG), q->azimuth_correction >= 0 ? "right" : "left");
-        printf("      time of flight %.3f s, apex %.2f m, impact %.2f m/s at %.1f deg, %.3g J, miss %.3g mm\n",
-               q->time_of_flight, q->apex_height, q->impact_speed, q->impact_angle * DEG, q->impact_energy,
+        printf("  solution %zu%s: elevation %.4f %s, speed %.4f %s, azimuth %.4f %s (aim %.4f %s %s)\n", i + 1,
+               branch_name(i, r.nsolutions, req.mode), SHOW(NULL, DRAGARC_Q_ANGLE, q->elevation * DEG), deg,
+               SHOW("launch_speed", DRAGARC_Q_SPEED, q->speed), UNIT("launch_speed", DRAGARC_Q_SPEED),
+               SHOW(NULL, DRAGARC_Q_ANGLE, q->azimuth * DEG), deg,
+               fabs(SHOW(NULL, DRAGARC_Q_ANGLE, q->azimuth_correction * DEG)), deg,
+               q->azimuth_correction >= 0 ? "right" : "left");
+        printf("      time of flight %.3f %s, apex %.2f %s, impact %.2f %s at %.1f %s, %.3g %s, miss %.3g mm\n",
+               SHOW("time_of_flight", DRAGARC_Q_TIME, q->time_of_flight), UNIT("time_of_flight", DRAGARC_Q_TIME),
+               SHOW("apex_height", DRAGARC_Q_LENGTH, q->apex_height), UNIT("apex_height", DRAGARC_Q_LENGTH),
+               SHOW("impact_speed", DRAGARC_Q_SPEED, q->impact_speed), UNIT("impact_speed", DRAGARC_Q_SPEED),
+               SHOW("impact_angle", DRAGARC_Q_ANGLE, q->impact_angle * DEG), deg,
+               SHOW("impact_energy", DRAGARC_Q_ENERGY, q->impact_energy), UNIT("impact_energy", DRAGARC_Q_ENERGY),
                q->miss * 1e3);
         notes |= q->notes;
     }
+#undef SHOW
+#undef UNIT
     printf("  flights flown   %ld\n", r.flights);
     dragarc_cautions_print(stdout, notes, 100);
     dragarc_scenario_clear(&s);

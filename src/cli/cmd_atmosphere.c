@@ -10,13 +10,15 @@
 #include "dragarc/output.h"
 
 static const char HELP[] =
-    "usage: dragarc atmosphere ALTITUDE... [--temperature-offset K] [--json]\n"
+    "usage: dragarc atmosphere ALTITUDE... [--temperature-offset K] [--json] [--units si|us] [--unit KEY=UNIT]\n"
     "\n"
     "U.S. Standard Atmosphere 1976 at each geometric ALTITUDE (metres, -5000 to 86000): temperature,\n"
     "pressure, density, speed of sound and dynamic viscosity.\n"
     "\n"
     "  --temperature-offset K  shift every temperature by K kelvin; pressure stays standard\n"
     "  --json                  print {\"levels\": [...]} instead of a table\n"
+    "  --units si|us           output units: SI (default) or US customary (ft, degF, psi, lb/ft3, mph)\n"
+    "  --unit KEY=UNIT         a quantity (pressure=hPa) or a column (altitude=kft) in a unit of its own\n"
     "  -h, --help              this help\n"
     "\n"
     "Values may carry a unit, read by UDUNITS-2: \"35 kft\", --temperature-offset \"-9 degF\" (a difference:\n"
@@ -26,11 +28,15 @@ int cmd_atmosphere(int argc, char **argv)
 {
     int json = 0;
     double offset = 0.0;
+    const char *system = NULL;
+    const char **specs = malloc((size_t)argc * sizeof *specs);
+    size_t nspecs = 0;
+    dragarc_display d;
     size_t n = 0;
     double *alt = malloc((size_t)argc * sizeof *alt);
     dragarc_air *lev = malloc((size_t)argc * sizeof *lev);
-    int status = EXIT_OK;
-    if (!alt || !lev) {
+    int status = EXIT_OK, unit_status;
+    if (!alt || !lev || !specs) {
         fputs("dragarc: atmosphere: out of memory\n", stderr);
         status = EXIT_FAILED;
         goto done;
@@ -42,7 +48,12 @@ int cmd_atmosphere(int argc, char **argv)
             goto done;
         } else if (strcmp(a, "--json") == 0) {
             json = 1;
-        } else if (strcmp(a, "--temperature-offset") == 0) {
+        } else if ((unit_status = cli_units_option("atmosphere", argc, argv, &i, &system, specs, &nspecs,
+                                                   (size_t)argc)) >= 0) {
+            if (unit_status != 0) {
+                status = unit_status;
+                goto done;
+            }        } else if (strcmp(a, "--temperature-offset") == 0) {
             char why[256];
             if (++i >= argc ||
                 cli_parse_value(argv[i], DRAGARC_Q_TEMPERATURE_DIFFERENCE, &offset, why, sizeof why) != 0) {
@@ -72,6 +83,8 @@ int cmd_atmosphere(int argc, char **argv)
         status = cli_usage_error("atmosphere", "--temperature-offset must be between -100 and 100 K");
         goto done;
     }
+    if ((status = cli_display_options("atmosphere", system, specs, nspecs, &d)) != 0)
+        goto done;
     for (size_t i = 0; i < n; i++) {
         dragarc_error err;
         if (dragarc_isa_eval(alt[i], offset, &lev[i], &err) != DRAGARC_OK) {
@@ -81,7 +94,7 @@ int cmd_atmosphere(int argc, char **argv)
         }
     }
     if (json) {
-        char *text = dragarc_atmosphere_json(alt, lev, n, offset);
+        char *text = dragarc_atmosphere_json(alt, lev, n, offset, &d);
         if (!text) {
             fputs("dragarc: atmosphere: out of memory\n", stderr);
             status = EXIT_FAILED;
@@ -90,15 +103,35 @@ int cmd_atmosphere(int argc, char **argv)
         puts(text);
         free(text);
     } else {
+        const dragarc_unit_out *u[6] = {
+            dragarc_display_unit(&d, "altitude", DRAGARC_Q_LENGTH),
+            dragarc_display_unit(&d, "temperature", DRAGARC_Q_TEMPERATURE),
+            dragarc_display_unit(&d, "pressure", DRAGARC_Q_PRESSURE),
+            dragarc_display_unit(&d, "density", DRAGARC_Q_DENSITY),
+            dragarc_display_unit(&d, "speed_of_sound", DRAGARC_Q_SPEED),
+            dragarc_display_unit(&d, "viscosity", DRAGARC_Q_VISCOSITY),
+        };
+        const dragarc_unit_out *ud = dragarc_display_unit(&d, "temperature_offset", DRAGARC_Q_TEMPERATURE_DIFFERENCE);
+        static const char *const names[6] = {"altitude", "T", "p", "rho", "a", "mu"};
+        char head[6][48];
+        for (int k = 0; k < 6; k++) {
+            char suffix[32];
+            dragarc_unit_column_suffix(u[k]->symbol, suffix, sizeof suffix);
+            snprintf(head[k], sizeof head[k], "%s_%s", names[k], suffix);
+        }
         printf("U.S. Standard Atmosphere 1976%s\n", offset != 0.0 ? " with a temperature offset" : "");
         if (offset != 0.0)
-            printf("temperature offset %+g K (pressure as standard, density from the shifted temperature)\n", offset);
-        printf("%12s %10s %13s %13s %10s %12s\n", "altitude_m", "T_K", "p_Pa", "rho_kg_m3", "a_m_s", "mu_Pa_s");
+            printf("temperature offset %+g %s (pressure as standard, density from the shifted temperature)\n",
+                   dragarc_display_value(ud, offset), ud->symbol);
+        printf("%12s %10s %13s %13s %10s %12s\n", head[0], head[1], head[2], head[3], head[4], head[5]);
         for (size_t i = 0; i < n; i++)
-            printf("%12.1f %10.3f %13.6g %13.6g %10.3f %12.5g\n", alt[i], lev[i].temperature, lev[i].pressure,
-                   lev[i].density, lev[i].speed_of_sound, lev[i].viscosity);
+            printf("%12.1f %10.3f %13.6g %13.6g %10.3f %12.5g\n", dragarc_display_value(u[0], alt[i]),
+                   dragarc_display_value(u[1], lev[i].temperature), dragarc_display_value(u[2], lev[i].pressure),
+                   dragarc_display_value(u[3], lev[i].density), dragarc_display_value(u[4], lev[i].speed_of_sound),
+                   dragarc_display_value(u[5], lev[i].viscosity));
     }
 done:
+    free(specs);
     free(alt);
     free(lev);
     return status;

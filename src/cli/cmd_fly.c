@@ -34,6 +34,7 @@ int cmd_fly(int argc, char **argv)
     cli_fly_options o = {.json = 0, .trajectory = NULL, .dt = 0.05};
     const char *file = NULL, *system = NULL, *specs[DRAGARC_DISPLAY_MAX_FIELDS + DRAGARC_Q_COUNT];
     size_t nspecs = 0;
+    int st;
     int dt_given = 0;
     for (int i = 1; i < argc; i++) {
         const char *a = argv[i];
@@ -54,16 +55,10 @@ int cmd_fly(int argc, char **argv)
                 return why[0] ? cli_usage_error("fly", "--dt %s", why)
                               : cli_usage_error("fly", "--dt needs a positive number of seconds");
             dt_given = 1;
-        } else if (strcmp(a, "--units") == 0) {
-            if (++i >= argc)
-                return cli_usage_error("fly", "--units needs si or us");
-            system = argv[i];
-        } else if (strcmp(a, "--unit") == 0) {
-            if (++i >= argc)
-                return cli_usage_error("fly", "--unit needs KEY=UNIT, such as range=yd or speed=mph");
-            if (nspecs == sizeof specs / sizeof specs[0])
-                return cli_usage_error("fly", "too many --unit options");
-            specs[nspecs++] = argv[i];
+        } else if ((st = cli_units_option("fly", argc, argv, &i, &system, specs, &nspecs,
+                                          sizeof specs / sizeof specs[0])) >= 0) {
+            if (st != 0)
+                return st;
         } else if (a[0] == '-' && a[1] != '\0') {
             return cli_usage_error("fly", "unknown option '%s'", a);
         } else if (!file) {
@@ -76,7 +71,7 @@ int cmd_fly(int argc, char **argv)
         return cli_usage_error("fly", "needs a scenario file");
     if (dt_given && !o.trajectory)
         return cli_usage_error("fly", "--dt sets the --trajectory interval; give --trajectory FILE too");
-    int st = cli_display_options("fly", system, specs, nspecs, &o.display);
+    st = cli_display_options("fly", system, specs, nspecs, &o.display);
     if (st != 0)
         return st;
     dragarc_scenario s;

@@ -33,13 +33,6 @@ static cJSON *vec3(const double *v)
     return o;
 }
 
-static void add_units(cJSON *doc, const char *const *pairs)
-{
-    cJSON *u = cJSON_AddObjectToObject(doc, "units");
-    for (; pairs[0]; pairs += 2)
-        cJSON_AddStringToObject(u, pairs[0], pairs[1]);
-}
-
 static char *finish(cJSON *doc)
 {
     char *text = doc ? cJSON_Print(doc) : NULL;
@@ -61,7 +54,8 @@ static void add_shown(cJSON *o, cJSON *units, const dragarc_display *d, const ch
 {
     const dragarc_unit_out *u = dragarc_display_unit(d, key, q);
     add_num(o, key, dragarc_display_value(u, si));
-    cJSON_AddStringToObject(units, key, u->symbol);
+    if (!cJSON_GetObjectItemCaseSensitive(units, key)) /* one entry per key name (aim: target and solution azimuth) */
+        cJSON_AddStringToObject(units, key, u->symbol);
 }
 
 static cJSON *vec3_shown(cJSON *units, const dragarc_display *d, const char *key, dragarc_quantity q, const double *v)
@@ -114,71 +108,94 @@ char *dragarc_flight_json(const dragarc_scenario *s, const dragarc_flight *f, co
     return finish(doc);
 }
 
-char *dragarc_aim_json(const dragarc_scenario *s, const dragarc_aim_request *req, const dragarc_aim_result *r)
+char *dragarc_aim_json(const dragarc_scenario *s, const dragarc_aim_request *req, const dragarc_aim_result *r,
+                       const dragarc_display *d)
 {
+    dragarc_display si;
+    if (!d) {
+        dragarc_display_si(&si);
+        d = &si;
+    }
     cJSON *doc = cJSON_CreateObject();
     if (!doc)
         return NULL;
+    cJSON *un = cJSON_CreateObject();
     cJSON_AddStringToObject(doc, "scenario", s->name);
     cJSON_AddStringToObject(doc, "dragarc_version", DRAGARC_VERSION_STRING);
     cJSON *t = cJSON_AddObjectToObject(doc, "target");
-    add_num(t, "range", req->range);
-    add_num(t, "crossrange", req->crossrange);
-    add_num(t, "height", isnan(req->height) ? s->ground_elevation : req->height);
-    add_num(t, "azimuth", s->launch.azimuth / DRAGARC_DEG);
+    add_shown(t, un, d, "range", DRAGARC_Q_LENGTH, req->range);
+    add_shown(t, un, d, "crossrange", DRAGARC_Q_LENGTH, req->crossrange);
+    add_shown(t, un, d, "height", DRAGARC_Q_LENGTH, isnan(req->height) ? s->ground_elevation : req->height);
+    add_shown(t, un, d, "azimuth", DRAGARC_Q_ANGLE, s->launch.azimuth / DRAGARC_DEG);
     cJSON_AddStringToObject(t, "solve", req->mode == DRAGARC_AIM_SPEED ? "speed" : "elevation");
     cJSON *arr = cJSON_AddArrayToObject(doc, "solutions");
     unsigned notes = 0;
-    for (size_t i = 0; i < r->nsolutions; i++) {
-        const dragarc_aim_solution *q = &r->solutions[i];
+    /* Units are recorded once per key, from the first solution (or from a throw-away object). */
+    for (size_t i = 0; i < (r->nsolutions ? r->nsolutions : 1); i++) {
+        const dragarc_aim_solution empty = {0};
+        const dragarc_aim_solution *q = r->nsolutions ? &r->solutions[i] : &empty;
         cJSON *o = cJSON_CreateObject();
-        add_num(o, "elevation", q->elevation / DRAGARC_DEG);
-        add_num(o, "azimuth", q->azimuth / DRAGARC_DEG);
-        add_num(o, "azimuth_correction", q->azimuth_correction / DRAGARC_DEG);
-        add_num(o, "speed", q->speed);
-        add_num(o, "time_of_flight", q->time_of_flight);
-        add_num(o, "apex_height", q->apex_height);
-        add_num(o, "impact_speed", q->impact_speed);
-        add_num(o, "impact_angle", q->impact_angle / DRAGARC_DEG);
-        add_num(o, "impact_energy", q->impact_energy);
-        add_num(o, "miss", q->miss);
-        cJSON_AddItemToArray(arr, o);
-        notes |= q->notes;
+        cJSON *u = i == 0 ? un : cJSON_CreateObject();
+        add_shown(o, u, d, "elevation", DRAGARC_Q_ANGLE, q->elevation / DRAGARC_DEG);
+        add_shown(o, u, d, "azimuth", DRAGARC_Q_ANGLE, q->azimuth / DRAGARC_DEG);
+        add_shown(o, u, d, "azimuth_correction", DRAGARC_Q_ANGLE, q->azimuth_correction / DRAGARC_DEG);
+        const dragarc_unit_out *us = dragarc_display_unit(d, "launch_speed", DRAGARC_Q_SPEED);
+        add_num(o, "speed", dragarc_display_value(us, q->speed));
+        if (i == 0)
+            cJSON_AddStringToObject(un, "speed", us->symbol);
+        add_shown(o, u, d, "time_of_flight", DRAGARC_Q_TIME, q->time_of_flight);
+        add_shown(o, u, d, "apex_height", DRAGARC_Q_LENGTH, q->apex_height);
+        add_shown(o, u, d, "impact_speed", DRAGARC_Q_SPEED, q->impact_speed);
+        add_shown(o, u, d, "impact_angle", DRAGARC_Q_ANGLE, q->impact_angle / DRAGARC_DEG);
+        add_shown(o, u, d, "impact_energy", DRAGARC_Q_ENERGY, q->impact_energy);
+        add_shown(o, u, d, "miss", DRAGARC_Q_LENGTH, q->miss);
+        if (u != un)
+            cJSON_Delete(u);
+        if (r->nsolutions) {
+            cJSON_AddItemToArray(arr, o);
+            notes |= q->notes;
+        } else {
+            cJSON_Delete(o);
+        }
     }
-    add_num(doc, "max_range", r->max_range);
-    add_num(doc, "max_range_elevation", r->max_range_elevation / DRAGARC_DEG);
+    add_shown(doc, un, d, "max_range", DRAGARC_Q_LENGTH, r->max_range);
+    const dragarc_unit_out *ua = dragarc_display_unit(d, NULL, DRAGARC_Q_ANGLE);
+    add_num(doc, "max_range_elevation", dragarc_display_value(ua, r->max_range_elevation / DRAGARC_DEG));
+    cJSON_AddStringToObject(un, "max_range_elevation", ua->symbol);
     cJSON_AddNumberToObject(doc, "flights", (double)r->flights);
-    static const char *const units[] = {"range", "m", "crossrange", "m", "height", "m", "elevation", "degree",
-                                        "azimuth", "degree", "azimuth_correction", "degree", "speed", "m/s",
-                                        "time_of_flight", "s", "apex_height", "m", "impact_speed", "m/s",
-                                        "impact_angle", "degree", "impact_energy", "J", "miss", "m",
-                                        "max_range", "m", "max_range_elevation", "degree", NULL};
-    add_units(doc, units);
+    cJSON_AddItemToObject(doc, "units", un);
     add_cautions(doc, notes);
     return finish(doc);
 }
 
-char *dragarc_atmosphere_json(const double *altitudes, const dragarc_air *levels, size_t n, double temperature_offset)
+char *dragarc_atmosphere_json(const double *altitudes, const dragarc_air *levels, size_t n, double temperature_offset,
+                              const dragarc_display *d)
 {
+    dragarc_display si;
+    if (!d) {
+        dragarc_display_si(&si);
+        d = &si;
+    }
     cJSON *doc = cJSON_CreateObject();
     if (!doc)
         return NULL;
+    cJSON *un = cJSON_CreateObject();
     cJSON_AddStringToObject(doc, "model", "U.S. Standard Atmosphere 1976");
-    cJSON_AddNumberToObject(doc, "temperature_offset", temperature_offset);
+    add_shown(doc, un, d, "temperature_offset", DRAGARC_Q_TEMPERATURE_DIFFERENCE, temperature_offset);
     cJSON *arr = cJSON_AddArrayToObject(doc, "levels");
     for (size_t i = 0; i < n; i++) {
         cJSON *l = cJSON_CreateObject();
-        add_num(l, "altitude", altitudes[i]);
-        add_num(l, "temperature", levels[i].temperature);
-        add_num(l, "pressure", levels[i].pressure);
-        add_num(l, "density", levels[i].density);
-        add_num(l, "speed_of_sound", levels[i].speed_of_sound);
-        add_num(l, "viscosity", levels[i].viscosity);
+        cJSON *u = i == 0 ? un : cJSON_CreateObject();
+        add_shown(l, u, d, "altitude", DRAGARC_Q_LENGTH, altitudes[i]);
+        add_shown(l, u, d, "temperature", DRAGARC_Q_TEMPERATURE, levels[i].temperature);
+        add_shown(l, u, d, "pressure", DRAGARC_Q_PRESSURE, levels[i].pressure);
+        add_shown(l, u, d, "density", DRAGARC_Q_DENSITY, levels[i].density);
+        add_shown(l, u, d, "speed_of_sound", DRAGARC_Q_SPEED, levels[i].speed_of_sound);
+        add_shown(l, u, d, "viscosity", DRAGARC_Q_VISCOSITY, levels[i].viscosity);
+        if (u != un)
+            cJSON_Delete(u);
         cJSON_AddItemToArray(arr, l);
     }
-    static const char *const units[] = {"altitude", "m", "temperature", "K", "temperature_offset", "K",
-                                        "pressure", "Pa", "density", "kg/m^3", "speed_of_sound", "m/s",
-                                        "viscosity", "Pa s", NULL};
-    add_units(doc, units);
+    cJSON_AddItemToObject(doc, "units", un);
     return finish(doc);
 }

@@ -220,7 +220,9 @@ static const dragarc_output_field FIELDS[] = {
     {"launch_energy", DRAGARC_Q_ENERGY},   {"mass", DRAGARC_Q_MASS},
     {"impact_angle", DRAGARC_Q_ANGLE},     {"pressure", DRAGARC_Q_PRESSURE},
     {"density", DRAGARC_Q_DENSITY},        {"temperature", DRAGARC_Q_TEMPERATURE},
-    {"viscosity", DRAGARC_Q_VISCOSITY},
+    {"viscosity", DRAGARC_Q_VISCOSITY},    {"height", DRAGARC_Q_LENGTH},
+    {"max_range", DRAGARC_Q_LENGTH},       {"miss", DRAGARC_Q_LENGTH},
+    {"temperature_offset", DRAGARC_Q_TEMPERATURE_DIFFERENCE},
 };
 
 /* Quantity keywords for --unit, in quantity order (NULL: not settable). */

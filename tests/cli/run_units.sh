@@ -91,5 +91,28 @@ head -1 "$root/t.csv" >"$root/a"
 echo "t_s,x_ft,y_ft,z_ft,vx_mph,vy_mph,vz_mph,speed_mph,mach,reynolds" >"$root/b"
 check "fly --units us --trajectory: the column names carry the units"
 
+# atmosphere --units us: each column of the SI table times its exact factor, to the 5 or 6 digits printed
+# (1 ft = 0.3048 m; T/degF = 1.8 T/K - 459.67; 1 psi = 6894.757293168 Pa (NIST SP 811: 6.894 757 E+03);
+# 1 lb/ft3 = 16.01846337 kg/m3; 1 mph = 0.44704 m/s; 1 lb/(ft s) = 1.488163944 Pa s).
+"$bin" atmosphere 0 5000 11000 >"$root/si" 2>"$root/err"
+"$bin" atmosphere 0 5000 11000 --units us >"$root/us" 2>"$root/err"
+tail -n +3 "$root/si" >"$root/si.rows"
+tail -n +3 "$root/us" >"$root/us.rows"
+# Both tables are rounded as printed, so each column is held to its printed resolution: 0.05 ft, 0.002 degF
+# (0.0005 K x 1.8, twice), 0.003 mph (0.0005 m/s / 0.44704, twice), 1e-5 and 2e-4 relative for the
+# 6- and 5-digit columns.
+paste -d' ' "$root/si.rows" "$root/us.rows" | awk '
+    function abs(x) { return x < 0 ? -x : x }
+    { bad = abs($7 - $1 / 0.3048) > 0.06 || abs($8 - ($2 * 1.8 - 459.67)) > 0.002 ||
+            abs($9 - $3 / 6894.757293168) > 1e-5 * $9 || abs($10 - $4 / 16.01846337) > 1e-5 * $10 ||
+            abs($11 - $5 / 0.44704) > 0.003 || abs($12 - $6 / 1.488163944) > 2e-4 * $12
+      print bad ? "row " NR " differs: " $0 : "ok" }' >"$root/a"
+printf 'ok\nok\nok\n' >"$root/b"
+check "atmosphere --units us: ft, degF, psi, lb/ft3, mph and lb/(ft s) by the exact factors"
+"$bin" aim "$data/courtyard-lob.json" --range "25 yd" --units us --json 2>"$root/err" |
+    awk -F'\t' '$3 ~ /^"(range|speed|miss|max_range|impact_energy)":$/ && $4 ~ /^"/ {print $3, $4}' >"$root/a"
+printf '%s\n' '"range": "ft",' '"speed": "mph",' '"impact_energy": "ft.lbf",' '"miss": "ft",' '"max_range": "ft",' >"$root/b"
+check "aim --units us --json: the units object names each value's unit"
+
 echo "$passed passed, $failed failed"
 [ "$failed" -eq 0 ]
