@@ -116,45 +116,57 @@ typedef enum dragarc_sweep_column {
 /* Names of a column. Static storage. */
 typedef struct dragarc_sweep_column_info {
     const char *key;   /* JSON key, "time_of_flight" */
-    const char *csv;   /* CSV name with its unit, "time_of_flight_s" */
+    const char *csv;   /* CSV name with its SI unit, "time_of_flight_s" */
     const char *label; /* readable name, "time of flight" */
     const char *brief; /* short heading, "time" */
-    const char *unit;  /* "s"; "degree" for the angle */
+    const char *unit;  /* SI unit, "s"; "degree" for the angle */
+    dragarc_quantity quantity;
 } dragarc_sweep_column_info;
 
 /* The names of column c (NULL outside 0 .. DRAGARC_SWEEP_NCOLUMNS-1). */
 const dragarc_sweep_column_info *dragarc_sweep_column_about(dragarc_sweep_column c);
 
-/* Column c of a row in its output unit (degrees for the impact angle); NaN in a failed row. */
+/* Column c of a row in SI units (degrees for the impact angle); NaN in a failed row. */
 double dragarc_sweep_column_value(const dragarc_sweep_row *row, dragarc_sweep_column c);
 
-/* Decimals for printing column c of a readable table with one decimal point for all rows: five
- * significant digits at the column's largest value among the rows that flew (0 to 6 decimals), one for
- * the angle. The energy, which spans many orders of magnitude, is printed "%.3g" instead. */
-int dragarc_sweep_column_decimals(const dragarc_sweep *t, dragarc_sweep_column c);
+/* The same in the units of display d (NULL: SI), and that unit. */
+double dragarc_sweep_shown(const dragarc_display *d, const dragarc_sweep_row *row, dragarc_sweep_column c);
+const char *dragarc_sweep_column_unit(const dragarc_display *d, dragarc_sweep_column c);
 
-/* Readable cell of column c (decimals from dragarc_sweep_column_decimals): "" in a failed row, "none"
- * for a value that does not exist (no terminal speed). */
+/* A value of a varied parameter (in its SI unit, degrees for angles) in the units of display d, and that
+ * unit ("" for a pure number). */
+double dragarc_sweep_axis_shown(const dragarc_display *d, const dragarc_sweep_axis *axis, double v);
+const char *dragarc_sweep_axis_unit(const dragarc_display *d, const dragarc_sweep_axis *axis);
+
+/* Decimals for printing column c (in the units of d) of a readable table with one decimal point for all
+ * rows: five significant digits at the column's largest value among the rows that flew (0 to 6 decimals),
+ * one for the angle. The energy, which spans many orders of magnitude, is printed "%.3g" instead. */
+int dragarc_sweep_column_decimals(const dragarc_sweep *t, dragarc_sweep_column c, const dragarc_display *d);
+
+/* Readable cell of column c in the units of d (decimals from dragarc_sweep_column_decimals): "" in a failed
+ * row, "none" for a value that does not exist (no terminal speed). */
 void dragarc_sweep_cell_format(char *buf, size_t size, const dragarc_sweep_row *row, dragarc_sweep_column c,
-                               int decimals);
+                               int decimals, const dragarc_display *d);
 
 /* "degree" -> "deg"; other units as they are. */
 const char *dragarc_unit_abbrev(const char *unit);
 
-/* "from 30 to 45 by 5 m/s": the range of an axis, numbers in their exact form, into buf. */
-void dragarc_sweep_axis_describe(char *buf, size_t size, const dragarc_sweep_axis *axis);
+/* "from 30 to 45 by 5 m/s": the range of an axis in the units of d, numbers in their exact form. */
+void dragarc_sweep_axis_describe(char *buf, size_t size, const dragarc_sweep_axis *axis, const dragarc_display *d);
 
 /* CSV: a header row, then one row per flight; the varied parameters by key path with their unit, then
- * range_m, ..., terminal_speed_m_s, status ("ok" or the status name), message (why a row failed).
- * Pure data: no cautions, no comments. DRAGARC_EIO when writing fails, as for the writers below. */
-int dragarc_sweep_write_csv(FILE *fp, const dragarc_sweep *t, dragarc_error *err);
+ * range_m, ..., terminal_speed_m_s (the units of display d, NULL: SI), status ("ok" or the status name),
+ * message (why a row failed). Pure data: no cautions, no comments. DRAGARC_EIO when writing fails, as for
+ * the writers below. */
+int dragarc_sweep_write_csv(FILE *fp, const dragarc_sweep *t, const dragarc_display *d, dragarc_error *err);
 
 /* JSON: {"scenario", "dragarc_version", "varied": [...], "rows": [...], "failed_rows", "units",
- * "cautions"}; angles in degrees, values that do not exist as null. Written as it goes, one row a line. */
-int dragarc_sweep_write_json(FILE *fp, const dragarc_sweep *t, dragarc_error *err);
+ * "cautions"}; values in the units of d (NULL: SI, degrees for angles) named in "units", values that do
+ * not exist as null. Written as it goes, one row a line. */
+int dragarc_sweep_write_json(FILE *fp, const dragarc_sweep *t, const dragarc_display *d, dragarc_error *err);
 
 /* Markdown: a heading line, a pipe table of every column rounded for reading, then the cautions. */
-int dragarc_sweep_write_markdown(FILE *fp, const dragarc_sweep *t, dragarc_error *err);
+int dragarc_sweep_write_markdown(FILE *fp, const dragarc_sweep *t, const dragarc_display *d, dragarc_error *err);
 
 #ifdef __cplusplus
 }

@@ -29,7 +29,7 @@ static const char HELP_HEAD[] =
     "  --vary NAME=START:STOP:STEP  values START, START+STEP, ... up to STOP (included), in the unit below\n"
     "                       or each with a unit of its own (\"speed=60 mph:100 mph:10 mph\", docs/units.md);\n"
     "                       the first --vary varies slowest\n"
-    "  --csv                CSV: a header row with SI units in the column names, every number exact;\n"
+    "  --csv                CSV: a header row with the units in the column names, every number exact;\n"
     "                       data only, so no cautions\n"
     "  --json               one JSON object: varied, rows, units and cautions\n"
     "  --markdown           a Markdown table with the cautions\n"
@@ -39,6 +39,8 @@ static const char HELP_HEAD[] =
     "                       land on it, with the azimuth turned for the wind (see 'dragarc aim'); at most\n"
     "                       10000 ranges\n"
     "  --height METRES      the aim table's target plane above the site datum (default: the ground)\n"
+    "  --units si|us        the units of a table of flights: SI (default) or US customary (ft, mph, ft.lbf)\n"
+    "  --unit KEY=UNIT      a quantity (length=yd) or a column (range=yd) in a unit of its own; repeatable\n"
     "  -h, --help           this help\n"
     "\n"
     "parameters (short name, scenario key path, unit):\n";
@@ -72,25 +74,26 @@ enum { NSHOWN = sizeof SHOWN / sizeof SHOWN[0] };
 
 static int max_int(int a, int b) { return a > b ? a : b; }
 
-static int print_human(FILE *fp, const dragarc_sweep *t)
+static int print_human(FILE *fp, const dragarc_sweep *t, const dragarc_display *d)
 {
     int decimals[NSHOWN], wv[DRAGARC_SWEEP_MAX_AXES], wr[NSHOWN];
     char cell[64];
     for (size_t k = 0; k < t->naxes; k++)
-        wv[k] = max_int((int)strlen(t->axes[k].param->alias), (int)strlen(dragarc_unit_abbrev(t->axes[k].param->unit)));
+        wv[k] = max_int((int)strlen(t->axes[k].param->alias),
+                        (int)strlen(dragarc_unit_abbrev(dragarc_sweep_axis_unit(d, &t->axes[k]))));
     for (int c = 0; c < NSHOWN; c++) {
         const dragarc_sweep_column_info *about = dragarc_sweep_column_about(SHOWN[c]);
-        decimals[c] = dragarc_sweep_column_decimals(t, SHOWN[c]);
-        wr[c] = max_int((int)strlen(about->brief), (int)strlen(dragarc_unit_abbrev(about->unit)));
+        decimals[c] = dragarc_sweep_column_decimals(t, SHOWN[c], d);
+        wr[c] = max_int((int)strlen(about->brief), (int)strlen(dragarc_unit_abbrev(dragarc_sweep_column_unit(d, SHOWN[c]))));
     }
     for (size_t i = 0; i < t->nrows; i++) {
         const dragarc_sweep_row *r = &t->rows[i];
         for (size_t k = 0; k < t->naxes; k++) {
-            dragarc_number_format(cell, sizeof cell, r->values[k]);
+            dragarc_number_format(cell, sizeof cell, dragarc_sweep_axis_shown(d, &t->axes[k], r->values[k]));
             wv[k] = max_int(wv[k], (int)strlen(cell));
         }
         for (int c = 0; r->status == DRAGARC_OK && c < NSHOWN; c++) {
-            dragarc_sweep_cell_format(cell, sizeof cell, r, SHOWN[c], decimals[c]);
+            dragarc_sweep_cell_format(cell, sizeof cell, r, SHOWN[c], decimals[c], d);
             wr[c] = max_int(wr[c], (int)strlen(cell));
         }
     }
@@ -101,7 +104,7 @@ static int print_human(FILE *fp, const dragarc_sweep *t)
     for (size_t k = 0; k < t->naxes; k++)
         walias = max_int(walias, (int)strlen(t->axes[k].param->alias));
     for (size_t k = 0; k < t->naxes; k++) {
-        dragarc_sweep_axis_describe(text, sizeof text, &t->axes[k]);
+        dragarc_sweep_axis_describe(text, sizeof text, &t->axes[k], d);
         fprintf(fp, "  %-*s  %s %s (%zu values)\n", walias, t->axes[k].param->alias, t->axes[k].param->path, text,
                 t->axes[k].count);
     }
@@ -109,10 +112,10 @@ static int print_human(FILE *fp, const dragarc_sweep *t)
     for (int line = 0; line < 2; line++) {
         for (size_t k = 0; k < t->naxes; k++)
             fprintf(fp, "  %*s", wv[k],
-                    line ? dragarc_unit_abbrev(t->axes[k].param->unit) : t->axes[k].param->alias);
+                    line ? dragarc_unit_abbrev(dragarc_sweep_axis_unit(d, &t->axes[k])) : t->axes[k].param->alias);
         for (int c = 0; c < NSHOWN; c++) {
             const dragarc_sweep_column_info *about = dragarc_sweep_column_about(SHOWN[c]);
-            fprintf(fp, "  %*s", wr[c], line ? dragarc_unit_abbrev(about->unit) : about->brief);
+            fprintf(fp, "  %*s", wr[c], line ? dragarc_unit_abbrev(dragarc_sweep_column_unit(d, SHOWN[c])) : about->brief);
         }
         fputc('\n', fp);
     }
@@ -120,7 +123,7 @@ static int print_human(FILE *fp, const dragarc_sweep *t)
         const dragarc_sweep_row *r = &t->rows[i];
         size_t len = 0;
         for (size_t k = 0; k < t->naxes; k++) {
-            dragarc_number_format(cell, sizeof cell, r->values[k]);
+            dragarc_number_format(cell, sizeof cell, dragarc_sweep_axis_shown(d, &t->axes[k], r->values[k]));
             int n = snprintf(lead + len, sizeof lead - len, "  %*s", wv[k], cell);
             len += n > 0 && (size_t)n < sizeof lead - len ? (size_t)n : 0;
         }
@@ -133,7 +136,7 @@ static int print_human(FILE *fp, const dragarc_sweep *t)
         }
         fputs(lead, fp);
         for (int c = 0; c < NSHOWN; c++) {
-            dragarc_sweep_cell_format(cell, sizeof cell, r, SHOWN[c], decimals[c]);
+            dragarc_sweep_cell_format(cell, sizeof cell, r, SHOWN[c], decimals[c], d);
             fprintf(fp, "  %*s", wr[c], cell);
         }
         fputc('\n', fp);
@@ -147,14 +150,15 @@ static int print_human(FILE *fp, const dragarc_sweep *t)
 
 typedef enum { FORMAT_TEXT, FORMAT_CSV, FORMAT_JSON, FORMAT_MARKDOWN } table_format;
 
-static int write_table(FILE *fp, table_format format, const dragarc_sweep *t, dragarc_error *err)
+static int write_table(FILE *fp, table_format format, const dragarc_sweep *t, const dragarc_display *d,
+                       dragarc_error *err)
 {
     switch (format) {
-    case FORMAT_CSV: return dragarc_sweep_write_csv(fp, t, err);
-    case FORMAT_JSON: return dragarc_sweep_write_json(fp, t, err);
-    case FORMAT_MARKDOWN: return dragarc_sweep_write_markdown(fp, t, err);
+    case FORMAT_CSV: return dragarc_sweep_write_csv(fp, t, d, err);
+    case FORMAT_JSON: return dragarc_sweep_write_json(fp, t, d, err);
+    case FORMAT_MARKDOWN: return dragarc_sweep_write_markdown(fp, t, d, err);
     default:
-        if (print_human(fp, t) != 0)
+        if (print_human(fp, t, d) != 0)
             return dragarc_error_set(err, DRAGARC_EIO, "", "write failed");
         return DRAGARC_OK;
     }
@@ -302,7 +306,10 @@ static int aim_table(const char *file, const char *spec, double height, table_fo
 
 int cmd_table(int argc, char **argv)
 {
-    const char *file = NULL, *output = NULL, *format_option = NULL, *ranges = NULL;
+    const char *file = NULL, *output = NULL, *format_option = NULL, *ranges = NULL, *system = NULL;
+    const char *specs[DRAGARC_DISPLAY_MAX_FIELDS + DRAGARC_Q_COUNT];
+    size_t nspecs = 0;
+    int st;
     double height = NAN;
     table_format format = FORMAT_TEXT;
     dragarc_sweep_axis axes[DRAGARC_SWEEP_MAX_AXES];
@@ -319,10 +326,14 @@ int cmd_table(int argc, char **argv)
                 return cli_usage_error("table", "--vary needs NAME=START:STOP:STEP");
             if (naxes == DRAGARC_SWEEP_MAX_AXES)
                 return cli_usage_error("table", "at most %d --vary options", DRAGARC_SWEEP_MAX_AXES);
-            int st = parse_vary(argv[i], &axes[naxes]);
+            st = parse_vary(argv[i], &axes[naxes]);
             if (st != 0)
                 return st;
             naxes++;
+        } else if ((st = cli_units_option("table", argc, argv, &i, &system, specs, &nspecs,
+                                          sizeof specs / sizeof specs[0])) >= 0) {
+            if (st != 0)
+                return st;
         } else if (strcmp(a, "--csv") == 0 || strcmp(a, "--json") == 0 || strcmp(a, "--markdown") == 0) {
             f = a[2] == 'c' ? FORMAT_CSV : a[2] == 'j' ? FORMAT_JSON : FORMAT_MARKDOWN;
             if (format_option && f != format)
@@ -358,10 +369,17 @@ int cmd_table(int argc, char **argv)
         return cli_usage_error("table", "--ranges makes an aim table and --vary a table of flights: choose one");
     if (!isnan(height) && !ranges)
         return cli_usage_error("table", "--height sets the aim table's target plane; give --ranges too");
+    if (ranges && (system || nspecs))
+        return cli_usage_error("table", "--units and --unit apply to tables of flights (--vary) for now; an aim table "
+                                        "(--ranges) is written in SI units");
     if (ranges)
         return aim_table(file, ranges, height, format, output);
     if (naxes == 0)
         return cli_usage_error("table", "needs at least one --vary NAME=START:STOP:STEP");
+    dragarc_display d;
+    if ((st = cli_display_options("table", system, specs, nspecs, &d)) != 0)
+        return st;
+    const dragarc_display *dp = system || nspecs ? &d : NULL; /* NULL: SI, as the library names it */
     if (dragarc_sweep_axes_check(axes, naxes, NULL, &err) != DRAGARC_OK)
         return cli_usage_error("table", "--vary: %s%s%s", err.field, err.field[0] ? ": " : "", err.message);
 
@@ -380,7 +398,7 @@ int cmd_table(int argc, char **argv)
     dragarc_output out;
     rc = dragarc_output_open(&out, output ? output : "-", &err);
     if (rc == DRAGARC_OK) {
-        rc = write_table(out.fp, format, &t, &err);
+        rc = write_table(out.fp, format, &t, dp, &err);
         if (rc == DRAGARC_OK)
             rc = dragarc_output_commit(&out, &err);
         else

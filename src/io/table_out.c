@@ -77,16 +77,17 @@ static int decimals_for(const double *v, size_t n, int digits)
 }
 
 static const dragarc_sweep_column_info COLUMNS[DRAGARC_SWEEP_NCOLUMNS] = {
-    {"range", "range_m", "range", "range", "m"},
-    {"downrange", "downrange_m", "downrange", "downrange", "m"},
-    {"crossrange", "crossrange_m", "crossrange", "crossrange", "m"},
-    {"time_of_flight", "time_of_flight_s", "time of flight", "time", "s"},
-    {"apex_height", "apex_height_m", "apex height", "apex", "m"},
-    {"impact_speed", "impact_speed_m_s", "impact speed", "impact", "m/s"},
-    {"impact_angle", "impact_angle_deg", "impact angle", "angle", "degree"},
-    {"impact_energy", "impact_energy_J", "impact energy", "energy", "J"},
-    {"terminal_speed", "terminal_speed_m_s", "terminal speed", "terminal", "m/s"},
+    {"range", "range_m", "range", "range", "m", DRAGARC_Q_LENGTH},
+    {"downrange", "downrange_m", "downrange", "downrange", "m", DRAGARC_Q_LENGTH},
+    {"crossrange", "crossrange_m", "crossrange", "crossrange", "m", DRAGARC_Q_LENGTH},
+    {"time_of_flight", "time_of_flight_s", "time of flight", "time", "s", DRAGARC_Q_TIME},
+    {"apex_height", "apex_height_m", "apex height", "apex", "m", DRAGARC_Q_LENGTH},
+    {"impact_speed", "impact_speed_m_s", "impact speed", "impact", "m/s", DRAGARC_Q_SPEED},
+    {"impact_angle", "impact_angle_deg", "impact angle", "angle", "degree", DRAGARC_Q_ANGLE},
+    {"impact_energy", "impact_energy_J", "impact energy", "energy", "J", DRAGARC_Q_ENERGY},
+    {"terminal_speed", "terminal_speed_m_s", "terminal speed", "terminal", "m/s", DRAGARC_Q_SPEED},
 };
+
 enum { NC = DRAGARC_SWEEP_NCOLUMNS };
 
 const dragarc_sweep_column_info *dragarc_sweep_column_about(dragarc_sweep_column c)
@@ -110,7 +111,43 @@ double dragarc_sweep_column_value(const dragarc_sweep_row *r, dragarc_sweep_colu
     }
 }
 
-int dragarc_sweep_column_decimals(const dragarc_sweep *t, dragarc_sweep_column c)
+double dragarc_sweep_shown(const dragarc_display *d, const dragarc_sweep_row *r, dragarc_sweep_column c)
+{
+    double v = dragarc_sweep_column_value(r, c);
+    if (!d || (unsigned)c >= NC)
+        return v;
+    return dragarc_display_value(dragarc_display_unit(d, COLUMNS[c].key, COLUMNS[c].quantity), v);
+}
+
+const char *dragarc_sweep_column_unit(const dragarc_display *d, dragarc_sweep_column c)
+{
+    if ((unsigned)c >= NC)
+        return "";
+    return d ? dragarc_display_unit(d, COLUMNS[c].key, COLUMNS[c].quantity)->symbol : COLUMNS[c].unit;
+}
+
+double dragarc_sweep_axis_shown(const dragarc_display *d, const dragarc_sweep_axis *a, double v)
+{
+    if (!d || a->param->quantity == DRAGARC_Q_NUMBER)
+        return v;
+    const dragarc_unit_out *u = dragarc_display_unit(d, NULL, a->param->quantity);
+    if (u->scale == 1.0 && u->offset == 0.0)
+        return v;
+    /* A value given as "100 mph" went to 44.704 m/s and comes back as 100.00000000000001: shown to 15
+     * significant digits it is the 100 that was asked for (the flights used the exact SI value). */
+    char buf[40];
+    snprintf(buf, sizeof buf, "%.15g", dragarc_display_value(u, v));
+    return strtod(buf, NULL) + 0.0;
+}
+
+const char *dragarc_sweep_axis_unit(const dragarc_display *d, const dragarc_sweep_axis *a)
+{
+    if (!d || a->param->quantity == DRAGARC_Q_NUMBER)
+        return a->param->unit;
+    return dragarc_display_unit(d, NULL, a->param->quantity)->symbol;
+}
+
+int dragarc_sweep_column_decimals(const dragarc_sweep *t, dragarc_sweep_column c, const dragarc_display *d)
 {
     if (c == DRAGARC_SWEEP_IMPACT_ANGLE)
         return 1;
@@ -120,16 +157,16 @@ int dragarc_sweep_column_decimals(const dragarc_sweep *t, dragarc_sweep_column c
     size_t m = 0;
     for (size_t i = 0; i < t->nrows; i++)
         if (t->rows[i].status == DRAGARC_OK)
-            col[m++] = dragarc_sweep_column_value(&t->rows[i], c);
-    int d = decimals_for(col, m, 5);
+            col[m++] = dragarc_sweep_shown(d, &t->rows[i], c);
+    int dec = decimals_for(col, m, 5);
     free(col);
-    return d;
+    return dec;
 }
 
 void dragarc_sweep_cell_format(char *buf, size_t size, const dragarc_sweep_row *r, dragarc_sweep_column c,
-                               int decimals)
+                               int decimals, const dragarc_display *d)
 {
-    double v = dragarc_sweep_column_value(r, c);
+    double v = dragarc_sweep_shown(d, r, c);
     if (r->status != DRAGARC_OK)
         snprintf(buf, size, "%s", ""); /* the status says why */
     else if (!isfinite(v))
@@ -142,25 +179,28 @@ void dragarc_sweep_cell_format(char *buf, size_t size, const dragarc_sweep_row *
 
 const char *dragarc_unit_abbrev(const char *unit) { return strcmp(unit, "degree") == 0 ? "deg" : unit; }
 
-void dragarc_sweep_axis_describe(char *buf, size_t size, const dragarc_sweep_axis *a)
+void dragarc_sweep_axis_describe(char *buf, size_t size, const dragarc_sweep_axis *a, const dragarc_display *d)
 {
     char v[3][40];
-    dragarc_number_format(v[0], sizeof v[0], a->start);
-    dragarc_number_format(v[1], sizeof v[1], a->stop);
-    dragarc_number_format(v[2], sizeof v[2], a->step);
-    snprintf(buf, size, "from %s to %s by %s%s%s", v[0], v[1], v[2], a->param->unit[0] ? " " : "",
-             dragarc_unit_abbrev(a->param->unit));
+    const char *unit = dragarc_sweep_axis_unit(d, a);
+    /* The step is a difference: no zero-point offset (degF steps of degF values, say). */
+    double zero = dragarc_sweep_axis_shown(d, a, 0.0);
+    dragarc_number_format(v[0], sizeof v[0], dragarc_sweep_axis_shown(d, a, a->start));
+    dragarc_number_format(v[1], sizeof v[1], dragarc_sweep_axis_shown(d, a, a->stop));
+    dragarc_number_format(v[2], sizeof v[2], dragarc_sweep_axis_shown(d, a, a->step) - zero);
+    snprintf(buf, size, "from %s to %s by %s%s%s", v[0], v[1], v[2], unit[0] ? " " : "", dragarc_unit_abbrev(unit));
 }
 
 /* A unit fit for a CSV column name: m/s -> m_s, m/s^2 -> m_s2, degree -> deg. */
 static void csv_unit(char *buf, size_t size, const char *unit)
 {
-    const char *u = dragarc_unit_abbrev(unit);
+    char tmp[64];
     size_t k = 0;
-    for (; *u && k + 1 < size; u++)
+    for (const char *u = dragarc_unit_abbrev(unit); *u && k + 1 < sizeof tmp; u++)
         if (*u != '^')
-            buf[k++] = *u == '/' ? '_' : *u;
-    buf[k] = '\0';
+            tmp[k++] = *u;
+    tmp[k] = '\0';
+    dragarc_unit_column_suffix(tmp, buf, size);
 }
 
 static int write_status(FILE *fp, dragarc_error *err)
@@ -200,25 +240,28 @@ void dragarc_csv_text(FILE *fp, const char *s)
     fputc('"', fp);
 }
 
-int dragarc_sweep_write_csv(FILE *fp, const dragarc_sweep *t, dragarc_error *err)
+int dragarc_sweep_write_csv(FILE *fp, const dragarc_sweep *t, const dragarc_display *d, dragarc_error *err)
 {
     for (size_t k = 0; k < t->naxes; k++) {
         char u[32];
-        csv_unit(u, sizeof u, t->axes[k].param->unit);
+        csv_unit(u, sizeof u, dragarc_sweep_axis_unit(d, &t->axes[k]));
         fprintf(fp, "%s%s%s,", t->axes[k].param->path, u[0] ? "_" : "", u);
     }
-    for (int c = 0; c < NC; c++)
-        fprintf(fp, "%s,", COLUMNS[c].csv);
+    for (int c = 0; c < NC; c++) {
+        char u[32];
+        csv_unit(u, sizeof u, dragarc_sweep_column_unit(d, (dragarc_sweep_column)c));
+        fprintf(fp, "%s_%s,", COLUMNS[c].key, u);
+    }
     fputs("status,message\n", fp);
     char msg[sizeof(dragarc_error)];
     for (size_t i = 0; i < t->nrows; i++) {
         const dragarc_sweep_row *r = &t->rows[i];
         for (size_t k = 0; k < t->naxes; k++) {
-            dragarc_number_write(fp, r->values[k]);
+            dragarc_number_write(fp, dragarc_sweep_axis_shown(d, &t->axes[k], r->values[k]));
             fputc(',', fp);
         }
         for (int c = 0; c < NC; c++) {
-            dragarc_number_write(fp, dragarc_sweep_column_value(r, c));
+            dragarc_number_write(fp, dragarc_sweep_shown(d, r, c));
             fputc(',', fp);
         }
         dragarc_sweep_row_message(r, msg, sizeof msg);
@@ -254,7 +297,7 @@ void dragarc_json_number(FILE *fp, double v)
         fputs("null", fp);
 }
 
-int dragarc_sweep_write_json(FILE *fp, const dragarc_sweep *t, dragarc_error *err)
+int dragarc_sweep_write_json(FILE *fp, const dragarc_sweep *t, const dragarc_display *d, dragarc_error *err)
 {
     fputs("{\n  \"scenario\": ", fp);
     dragarc_json_text(fp, t->scenario);
@@ -262,12 +305,12 @@ int dragarc_sweep_write_json(FILE *fp, const dragarc_sweep *t, dragarc_error *er
     for (size_t k = 0; k < t->naxes; k++) {
         const dragarc_sweep_axis *a = &t->axes[k];
         fprintf(fp, "%s\n    {\"name\": \"%s\", \"alias\": \"%s\", \"unit\": \"%s\", \"start\": ", k ? "," : "",
-                a->param->path, a->param->alias, a->param->unit);
-        dragarc_json_number(fp, a->start);
+                a->param->path, a->param->alias, dragarc_sweep_axis_unit(d, a));
+        dragarc_json_number(fp, dragarc_sweep_axis_shown(d, a, a->start));
         fputs(", \"stop\": ", fp);
-        dragarc_json_number(fp, a->stop);
+        dragarc_json_number(fp, dragarc_sweep_axis_shown(d, a, a->stop));
         fputs(", \"step\": ", fp);
-        dragarc_json_number(fp, a->step);
+        dragarc_json_number(fp, dragarc_sweep_axis_shown(d, a, a->step) - dragarc_sweep_axis_shown(d, a, 0.0));
         fprintf(fp, ", \"count\": %zu}", a->count);
     }
     fputs("\n  ],\n  \"rows\": [", fp);
@@ -276,14 +319,14 @@ int dragarc_sweep_write_json(FILE *fp, const dragarc_sweep *t, dragarc_error *er
         fputs(i ? ",\n    {" : "\n    {", fp);
         for (size_t k = 0; k < t->naxes; k++) {
             fprintf(fp, "\"%s\": ", t->axes[k].param->path);
-            dragarc_json_number(fp, r->values[k]);
+            dragarc_json_number(fp, dragarc_sweep_axis_shown(d, &t->axes[k], r->values[k]));
             fputs(", ", fp);
         }
         fputs("\"status\": ", fp);
         dragarc_json_text(fp, status_word(r));
         for (int c = 0; c < NC; c++) {
             fprintf(fp, ", \"%s\": ", COLUMNS[c].key);
-            dragarc_json_number(fp, dragarc_sweep_column_value(r, c));
+            dragarc_json_number(fp, dragarc_sweep_shown(d, r, c));
         }
         if (r->status != DRAGARC_OK) {
             fputs(", \"error\": {\"field\": ", fp);
@@ -296,9 +339,10 @@ int dragarc_sweep_write_json(FILE *fp, const dragarc_sweep *t, dragarc_error *er
     }
     fprintf(fp, "%s],\n  \"failed_rows\": %zu,\n  \"units\": {", t->nrows ? "\n  " : "", t->nfailed);
     for (size_t k = 0; k < t->naxes; k++)
-        fprintf(fp, "\"%s\": \"%s\", ", t->axes[k].param->path, t->axes[k].param->unit);
+        fprintf(fp, "\"%s\": \"%s\", ", t->axes[k].param->path, dragarc_sweep_axis_unit(d, &t->axes[k]));
     for (int c = 0; c < NC; c++)
-        fprintf(fp, "%s\"%s\": \"%s\"", c ? ", " : "", COLUMNS[c].key, COLUMNS[c].unit);
+        fprintf(fp, "%s\"%s\": \"%s\"", c ? ", " : "", COLUMNS[c].key,
+                dragarc_sweep_column_unit(d, (dragarc_sweep_column)c));
     fputs("},\n  \"cautions\": [", fp);
     const char *cautions[8];
     size_t nc = dragarc_cautions_notes(t->notes, cautions, 8);
@@ -323,26 +367,26 @@ static void md_text(FILE *fp, const char *s)
     }
 }
 
-int dragarc_sweep_write_markdown(FILE *fp, const dragarc_sweep *t, dragarc_error *err)
+int dragarc_sweep_write_markdown(FILE *fp, const dragarc_sweep *t, const dragarc_display *d, dragarc_error *err)
 {
     int decimals[NC];
     for (int c = 0; c < NC; c++)
-        decimals[c] = dragarc_sweep_column_decimals(t, (dragarc_sweep_column)c);
+        decimals[c] = dragarc_sweep_column_decimals(t, (dragarc_sweep_column)c, d);
     char text[sizeof(dragarc_error)];
     fputs("**", fp);
     md_text(fp, t->scenario[0] ? t->scenario : "dragarc table");
     fputs("**: ", fp);
     for (size_t k = 0; k < t->naxes; k++) {
-        dragarc_sweep_axis_describe(text, sizeof text, &t->axes[k]);
+        dragarc_sweep_axis_describe(text, sizeof text, &t->axes[k], d);
         fprintf(fp, "%s`%s` %s", k ? "; " : "", t->axes[k].param->path, text);
     }
     fprintf(fp, " (%zu rows, %zu failed)\n\n|", t->nrows, t->nfailed);
     for (size_t k = 0; k < t->naxes; k++) {
-        const char *u = dragarc_unit_abbrev(t->axes[k].param->unit);
+        const char *u = dragarc_unit_abbrev(dragarc_sweep_axis_unit(d, &t->axes[k]));
         fprintf(fp, " %s%s%s%s |", t->axes[k].param->path, u[0] ? " (" : "", u, u[0] ? ")" : "");
     }
     for (int c = 0; c < NC; c++)
-        fprintf(fp, " %s (%s) |", COLUMNS[c].label, dragarc_unit_abbrev(COLUMNS[c].unit));
+        fprintf(fp, " %s (%s) |", COLUMNS[c].label, dragarc_unit_abbrev(dragarc_sweep_column_unit(d, (dragarc_sweep_column)c)));
     fputs(" status |\n|", fp);
     for (size_t k = 0; k < t->naxes + NC; k++)
         fputs(" ---: |", fp);
@@ -352,11 +396,11 @@ int dragarc_sweep_write_markdown(FILE *fp, const dragarc_sweep *t, dragarc_error
         fputc('|', fp);
         for (size_t k = 0; k < t->naxes; k++) {
             fputc(' ', fp);
-            dragarc_number_write(fp, r->values[k]);
+            dragarc_number_write(fp, dragarc_sweep_axis_shown(d, &t->axes[k], r->values[k]));
             fputs(" |", fp);
         }
         for (int c = 0; c < NC; c++) {
-            dragarc_sweep_cell_format(text, sizeof text, r, (dragarc_sweep_column)c, decimals[c]);
+            dragarc_sweep_cell_format(text, sizeof text, r, (dragarc_sweep_column)c, decimals[c], d);
             fprintf(fp, " %s |", text);
         }
         fputc(' ', fp);

@@ -114,5 +114,19 @@ check "atmosphere --units us: ft, degF, psi, lb/ft3, mph and lb/(ft s) by the ex
 printf '%s\n' '"range": "ft",' '"speed": "mph",' '"impact_energy": "ft.lbf",' '"miss": "ft",' '"max_range": "ft",' >"$root/b"
 check "aim --units us --json: the units object names each value's unit"
 
+# table --units us: the varied values come back in the unit they were given in, every column follows, and
+# the rows are the same flights as in SI (the range in feet is the SI range / 0.3048, to 1e-15).
+"$bin" table "$data/ball-in-wind.json" --vary "speed=60 mph:100 mph:20 mph" --units us --csv 2>"$root/err" >"$root/us.csv"
+"$bin" table "$data/ball-in-wind.json" --vary "speed=60 mph:100 mph:20 mph" --csv 2>"$root/err" >"$root/si.csv"
+head -1 "$root/us.csv" | cut -d, -f1-3,9 >"$root/a"
+echo "launch.speed_mph,range_ft,downrange_ft,impact_energy_ft_lbf" >"$root/b"
+check "table --units us --csv: the column names carry the units"
+paste -d, "$root/si.csv" "$root/us.csv" | tail -n +2 | awk -F, '
+    function abs(x) { return x < 0 ? -x : x }
+    { n = NF / 2; bad = abs($(n + 2) - $2 / 0.3048) > 1e-15 * $(n + 2) || abs($(n + 7) - $7 / 0.44704) > 1e-15 * $(n + 7)
+      print $(n + 1), bad ? "differs" : "ok" }' >"$root/a"
+printf '60 ok\n80 ok\n100 ok\n' >"$root/b"
+check "table --units us: 60, 80, 100 mph as given; range and impact speed = the SI values by the exact factors"
+
 echo "$passed passed, $failed failed"
 [ "$failed" -eq 0 ]
