@@ -87,10 +87,12 @@ typedef enum dragarc_table_format {
     DRAGARC_TABLE_MARKDOWN  /* a pipe table, then the cautions */
 } dragarc_table_format;
 
-/* Write an aim table (dragarc_aim_table's rows for target plane `height`, m) in the given form. */
+/* Write an aim table (dragarc_aim_table's rows for target plane `height`, m) in the given form, in the units
+ * of display d (NULL: SI, degrees for angles). */
 struct dragarc_aim_table_row;
 int dragarc_aim_table_write(FILE *fp, dragarc_table_format format, const char *scenario, double height,
-                            const struct dragarc_aim_table_row *rows, size_t n, dragarc_error *err);
+                            const struct dragarc_aim_table_row *rows, size_t n, const dragarc_display *d,
+                            dragarc_error *err);
 
 /* The `atmosphere --json` document for n altitudes (m) and their states, in the units of display d (NULL:
  * SI) named in "units". Caller frees with free(). */

@@ -39,7 +39,7 @@ static const char HELP_HEAD[] =
     "                       land on it, with the azimuth turned for the wind (see 'dragarc aim'); at most\n"
     "                       10000 ranges\n"
     "  --height METRES      the aim table's target plane above the site datum (default: the ground)\n"
-    "  --units si|us        the units of a table of flights: SI (default) or US customary (ft, mph, ft.lbf)\n"
+    "  --units si|us        the units of the table: SI (default) or US customary (ft, mph, ft.lbf)\n"
     "  --unit KEY=UNIT      a quantity (length=yd) or a column (range=yd) in a unit of its own; repeatable\n"
     "  -h, --help           this help\n"
     "\n"
@@ -235,7 +235,8 @@ static int parse_vary(const char *spec, dragarc_sweep_axis *axis)
 
 #define MAX_RANGES 10000
 
-static int aim_table(const char *file, const char *spec, double height, table_format format, const char *output)
+static int aim_table(const char *file, const char *spec, double height, table_format format, const char *output,
+                     const dragarc_display *d)
 {
     static double ranges[MAX_RANGES];
     char why[256];
@@ -271,7 +272,7 @@ static int aim_table(const char *file, const char *spec, double height, table_fo
     dragarc_output out;
     rc = dragarc_output_open(&out, output ? output : "-", &err);
     if (rc == DRAGARC_OK) {
-        rc = dragarc_aim_table_write(out.fp, FORMS[format], s.name, plane, rows, n, &err);
+        rc = dragarc_aim_table_write(out.fp, FORMS[format], s.name, plane, rows, n, d, &err);
         if (rc == DRAGARC_OK)
             rc = dragarc_output_commit(&out, &err);
         else
@@ -369,17 +370,14 @@ int cmd_table(int argc, char **argv)
         return cli_usage_error("table", "--ranges makes an aim table and --vary a table of flights: choose one");
     if (!isnan(height) && !ranges)
         return cli_usage_error("table", "--height sets the aim table's target plane; give --ranges too");
-    if (ranges && (system || nspecs))
-        return cli_usage_error("table", "--units and --unit apply to tables of flights (--vary) for now; an aim table "
-                                        "(--ranges) is written in SI units");
-    if (ranges)
-        return aim_table(file, ranges, height, format, output);
-    if (naxes == 0)
-        return cli_usage_error("table", "needs at least one --vary NAME=START:STOP:STEP");
     dragarc_display d;
     if ((st = cli_display_options("table", system, specs, nspecs, &d)) != 0)
         return st;
     const dragarc_display *dp = system || nspecs ? &d : NULL; /* NULL: SI, as the library names it */
+    if (ranges)
+        return aim_table(file, ranges, height, format, output, dp);
+    if (naxes == 0)
+        return cli_usage_error("table", "needs at least one --vary NAME=START:STOP:STEP");
     if (dragarc_sweep_axes_check(axes, naxes, NULL, &err) != DRAGARC_OK)
         return cli_usage_error("table", "--vary: %s%s%s", err.field, err.field[0] ? ": " : "", err.message);
 

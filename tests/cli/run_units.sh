@@ -128,5 +128,16 @@ paste -d, "$root/si.csv" "$root/us.csv" | tail -n +2 | awk -F, '
 printf '60 ok\n80 ok\n100 ok\n' >"$root/b"
 check "table --units us: 60, 80, 100 mph as given; range and impact speed = the SI values by the exact factors"
 
+# An aim table in yards: the ranges come back as asked (10, 15, 20 yd), the solutions are those of the SI
+# table for the same ranges (elevations in degrees, the impact speed / 0.44704 to 1e-15).
+"$bin" table "$data/courtyard-lob.json" --ranges "10 yd:20 yd:5 yd" --units us --unit range=yd --csv 2>"$root/err" >"$root/us.csv"
+"$bin" table "$data/courtyard-lob.json" --ranges "10 yd:20 yd:5 yd" --csv 2>"$root/err" >"$root/si.csv"
+paste -d, "$root/si.csv" "$root/us.csv" | tail -n +2 | awk -F, '
+    function abs(x) { return x < 0 ? -x : x }
+    { n = NF / 2; bad = $(n + 2) != $2 || abs($(n + 6) - $6 / 0.44704) > 1e-15 * $(n + 6)
+      print $(n + 1), bad ? "differs" : "ok" }' >"$root/a"
+printf '10 ok\n15 ok\n20 ok\n' >"$root/b"
+check "table --ranges in yards --units us --unit range=yd: ranges as asked, the same launches as in SI"
+
 echo "$passed passed, $failed failed"
 [ "$failed" -eq 0 ]
