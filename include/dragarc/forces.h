@@ -3,8 +3,9 @@
  * Copyright (C) 2026 the dragarc developers. SPDX-License-Identifier: GPL-3.0-or-later
  *
  * State y = (x, y, z, vx, vy, vz), local frame x east, y north, z up (m, m/s).
- *   m dv/dt = -m g z^ + rho_f V g z^ - D(|v_rel|) v_rel,   v_rel = v - w(z - z_ground)
- * gravity, buoyancy (Archimedes) and drag; D is the drag factor of drag.h.
+ *   m dv/dt = -m g z^ + rho_f V g z^ - D(|v_rel|) v_rel + F_L,   v_rel = v - w(z - z_ground)
+ * gravity, buoyancy (Archimedes), drag (D is the drag factor of drag.h) and, for a spinning body with a
+ * lift model, the lift F_L = 1/2 rho C_L A |v_rel|^2 (w^ x v_rel^) / |w^ x v_rel^| (Magnus).
  */
 #ifndef DRAGARC_FORCES_H
 #define DRAGARC_FORCES_H
@@ -28,6 +29,7 @@ typedef struct dragarc_forces {
     int prepared;            /* the fields below are valid for the parts borrowed */
     double wind_toward[2];   /* unit vector (east, north) the wind blows toward */
     double inv_mass;         /* 1/kg */
+    double spin_axis[3];     /* unit vector of the spin (east, north, up); zero when there is no spin */
 } dragarc_forces;
 
 /* What the right-hand side saw at one state, for diagnostics and output. */
@@ -43,6 +45,11 @@ typedef struct dragarc_flow {
 /* Borrow the parts and work out once what every evaluation would repeat; call again after changing any. */
 void dragarc_forces_init(dragarc_forces *f, const dragarc_projectile *projectile, const dragarc_atmosphere *atmosphere,
                          const dragarc_wind *wind, double gravity, double ground_elevation);
+
+/* The spin of a launch with rate (rad/s) and tilt (rad) at azimuth (rad): with no tilt the axis is
+ * horizontal, to the right of the launch direction (backspin: the lift points up); a positive tilt turns it
+ * so that the lift leans to the right. A rate of 0 (or no lift model) leaves the body without lift. */
+void dragarc_forces_spin(dragarc_forces *f, double rate, double tilt, double azimuth);
 
 /* dy/dt at state y (6 values) into dydt (6 values); fills *flow if not NULL. Returns DRAGARC_OK, or
  * the atmosphere's error (e.g. DRAGARC_ERANGE above 86 km) with err filled. Pure: no I/O, no state. */

@@ -12,6 +12,17 @@
 extern "C" {
 #endif
 
+/* Lift of a spinning body (docs/models.md): F_L = 1/2 rho C_L A |v_rel|^2 along (w x v_rel)/|w x v_rel|. */
+typedef enum dragarc_lift_model {
+    DRAGARC_LIFT_NONE = 0,
+    DRAGARC_LIFT_CONSTANT /* C_L = cl whenever the spin rate is not zero */
+} dragarc_lift_model;
+
+typedef struct dragarc_lift {
+    dragarc_lift_model model;
+    double cl; /* constant model, 0 to 1 */
+} dragarc_lift;
+
 typedef struct dragarc_projectile {
     char name[64];      /* profile name or "" */
     double mass;        /* kg, > 0 */
@@ -20,6 +31,7 @@ typedef struct dragarc_projectile {
     double volume;      /* m^3, for buoyancy (default pi d^3 / 6) */
     double density;     /* kg/m^3 when the mass was given as density x volume, else 0 */
     dragarc_drag drag;  /* owned (tables) */
+    dragarc_lift lift;  /* none by default */
 } dragarc_projectile;
 
 /* Check mass, diameter, area, volume and drag; err->field relative to the projectile object. */

@@ -31,6 +31,7 @@ typedef enum dragarc_quantity {
     DRAGARC_Q_LINEAR_DRAG,           /* kg/s = N s/m */
     DRAGARC_Q_QUADRATIC_DRAG,        /* kg/m = N s^2/m^2 */
     DRAGARC_Q_ENERGY,                /* J */
+    DRAGARC_Q_ANGULAR_SPEED,         /* rpm (the interface unit of spin rates) */
     DRAGARC_Q_COUNT
 } dragarc_quantity;
 

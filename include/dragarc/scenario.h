@@ -33,6 +33,8 @@ typedef struct dragarc_launch {
     double elevation; /* rad above horizontal, [-pi/2, pi/2] */
     double azimuth;   /* rad clockwise from north */
     double height;    /* m above the site datum */
+    double spin_rate; /* rad/s, >= 0: 0 for no spin */
+    double spin_tilt; /* rad, [-pi, pi]: 0 pure backspin, positive tilts the lift to the right */
 } dragarc_launch;
 
 typedef struct dragarc_solver_options {

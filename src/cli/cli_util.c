@@ -136,6 +136,17 @@ void cli_print_flight(FILE *fp, const char *label, const dragarc_scenario *s, co
             SHOW(NULL, DRAGARC_Q_ANGLE, s->launch.elevation * DEG), angle,
             SHOW(NULL, DRAGARC_Q_ANGLE, s->launch.azimuth * DEG), angle,
             SHOW("launch_height", DRAGARC_Q_LENGTH, s->launch.height), UNIT("launch_height", DRAGARC_Q_LENGTH));
+    if (s->launch.spin_rate > 0.0) {
+        char lift[64];
+        if (p->lift.model == DRAGARC_LIFT_CONSTANT)
+            snprintf(lift, sizeof lift, "lift constant CL %.4g", p->lift.cl);
+        else
+            snprintf(lift, sizeof lift, "no lift model: the spin has no effect");
+        fprintf(fp, "  spin            %.4g %s, tilt %.4g %s (%s)\n",
+                SHOW("spin_rate", DRAGARC_Q_ANGULAR_SPEED, s->launch.spin_rate * 60.0 / (2.0 * 3.14159265358979323846)),
+                UNIT("spin_rate", DRAGARC_Q_ANGULAR_SPEED), SHOW(NULL, DRAGARC_Q_ANGLE, s->launch.spin_tilt * DEG), angle,
+                lift);
+    }
     double cross = SHOW("crossrange", DRAGARC_Q_LENGTH, f->crossrange);
     fprintf(fp, "  range           %.2f %s (downrange %.2f %s, crossrange %.2f %s %s)\n",
             SHOW("range", DRAGARC_Q_LENGTH, f->range), UNIT("range", DRAGARC_Q_LENGTH),

@@ -23,6 +23,7 @@ static const struct {
     [DRAGARC_Q_LINEAR_DRAG] = {"a linear drag constant (force per speed)", "kg/s"},
     [DRAGARC_Q_QUADRATIC_DRAG] = {"a quadratic drag constant (force per speed squared)", "kg/m"},
     [DRAGARC_Q_ENERGY] = {"an energy", "J"},
+    [DRAGARC_Q_ANGULAR_SPEED] = {"an angular speed", "rpm"},
 };
 
 const char *dragarc_quantity_name(dragarc_quantity q)

@@ -200,6 +200,9 @@ static const struct {
     {"launch.elevation", DRAGARC_Q_ANGLE},
     {"launch.azimuth", DRAGARC_Q_ANGLE},
     {"launch.height", DRAGARC_Q_LENGTH},
+    {"launch.spin.rate", DRAGARC_Q_ANGULAR_SPEED},
+    {"launch.spin.tilt", DRAGARC_Q_ANGLE},
+    {"projectile.lift.cl", DRAGARC_Q_NUMBER},
     {"environment.gravity", DRAGARC_Q_ACCELERATION},
     {"environment.atmosphere.site_elevation", DRAGARC_Q_LENGTH},
     {"environment.atmosphere.temperature_offset", DRAGARC_Q_TEMPERATURE_DIFFERENCE},
@@ -412,7 +415,7 @@ static int read_drag(const cJSON *j, const char *path, dragarc_drag *d, dragarc_
 static int read_projectile_object(const cJSON *j, const char *path, dragarc_projectile *p, dragarc_error *err)
 {
     static const char *const keys[] = {"name", "description", "source", "mass", "density", "diameter",
-                                       "area", "volume", "drag", NULL};
+                                       "area", "volume", "drag", "lift", NULL};
     TRY(want_object(j, path, err));
     TRY(check_keys(j, path, keys, err));
     TRY(check_source(j, path, err));
@@ -457,6 +460,23 @@ static int read_projectile_object(const cJSON *j, const char *path, dragarc_proj
     if (!dj)
         return dragarc_error_set(err, DRAGARC_EINVAL, field, "is required (e.g. {\"model\": \"sphere\"})");
     TRY(read_drag(dj, field, &p->drag, err));
+    const cJSON *lj = cJSON_GetObjectItemCaseSensitive(j, "lift");
+    if (lj) {
+        static const char *const lkeys[] = {"model", "cl", "source", NULL};
+        join(field, sizeof field, path, "lift");
+        TRY(want_object(lj, field, err));
+        TRY(check_keys(lj, field, lkeys, err));
+        TRY(check_source(lj, field, err));
+        const char *model = NULL;
+        TRY(get_string(lj, field, "model", 1, &model, err));
+        if (strcmp(model, "constant") != 0) {
+            char mf[PATH_MAX_LEN];
+            join(mf, sizeof mf, field, "model");
+            return dragarc_error_set(err, DRAGARC_EINVAL, mf, "unknown lift model \"%s\" (constant)", model);
+        }
+        p->lift.model = DRAGARC_LIFT_CONSTANT;
+        TRY(get_number(lj, field, "cl", 1, &p->lift.cl, NULL, err));
+    }
     int rc = dragarc_projectile_check(p, err);
     if (rc != DRAGARC_OK)
         dragarc_error_prefix(err, path);
@@ -551,9 +571,29 @@ static int read_projectile(const cJSON *j, const char *base_dir, const char *pro
 
 /* ---- launch, environment, ground, solver ----------------------------------------------------- */
 
+/* launch.spin: {"rate": rpm, "tilt": degrees}. */
+static int read_spin(const cJSON *j, dragarc_launch *l, dragarc_error *err)
+{
+    static const char *const keys[] = {"rate", "tilt", NULL};
+    TRY(want_object(j, "launch.spin", err));
+    TRY(check_keys(j, "launch.spin", keys, err));
+    double rpm = 0.0, tilt = 0.0;
+    TRY(get_number(j, "launch.spin", "rate", 1, &rpm, NULL, err));
+    TRY(get_number(j, "launch.spin", "tilt", 0, &tilt, NULL, err));
+    if (!(rpm >= 0.0 && rpm <= 60000.0))
+        return dragarc_error_set(err, DRAGARC_EINVAL, "launch.spin.rate", "must be between 0 and 60000 rpm (got %g)",
+                                 rpm);
+    if (!(tilt >= -180.0 && tilt <= 180.0))
+        return dragarc_error_set(err, DRAGARC_EINVAL, "launch.spin.tilt", "must be between -180 and 180 degrees (got %g)",
+                                 tilt);
+    l->spin_rate = rpm * 2.0 * DRAGARC_PI / 60.0;
+    l->spin_tilt = tilt * DRAGARC_DEG;
+    return DRAGARC_OK;
+}
+
 static int read_launch(const cJSON *j, dragarc_launch *l, dragarc_error *err)
 {
-    static const char *const keys[] = {"speed", "elevation", "azimuth", "height", NULL};
+    static const char *const keys[] = {"speed", "elevation", "azimuth", "height", "spin", NULL};
     TRY(want_object(j, "launch", err));
     TRY(check_keys(j, "launch", keys, err));
     double elev = 0.0, az = 0.0;
@@ -569,6 +609,9 @@ static int read_launch(const cJSON *j, dragarc_launch *l, dragarc_error *err)
         return dragarc_error_set(err, DRAGARC_EINVAL, "launch.azimuth", "must be between -360 and 360 degrees (got %g)", az);
     l->elevation = elev * DRAGARC_DEG;
     l->azimuth = az * DRAGARC_DEG;
+    const cJSON *spin = cJSON_GetObjectItemCaseSensitive(j, "spin");
+    if (spin)
+        TRY(read_spin(spin, l, err));
     return DRAGARC_OK;
 }
 

@@ -119,15 +119,19 @@ static int convertible(const ut_unit *from, const ut_unit *to)
     return linear;
 }
 
+/* The unit's definition is built on the radian (an angle, an angular speed), not on a pure number. */
+static int mentions_radian(const ut_unit *unit)
+{
+    char def[256];
+    int n = ut_format(unit, def, sizeof def, UT_ASCII | UT_DEFINITION);
+    return n > 0 && (size_t)n < sizeof def && strstr(def, "rad") != NULL;
+}
+
 /* An angle's unit is a multiple of the radian: its definition names "rad" (UDUNITS treats the radian as
  * dimensionless, so convertibility alone would let any pure number through). */
 static int is_angle_unit(const dragarc_units *u, const ut_unit *unit)
 {
-    char def[256];
-    if (!convertible(unit, u->radian))
-        return 0;
-    int n = ut_format(unit, def, sizeof def, UT_ASCII | UT_DEFINITION);
-    return n > 0 && (size_t)n < sizeof def && strstr(def, "rad") != NULL;
+    return convertible(unit, u->radian) && mentions_radian(unit);
 }
 
 /* Which quantity a unit measures, for the message when it is not the one expected. */
@@ -135,9 +139,13 @@ static const char *measures(const dragarc_units *u, const ut_unit *unit)
 {
     if (is_angle_unit(u, unit))
         return dragarc_quantity_name(DRAGARC_Q_ANGLE);
-    for (int q = 1; q < DRAGARC_Q_COUNT; q++)
-        if (q != DRAGARC_Q_ANGLE && q != DRAGARC_Q_TEMPERATURE_DIFFERENCE && convertible(unit, u->target[q]))
-            return dragarc_quantity_name(q);
+    for (int q = 1; q < DRAGARC_Q_COUNT; q++) {
+        if (q == DRAGARC_Q_ANGLE || q == DRAGARC_Q_TEMPERATURE_DIFFERENCE || !convertible(unit, u->target[q]))
+            continue;
+        if (q == DRAGARC_Q_ANGULAR_SPEED && !mentions_radian(unit))
+            return "a frequency";
+        return dragarc_quantity_name(q);
+    }
     ut_unit *one = ut_get_dimensionless_unit_one(u->sys);
     int dimensionless = one && convertible(unit, one);
     ut_free(one);
@@ -176,10 +184,13 @@ int dragarc_units_parse(dragarc_units *u, const char *text, dragarc_quantity q, 
     int ok = q == DRAGARC_Q_ANGLE ? is_angle_unit(u, unit) : convertible(unit, u->target[q]);
     if (q != DRAGARC_Q_ANGLE && ok && is_angle_unit(u, unit) && !is_angle_unit(u, u->target[q]))
         ok = 0; /* "30 deg" is no pure number, even though UDUNITS would convert it */
+    if (q == DRAGARC_Q_ANGULAR_SPEED && ok && !mentions_radian(unit))
+        ok = 0; /* "40 Hz" is a frequency: say "40 rps" or "2400 rpm" for a spin */
     if (!ok) {
         const char *what = measures(u, unit);
-        int rc = what ? dragarc_error_set(err, DRAGARC_EINVAL, "", "\"%s\" is %s, expected %s", text, what,
-                                          dragarc_quantity_name(q))
+        int hz = q == DRAGARC_Q_ANGULAR_SPEED && what && strcmp(what, "a frequency") == 0;
+        int rc = what ? dragarc_error_set(err, DRAGARC_EINVAL, "", "\"%s\" is %s, expected %s%s", text, what,
+                                          dragarc_quantity_name(q), hz ? " (say what turns: rpm, rps, rad/s)" : "")
                       : dragarc_error_set(err, DRAGARC_EINVAL, "", "\"%s\" is not %s (in %s)", text, dragarc_quantity_name(q),
                                           dragarc_quantity_unit(q));
         ut_free(unit);
@@ -223,6 +234,7 @@ static const dragarc_output_field FIELDS[] = {
     {"viscosity", DRAGARC_Q_VISCOSITY},    {"height", DRAGARC_Q_LENGTH},
     {"max_range", DRAGARC_Q_LENGTH},       {"miss", DRAGARC_Q_LENGTH},
     {"temperature_offset", DRAGARC_Q_TEMPERATURE_DIFFERENCE},
+    {"spin_rate", DRAGARC_Q_ANGULAR_SPEED},
 };
 
 /* Quantity keywords for --unit, in quantity order (NULL: not settable). */
@@ -243,6 +255,7 @@ static const char *const QUANTITY_KEYS[DRAGARC_Q_COUNT] = {
     [DRAGARC_Q_LINEAR_DRAG] = "linear_drag",
     [DRAGARC_Q_QUADRATIC_DRAG] = "quadratic_drag",
     [DRAGARC_Q_ENERGY] = "energy",
+    [DRAGARC_Q_ANGULAR_SPEED] = "angular_speed",
 };
 
 /* US customary units for each quantity (NIST SP 811 names; ft.lbf for energy, lb/ft3 for density). */
@@ -263,6 +276,7 @@ static const char *const US_UNITS[DRAGARC_Q_COUNT] = {
     [DRAGARC_Q_LINEAR_DRAG] = "lb/s",
     [DRAGARC_Q_QUADRATIC_DRAG] = "lb/ft",
     [DRAGARC_Q_ENERGY] = "ft.lbf",
+    [DRAGARC_Q_ANGULAR_SPEED] = "rpm",
 };
 
 const dragarc_output_field *dragarc_display_fields(size_t *count)
@@ -304,6 +318,8 @@ static int unit_for(dragarc_units *u, dragarc_quantity q, const char *symbol, dr
         return dragarc_error_set(err, DRAGARC_EINVAL, "", "unknown unit \"%s\"", symbol);
     int ok = q == DRAGARC_Q_ANGLE ? is_angle_unit(u, unit) : convertible(unit, u->target[q]);
     if (q != DRAGARC_Q_ANGLE && ok && is_angle_unit(u, unit) && !is_angle_unit(u, u->target[q]))
+        ok = 0;
+    if (q == DRAGARC_Q_ANGULAR_SPEED && ok && !mentions_radian(unit))
         ok = 0;
     if (!ok) {
         const char *what = measures(u, unit);

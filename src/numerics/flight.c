@@ -915,6 +915,7 @@ int dragarc_flight_run(const dragarc_scenario *s, double dt, dragarc_flight *out
     flight_ctx c;
     memset(&c, 0, sizeof c);
     dragarc_forces_init(&c.forces, &s->projectile, &s->atmosphere, &s->wind, s->gravity, s->ground_elevation);
+    dragarc_forces_spin(&c.forces, s->launch.spin_rate, s->launch.spin_tilt, s->launch.azimuth);
     c.ceiling = s->atmosphere.model == DRAGARC_ATMOSPHERE_ISA ? DRAGARC_ISA_Z_MAX - s->atmosphere.site_elevation : INFINITY;
 
     double y0[6];

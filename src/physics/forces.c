@@ -2,9 +2,13 @@
  * SPDX-License-Identifier: GPL-3.0-or-later
  *
  *   dx/dt = v
- *   dv/dt = -g z^ + (rho_f V g / m) z^ - (D / m) (v - w)
- * Newton's second law with Archimedes' buoyancy; D is the drag factor (drag.h) at |v - w|. No added
- * mass, Basset history force, lift or Earth rotation in this model (see docs/models.md).
+ *   dv/dt = -g z^ + (rho_f V g / m) z^ - (D / m) (v - w) + F_L / m
+ * Newton's second law with Archimedes' buoyancy; D is the drag factor (drag.h) at |v - w|. The lift of a
+ * spinning body, F_L = 1/2 rho C_L A |v_rel|^2 along (w x v_rel)/|w x v_rel|, is perpendicular to the
+ * relative velocity, on the side toward which the spin carries the air's boundary layer (the Magnus
+ * effect; e.g. Nathan, A. M. 2008, "The effect of spin on the flight of a baseball", Am. J. Phys.
+ * 76:119, eq. 1, where the same form defines C_L). No added mass, Basset history force or Earth
+ * rotation in this model (see docs/models.md).
  */
 #include <math.h>
 
@@ -20,7 +24,23 @@ void dragarc_forces_init(dragarc_forces *f, const dragarc_projectile *projectile
     f->ground_elevation = ground_elevation;
     dragarc_wind_toward(wind->from, &f->wind_toward[0], &f->wind_toward[1]);
     f->inv_mass = 1.0 / projectile->mass;
+    f->spin_axis[0] = f->spin_axis[1] = f->spin_axis[2] = 0.0;
     f->prepared = 1;
+}
+
+void dragarc_forces_spin(dragarc_forces *f, double rate, double tilt, double azimuth)
+{
+    if (!(rate > 0.0)) {
+        f->spin_axis[0] = f->spin_axis[1] = f->spin_axis[2] = 0.0;
+        return;
+    }
+    /* r: horizontal, to the right of the launch direction d = (sin az, cos az, 0); r x d = z^, so spin
+     * about r with the body moving along d lifts it. Tilting by t: w^ = cos t r - sin t z^, whose lift
+     * (w^ x d) = cos t z^ + sin t r leans to the right for t > 0. */
+    double r[3] = {cos(azimuth), -sin(azimuth), 0.0};
+    f->spin_axis[0] = cos(tilt) * r[0];
+    f->spin_axis[1] = cos(tilt) * r[1];
+    f->spin_axis[2] = -sin(tilt);
 }
 
 int dragarc_forces_eval(const dragarc_forces *f, const double y[6], double dydt[6], dragarc_flow *flow,
@@ -45,6 +65,17 @@ int dragarc_forces_eval(const dragarc_forces *f, const double y[6], double dydt[
     dydt[3] = -dm * rel[0];
     dydt[4] = -dm * rel[1];
     dydt[5] = -f->gravity + buoy - dm * rel[2];
+    const double *a = f->spin_axis;
+    if (p->lift.model == DRAGARC_LIFT_CONSTANT && (a[0] != 0.0 || a[1] != 0.0 || a[2] != 0.0) && speed > 0.0) {
+        double c[3] = {a[1] * rel[2] - a[2] * rel[1], a[2] * rel[0] - a[0] * rel[2], a[0] * rel[1] - a[1] * rel[0]};
+        double cn = sqrt(c[0] * c[0] + c[1] * c[1] + c[2] * c[2]);
+        if (cn > 1e-12 * speed) { /* no lift when the spin axis lies along the relative velocity */
+            double k = 0.5 * air.density * p->lift.cl * p->area * speed * speed * inv_m / cn;
+            dydt[3] += k * c[0];
+            dydt[4] += k * c[1];
+            dydt[5] += k * c[2];
+        }
+    }
     if (flow) {
         flow->air = air;
         flow->wind[0] = w[0], flow->wind[1] = w[1], flow->wind[2] = w[2];

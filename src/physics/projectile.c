@@ -17,6 +17,10 @@ int dragarc_projectile_check(const dragarc_projectile *p, dragarc_error *err)
     if (!(p->volume >= 0.0 && isfinite(p->volume)))
         return dragarc_error_set(err, DRAGARC_EINVAL, "volume", "must be zero or positive, in m^3 (got %g)",
                                  p->volume);
+    if (p->lift.model == DRAGARC_LIFT_CONSTANT && !(p->lift.cl >= 0.0 && p->lift.cl <= 1.0))
+        return dragarc_error_set(err, DRAGARC_EINVAL, "lift.cl", "must be between 0 and 1 (got %g)", p->lift.cl);
+    if (p->lift.model != DRAGARC_LIFT_NONE && p->lift.model != DRAGARC_LIFT_CONSTANT)
+        return dragarc_error_set(err, DRAGARC_EINVAL, "lift.model", "unknown lift model %d", (int)p->lift.model);
     int rc = dragarc_drag_check(&p->drag, err);
     if (rc != DRAGARC_OK)
         dragarc_error_prefix(err, "drag");

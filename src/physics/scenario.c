@@ -38,6 +38,11 @@ int dragarc_scenario_check(const dragarc_scenario *s, dragarc_error *err)
         return dragarc_error_set(err, DRAGARC_EINVAL, "launch.azimuth", "must be a finite angle in degrees");
     if (!isfinite(l->height))
         return dragarc_error_set(err, DRAGARC_EINVAL, "launch.height", "must be a finite height in m");
+    if (!(l->spin_rate >= 0.0 && l->spin_rate <= 2.0 * DRAGARC_PI * 1000.0)) /* 60000 rpm */
+        return dragarc_error_set(err, DRAGARC_EINVAL, "launch.spin.rate", "must be between 0 and 60000 rpm (got %g)",
+                                 l->spin_rate * 60.0 / (2.0 * DRAGARC_PI));
+    if (!(fabs(l->spin_tilt) <= DRAGARC_PI + 1e-12))
+        return dragarc_error_set(err, DRAGARC_EINVAL, "launch.spin.tilt", "must be between -180 and 180 degrees");
     if (!isfinite(s->ground_elevation))
         return dragarc_error_set(err, DRAGARC_EINVAL, "ground.elevation", "must be a finite height in m");
     /* A launch below the impact plane (a throw up onto a terrace or roof) must climb through it. */

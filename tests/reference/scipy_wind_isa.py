@@ -29,6 +29,11 @@
 #            logarithmic wind profile of the neutral surface layer, u(z) = (u*/k) ln(z/z0), eq. 9.7.5c
 #            (from memory); the ratio form u(h) = u_ref ln(h/z0)/ln(h_ref/z0) follows by dividing
 #            the profile at h by the profile at h_ref, so u* and k cancel.
+#   [Nathan08] A. M. Nathan, "The effect of spin on the flight of a baseball", Am. J. Phys. 76 (2008)
+#            119, eq. 1: the lift F_L = 1/2 rho C_L A v^2 along w x v / |w x v| (the definition of the lift
+#            coefficient used here; equation number from memory). The spin axis of dragarc's launch.spin
+#            is written again here from docs/models.md: horizontal, to the right of the launch direction,
+#            tilted by t: w^ = cos t (cos az, -sin az, 0) - sin t z^.
 #   [Newton] Drag D = 1/2 rho Cd A |v - w|^2 along -(v - w) (definition of the drag coefficient) and
 #            buoyancy rho V g upward (Archimedes); see e.g. F. M. White, "Fluid Mechanics", 7th ed.,
 #            McGraw-Hill, 2011, chapter 7 (definition of the drag coefficient; chapter from memory).
@@ -170,6 +175,12 @@ def reference_flight(sc, rtol, atol, vacuum=False):
     dT = atm["temperature_offset"]
     ground = sc["ground"]["elevation"]
     u_ref, h_ref, z0, wfrom = wind["speed"], wind["ref_height"], wind["roughness"], wind["from"]
+    lift = pr.get("lift")
+    spin = la.get("spin")
+    axis = None
+    if lift and spin and spin["rate"] > 0:
+        tilt, azr = math.radians(spin.get("tilt", 0.0)), math.radians(la["azimuth"])
+        axis = np.array([math.cos(tilt) * math.cos(azr), -math.cos(tilt) * math.sin(azr), -math.sin(tilt)])
 
     def rhs(t, s):
         vel = s[3:6]
@@ -181,6 +192,9 @@ def reference_flight(sc, rtol, atol, vacuum=False):
             k = 0.5 * rho * cd * area * math.sqrt(rel @ rel) / m
             acc = acc - k * rel
             acc[2] += rho * vol * g / m
+            if axis is not None:  # lift [Nathan08]
+                c = np.cross(axis, rel)
+                acc = acc + 0.5 * rho * lift["cl"] * area * (rel @ rel) / m * c / math.sqrt(c @ c)
         return np.concatenate((vel, acc))
 
     def hit_ground(t, s):
@@ -258,7 +272,26 @@ SCENARIO_FRAGMENT = {
     "solver": {"rtol": 1e-10, "atol": 1e-9, "max_time": 2000},
 }
 
-SCENARIOS = [("ball", SCENARIO_BALL), ("fragment", SCENARIO_FRAGMENT)]
+# 3. A small, dense ball struck hard with backspin tilted 20 degrees to the right, constant C_L, at a
+#    500 m site in a quartering log-law wind: the lift carries it far, bends it right and the wind
+#    pushes it further (values invented).
+SCENARIO_SPIN = {
+    "name": "reference: ball with tilted backspin and constant lift in log-law wind",
+    "projectile": {"mass": 0.046, "diameter": 0.043, "drag": {"model": "constant", "cd": 0.27},
+                   "lift": {"model": "constant", "cl": 0.17}},
+    "launch": {"speed": 68.0, "elevation": 11.0, "azimuth": 20.0, "height": 0.0,
+               "spin": {"rate": 2900.0, "tilt": 20.0}},
+    "environment": {
+        "gravity": 9.80665,
+        "atmosphere": {"model": "isa", "site_elevation": 500.0, "temperature_offset": 4.0},
+        "wind": {"model": "log", "speed": 5.0, "from": 300.0, "ref_height": 10.0,
+                 "roughness": 0.03},
+    },
+    "ground": {"elevation": 0.0},
+    "solver": {"rtol": 1e-10, "atol": 1e-9, "max_time": 2000},
+}
+
+SCENARIOS = [("ball", SCENARIO_BALL), ("fragment", SCENARIO_FRAGMENT), ("spinning ball", SCENARIO_SPIN)]
 
 KEYS = ["range", "downrange", "crossrange", "time_of_flight", "apex_height", "impact_speed",
         "impact_angle"]

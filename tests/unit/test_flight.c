@@ -105,6 +105,60 @@ TEST(samples_between_steps_agree_with_steps_taken_to_them)
     dragarc_flight_clear(&f[1]);
 }
 
+/* A ball with constant lift (0.0459 kg, 42.7 mm, Cd 0.25, CL 0.15; invented) driven at 67 m/s, 12 deg. */
+static void spinning_ball(dragarc_scenario *s, double rpm, double tilt_deg, double azimuth_deg)
+{
+    make_scenario(s, 1.2, 0.0459, 0.0427, 0.0, 67.0, 12.0, 9.80665, 1e-10);
+    s->projectile.drag.model = DRAGARC_DRAG_CONSTANT;
+    s->projectile.drag.cd = 0.25;
+    s->projectile.lift.model = DRAGARC_LIFT_CONSTANT;
+    s->projectile.lift.cl = 0.15;
+    s->launch.azimuth = azimuth_deg * DEG;
+    s->launch.spin_rate = rpm * 2.0 * PI / 60.0;
+    s->launch.spin_tilt = tilt_deg * DEG;
+}
+
+TEST(spin_lift_behaves_as_its_geometry_says)
+{
+    /* Properties of the lift law itself (F_L perpendicular to v_rel, along w x v_rel): no spin is the flight
+     * core to the last digit; a lift model without spin does nothing; tilts of +t and -t mirror each
+     * other about the launch line; backspin lengthens the flight and raises the apex, topspin (tilt 180)
+     * shortens it; the crossrange follows the sign of the tilt at any azimuth. */
+    dragarc_scenario s;
+    dragarc_flight none, zero, back, top, right, left, right_east;
+    spinning_ball(&s, 0.0, 0.0, 0.0);
+    s.projectile.lift.model = DRAGARC_LIFT_NONE;
+    CHECK(dragarc_flight_run(&s, 0.0, &none, NULL) == DRAGARC_OK);
+    spinning_ball(&s, 0.0, 0.0, 0.0);
+    CHECK(dragarc_flight_run(&s, 0.0, &zero, NULL) == DRAGARC_OK);
+    CHECK(zero.range == none.range && zero.time_of_flight == none.time_of_flight &&
+          zero.apex_height == none.apex_height && zero.impact_speed == none.impact_speed);
+    spinning_ball(&s, 2700.0, 0.0, 0.0);
+    CHECK(dragarc_flight_run(&s, 0.0, &back, NULL) == DRAGARC_OK);
+    spinning_ball(&s, 2700.0, 180.0, 0.0);
+    CHECK(dragarc_flight_run(&s, 0.0, &top, NULL) == DRAGARC_OK);
+    spinning_ball(&s, 2700.0, 15.0, 0.0);
+    CHECK(dragarc_flight_run(&s, 0.0, &right, NULL) == DRAGARC_OK);
+    spinning_ball(&s, 2700.0, -15.0, 0.0);
+    CHECK(dragarc_flight_run(&s, 0.0, &left, NULL) == DRAGARC_OK);
+    spinning_ball(&s, 2700.0, 15.0, 90.0);
+    CHECK(dragarc_flight_run(&s, 0.0, &right_east, NULL) == DRAGARC_OK);
+    printf("  range: no spin %.3f m, backspin %.3f m, topspin %.3f m; tilt +15 %.3f m (%.3f m right), -15 %.3f m "
+           "(%.3f m)\n", none.range, back.range, top.range, right.range, right.crossrange, left.range, left.crossrange);
+    CHECK(back.range > none.range && back.apex_height > none.apex_height && back.time_of_flight > none.time_of_flight);
+    CHECK(top.range < none.range && top.apex_height < none.apex_height);
+    CHECK_ABS(back.crossrange, 0.0, 1e-9);
+    CHECK(right.crossrange > 1.0 && left.crossrange < -1.0);
+    CHECK_ABS(right.range, left.range, 1e-9 * right.range);
+    CHECK_ABS(right.crossrange, -left.crossrange, 1e-9 * right.range);
+    CHECK_ABS(right.apex_height, left.apex_height, 1e-9 * right.apex_height);
+    CHECK_ABS(right_east.crossrange, right.crossrange, 1e-9 * right.range); /* the same shot, turned to the east */
+    CHECK_ABS(right_east.downrange, right.downrange, 1e-9 * right.range);
+    dragarc_flight *all[] = {&none, &zero, &back, &top, &right, &left, &right_east};
+    for (size_t i = 0; i < sizeof all / sizeof all[0]; i++)
+        dragarc_flight_clear(all[i]);
+}
+
 TEST(downward_launch_has_its_apex_at_the_launch_point)
 {
     dragarc_scenario s;
@@ -286,6 +340,7 @@ int main(void)
     RUN(the_four_integrators_agree_on_a_grid_of_flights);
     RUN(samples_are_evenly_spaced_and_end_on_the_ground);
     RUN(samples_between_steps_agree_with_steps_taken_to_them);
+    RUN(spin_lift_behaves_as_its_geometry_says);
     RUN(downward_launch_has_its_apex_at_the_launch_point);
     RUN(landing_on_raised_ground_counts_only_the_descending_crossing);
     RUN(wind_from_the_left_pushes_the_impact_to_the_right);
