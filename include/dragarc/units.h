@@ -74,6 +74,10 @@ const dragarc_unit_out *dragarc_display_unit(const dragarc_display *d, const cha
 /* A value in SI units (degrees for angles) in unit u. */
 double dragarc_display_value(const dragarc_unit_out *u, double si);
 
+/* The same to 15 significant digits, for values the user gave in that unit: "100 mph" went to 44.704 m/s
+ * and would come back as 100.00000000000001; shown this way it is the 100 that was asked for. */
+double dragarc_display_value_as_given(const dragarc_unit_out *u, double si);
+
 /* The output fields that may be given a unit of their own, with their quantities; *count gets how many. */
 typedef struct dragarc_output_field {
     const char *name;

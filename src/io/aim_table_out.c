@@ -5,7 +5,6 @@
 #include <errno.h>
 #include <math.h>
 #include <stdio.h>
-#include <stdlib.h>
 #include <string.h>
 
 #include "core/constants.h"
@@ -48,15 +47,8 @@ static const char *symbol(const dragarc_unit_out *u, const char *si)
     return strcmp(sym, "degree") == 0 ? "deg" : sym;
 }
 
-/* A target range in the output unit, to 15 significant digits: "10 yd" asked is 10 again, not 10.000000000000002. */
-static double range_shown(const dragarc_unit_out *u, double v)
-{
-    if (!u || (u->scale == 1.0 && u->offset == 0.0))
-        return v;
-    char buf[40];
-    snprintf(buf, sizeof buf, "%.15g", dragarc_display_value(u, v));
-    return strtod(buf, NULL) + 0.0;
-}
+/* A target range in the output unit as the user gave it ("10 yd" is 10 again, not 10.000000000000002). */
+static double range_shown(const dragarc_unit_out *u, double v) { return u ? dragarc_display_value_as_given(u, v) : v; }
 
 static void csv_name(FILE *fp, const char *prefix, const char *name, const dragarc_unit_out *u, const char *si_suffix)
 {

@@ -130,14 +130,7 @@ double dragarc_sweep_axis_shown(const dragarc_display *d, const dragarc_sweep_ax
 {
     if (!d || a->param->quantity == DRAGARC_Q_NUMBER)
         return v;
-    const dragarc_unit_out *u = dragarc_display_unit(d, NULL, a->param->quantity);
-    if (u->scale == 1.0 && u->offset == 0.0)
-        return v;
-    /* A value given as "100 mph" went to 44.704 m/s and comes back as 100.00000000000001: shown to 15
-     * significant digits it is the 100 that was asked for (the flights used the exact SI value). */
-    char buf[40];
-    snprintf(buf, sizeof buf, "%.15g", dragarc_display_value(u, v));
-    return strtod(buf, NULL) + 0.0;
+    return dragarc_display_value_as_given(dragarc_display_unit(d, NULL, a->param->quantity), v);
 }
 
 const char *dragarc_sweep_axis_unit(const dragarc_display *d, const dragarc_sweep_axis *a)

@@ -134,6 +134,26 @@ static int is_angle_unit(const dragarc_units *u, const ut_unit *unit)
     return convertible(unit, u->radian) && mentions_radian(unit);
 }
 
+/* A unit of quantity q itself: the same dimension, an angle built on the radian ("30 deg" is no pure number,
+ * even though UDUNITS would convert it), and an angular speed that says what turns ("40 Hz" is a frequency). */
+static int measures_quantity(const dragarc_units *u, const ut_unit *unit, dragarc_quantity q)
+{
+    if (q == DRAGARC_Q_ANGLE)
+        return is_angle_unit(u, unit);
+    if (!convertible(unit, u->target[q]))
+        return 0;
+    if (is_angle_unit(u, unit) && !is_angle_unit(u, u->target[q]))
+        return 0;
+    return q != DRAGARC_Q_ANGULAR_SPEED || mentions_radian(unit);
+}
+
+/* The slope of a linear converter, taken over a wide interval so that an offset (the hundreds of kelvin
+ * between degF or degC and K) cancels to round-off of the slope itself. */
+static double converter_slope(const cv_converter *cv)
+{
+    return (cv_convert_double(cv, 1e6) - cv_convert_double(cv, -1e6)) / 2e6;
+}
+
 /* Which quantity a unit measures, for the message when it is not the one expected. */
 static const char *measures(const dragarc_units *u, const ut_unit *unit)
 {
@@ -181,12 +201,7 @@ int dragarc_units_parse(dragarc_units *u, const char *text, dragarc_quantity q, 
     ut_unit *unit = ut_parse(u->sys, unit_text, UT_UTF8);
     if (!unit)
         return dragarc_error_set(err, DRAGARC_EINVAL, "", "\"%s\": unknown unit \"%s\"", text, unit_text);
-    int ok = q == DRAGARC_Q_ANGLE ? is_angle_unit(u, unit) : convertible(unit, u->target[q]);
-    if (q != DRAGARC_Q_ANGLE && ok && is_angle_unit(u, unit) && !is_angle_unit(u, u->target[q]))
-        ok = 0; /* "30 deg" is no pure number, even though UDUNITS would convert it */
-    if (q == DRAGARC_Q_ANGULAR_SPEED && ok && !mentions_radian(unit))
-        ok = 0; /* "40 Hz" is a frequency: say "40 rps" or "2400 rpm" for a spin */
-    if (!ok) {
+    if (!measures_quantity(u, unit, q)) {
         const char *what = measures(u, unit);
         int hz = q == DRAGARC_Q_ANGULAR_SPEED && what && strcmp(what, "a frequency") == 0;
         int rc = what ? dragarc_error_set(err, DRAGARC_EINVAL, "", "\"%s\" is %s, expected %s%s", text, what,
@@ -203,10 +218,7 @@ int dragarc_units_parse(dragarc_units *u, const char *text, dragarc_quantity q, 
     double si = cv_convert_double(cv, v);
     double zero = cv_convert_double(cv, 0.0);
     if (q == DRAGARC_Q_TEMPERATURE_DIFFERENCE && zero != 0.0) {
-        /* A difference on a scale with an offset (degC, degF): only the slope counts. Taken over a wide
-         * interval, so that the offset (hundreds of kelvin) cancels to round-off of the slope itself. */
-        double slope = (cv_convert_double(cv, 1e6) - cv_convert_double(cv, -1e6)) / 2e6;
-        si = slope * v;
+        si = converter_slope(cv) * v; /* a difference on a scale with an offset: only the slope counts */
     }
     cv_free(cv);
     if (!isfinite(si))
@@ -316,12 +328,7 @@ static int unit_for(dragarc_units *u, dragarc_quantity q, const char *symbol, dr
     ut_unit *unit = ut_parse(u->sys, symbol, UT_UTF8);
     if (!unit)
         return dragarc_error_set(err, DRAGARC_EINVAL, "", "unknown unit \"%s\"", symbol);
-    int ok = q == DRAGARC_Q_ANGLE ? is_angle_unit(u, unit) : convertible(unit, u->target[q]);
-    if (q != DRAGARC_Q_ANGLE && ok && is_angle_unit(u, unit) && !is_angle_unit(u, u->target[q]))
-        ok = 0;
-    if (q == DRAGARC_Q_ANGULAR_SPEED && ok && !mentions_radian(unit))
-        ok = 0;
-    if (!ok) {
+    if (!measures_quantity(u, unit, q)) {
         const char *what = measures(u, unit);
         ut_free(unit);
         return what ? dragarc_error_set(err, DRAGARC_EINVAL, "", "\"%s\" is a unit of %s, not of %s", symbol, bare(what),
@@ -338,8 +345,8 @@ static int unit_for(dragarc_units *u, dragarc_quantity q, const char *symbol, dr
     o->offset = cv_convert_double(cv, 0.0);
     if (o->offset == 0.0)
         o->scale = cv_convert_double(cv, 1.0);
-    else /* the slope, taken wide so that the offset cancels to round-off (see dragarc_units_parse) */
-        o->scale = (cv_convert_double(cv, 1e6) - cv_convert_double(cv, -1e6)) / 2e6;
+    else
+        o->scale = converter_slope(cv);
     if (q == DRAGARC_Q_TEMPERATURE_DIFFERENCE)
         o->offset = 0.0; /* a difference has no zero point */
     cv_free(cv);
@@ -402,4 +409,13 @@ const dragarc_unit_out *dragarc_display_unit(const dragarc_display *d, const cha
 double dragarc_display_value(const dragarc_unit_out *u, double si)
 {
     return u->scale * si + u->offset;
+}
+
+double dragarc_display_value_as_given(const dragarc_unit_out *u, double si)
+{
+    if (u->scale == 1.0 && u->offset == 0.0)
+        return si;
+    char buf[40];
+    snprintf(buf, sizeof buf, "%.15g", dragarc_display_value(u, si));
+    return strtod(buf, NULL) + 0.0;
 }

@@ -421,29 +421,36 @@ done:
     return rc;
 }
 
+/* The equations of motion for the explicit paths: 0, or -1 with the first failure recorded in c. Trial states
+ * of a step may poke above the top of the atmosphere model; they see the air at the top (continuous, and all
+ * but vacuum there), while the events stop a flight that really climbs past it. A NaN or an infinity in any
+ * component carries into the sum that is tested. */
+static int eval_checked(flight_ctx *c, const double y[6], double dydt[6], dragarc_flow *flow)
+{
+    double ys[6] = {y[0], y[1], y[2] < c->ceiling ? y[2] : c->ceiling, y[3], y[4], y[5]};
+    dragarc_error e;
+    if (dragarc_forces_eval(&c->forces, ys, dydt, flow, &e) != DRAGARC_OK) {
+        if (!c->rhs_failed)
+            c->rhs_err = e;
+        c->rhs_failed = 1;
+        return -1;
+    }
+    if (!isfinite(dydt[3] + dydt[4] + dydt[5] + y[0] + y[1] + y[2] + y[3] + y[4] + y[5])) {
+        if (!c->rhs_failed)
+            dragarc_error_set(&c->rhs_err, DRAGARC_ESOLVER, "", "the equations of motion gave a non-finite value");
+        c->rhs_failed = 1;
+        return -1;
+    }
+    return 0;
+}
+
 /* ---- the explicit path: GSL odeiv2 rk8pd with events located inside the step ---------------------- */
 
 /* Right-hand side in GSL's form; the same clamp at the top of the atmosphere as for CVODE. */
 static int rk_rhs(double t, const double y[], double dydt[], void *user)
 {
     (void)t;
-    flight_ctx *c = user;
-    double ys[6] = {y[0], y[1], fmin(y[2], c->ceiling), y[3], y[4], y[5]};
-    dragarc_error e;
-    if (dragarc_forces_eval(&c->forces, ys, dydt, NULL, &e) != DRAGARC_OK) {
-        if (!c->rhs_failed)
-            c->rhs_err = e;
-        c->rhs_failed = 1;
-        return GSL_EBADFUNC;
-    }
-    for (int i = 0; i < 6; i++)
-        if (!isfinite(dydt[i])) {
-            if (!c->rhs_failed)
-                dragarc_error_set(&c->rhs_err, DRAGARC_ESOLVER, "", "the equations of motion gave a non-finite value");
-            c->rhs_failed = 1;
-            return GSL_EBADFUNC;
-        }
-    return GSL_SUCCESS;
+    return eval_checked(user, y, dydt, NULL) == 0 ? GSL_SUCCESS : GSL_EBADFUNC;
 }
 
 /* The state at t0 + tau from (t0, y0) by one rk8pd step of size tau (tau no longer than the step the error
@@ -653,23 +660,7 @@ static int dop_rhs(double t, const double y[6], double dydt[6], void *user)
 {
     (void)t;
     flight_ctx *c = user;
-    double ys[6] = {y[0], y[1], y[2] < c->ceiling ? y[2] : c->ceiling, y[3], y[4], y[5]};
-    dragarc_error e;
-    dragarc_flow *flow = c->stepper && c->stepper->at_step_end ? &c->flow : NULL;
-    if (dragarc_forces_eval(&c->forces, ys, dydt, flow, &e) != DRAGARC_OK) {
-        if (!c->rhs_failed)
-            c->rhs_err = e;
-        c->rhs_failed = 1;
-        return -1;
-    }
-    /* A NaN or an infinity in any component carries into the sum. */
-    if (!isfinite(dydt[3] + dydt[4] + dydt[5] + y[0] + y[1] + y[2] + y[3] + y[4] + y[5])) {
-        if (!c->rhs_failed)
-            dragarc_error_set(&c->rhs_err, DRAGARC_ESOLVER, "", "the equations of motion gave a non-finite value");
-        c->rhs_failed = 1;
-        return -1;
-    }
-    return 0;
+    return eval_checked(c, y, dydt, c->stepper && c->stepper->at_step_end ? &c->flow : NULL);
 }
 
 /* Gather the heights (above the datum) where the atmosphere's or the wind's slope jumps. */
