@@ -14,6 +14,9 @@
 extern "C" {
 #endif
 
+/* The most cautions any result carries. */
+#define DRAGARC_CAUTIONS_MAX 10
+
 /* Point out[0..max-1] at static caution strings for this flight (model limits first, then what the
  * flight's notes call for); returns how many were set. The strings are static: never free them. */
 size_t dragarc_cautions_flight(const dragarc_scenario *s, const dragarc_flight *f, const char **out, size_t max);

@@ -26,6 +26,10 @@ typedef struct dragarc_flight_point {
     double speed;       /* m/s, ground-relative */
     double mach;        /* air-relative speed / speed of sound */
     double reynolds;    /* rho |v_rel| d / mu */
+    double spin;        /* rad/s, spin rate */
+    double spin_factor; /* S = r w_perp / |v_rel| (0 without spin) */
+    double lift_coefficient; /* C_L (0 without lift) */
+    double drag_coefficient; /* C_D = 2 D / (rho A |v_rel|); NaN at rest or in vacuum */
 } dragarc_flight_point;
 
 /* Observations about a flight that the cautions speak of (bit flags). */
@@ -34,7 +38,8 @@ enum {
     DRAGARC_NOTE_TRANSONIC = 1u << 1,     /* Mach > 0.6 with a drag law that ignores Mach number */
     DRAGARC_NOTE_DENSE_FLUID = 1u << 2,   /* fluid density > 1 % of the body's: added mass ignored */
     DRAGARC_NOTE_DRAG_CRISIS = 1u << 3,   /* sphere model crossed Re 2e5..1e6: Cd drops sharply */
-    DRAGARC_NOTE_HIGH_ENERGY = 1u << 4    /* impact energy >= 15 J */
+    DRAGARC_NOTE_HIGH_ENERGY = 1u << 4,   /* impact energy >= 15 J */
+    DRAGARC_NOTE_BALL = 1u << 5           /* a spinning ball (launch.spin): a sports flight near people */
 };
 
 typedef struct dragarc_flight {
@@ -51,7 +56,7 @@ typedef struct dragarc_flight {
     double launch_energy;  /* J */
     double terminal_speed; /* m/s in still air at the launch height; NaN when there is none */
     double vacuum_range;   /* m, same launch without air to the same ground; NaN if it never lands */
-    double impact[6];      /* state at impact */
+    double impact[7];      /* state at impact: position (m), velocity (m/s), spin rate (rad/s) */
     double max_mach;
     double max_reynolds;
     double relaxation_time; /* s, terminal_speed / g: how fast drag acts; NaN without drag */

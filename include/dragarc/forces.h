@@ -2,10 +2,12 @@
  *
  * Copyright (C) 2026 the dragarc developers. SPDX-License-Identifier: GPL-3.0-or-later
  *
- * State y = (x, y, z, vx, vy, vz), local frame x east, y north, z up (m, m/s).
- *   m dv/dt = -m g z^ + rho_f V g z^ - D(|v_rel|) v_rel + F_L,   v_rel = v - w(z - z_ground)
- * gravity, buoyancy (Archimedes), drag (D is the drag factor of drag.h) and, for a spinning body with a
- * lift model, the lift F_L = 1/2 rho C_L A |v_rel|^2 (w^ x v_rel^) / |w^ x v_rel^| (Magnus).
+ * State y = (x, y, z, vx, vy, vz, w), local frame x east, y north, z up (m, m/s), and the spin rate w (rad/s)
+ * about an axis w^ fixed in space:
+ *   m dv/dt = -m g z^ + rho_f V g z^ - D(|v_rel|) v_rel + F_L,   v_rel = v - u(z - z_ground)
+ *   dw/dt   = -w / tau  (launch.spin.decay_time)  or  -k w |v_rel| / r  (projectile.spin_decay_coefficient)
+ * gravity, buoyancy (Archimedes), drag (D is the drag factor of drag.h, u the wind) and, for a spinning body
+ * with a lift model, the lift F_L = 1/2 rho C_L(S) A |v_rel|^2 (w^ x v_rel) / |w^ x v_rel| (Magnus; lift.h).
  */
 #ifndef DRAGARC_FORCES_H
 #define DRAGARC_FORCES_H
@@ -17,6 +19,9 @@
 #ifdef __cplusplus
 extern "C" {
 #endif
+
+/* Values in a state: position (3), velocity (3), spin rate. */
+#define DRAGARC_STATE_DIM 7
 
 /* What the right-hand side needs; borrows every pointer. Set it up with dragarc_forces_init, or set the
  * fields and leave `prepared` zero (then what init works out once is worked out on every call). */
@@ -30,6 +35,7 @@ typedef struct dragarc_forces {
     double wind_toward[2];   /* unit vector (east, north) the wind blows toward */
     double inv_mass;         /* 1/kg */
     double spin_axis[3];     /* unit vector of the spin (east, north, up); zero when there is no spin */
+    double spin_decay_rate;  /* 1/s: 1 / launch.spin.decay_time, or 0 */
 } dragarc_forces;
 
 /* What the right-hand side saw at one state, for diagnostics and output. */
@@ -40,21 +46,29 @@ typedef struct dragarc_flow {
     double mach;
     double reynolds;
     double drag_factor; /* kg/s */
+    double drag_coefficient; /* C_D = 2 D / (rho A |v_rel|); NaN where undefined (no air, at rest) */
+    double spin_factor;      /* S = r w_perp / |v_rel|; 0 without spin */
+    double lift_coefficient; /* C_L(S); 0 without spin or lift model */
 } dragarc_flow;
 
 /* Borrow the parts and work out once what every evaluation would repeat; call again after changing any. */
 void dragarc_forces_init(dragarc_forces *f, const dragarc_projectile *projectile, const dragarc_atmosphere *atmosphere,
                          const dragarc_wind *wind, double gravity, double ground_elevation);
 
-/* The spin of a launch with rate (rad/s) and tilt (rad) at azimuth (rad): with no tilt the axis is
+/* The spin axis of a launch with tilt (rad) at azimuth (rad), into axis[3]: with no tilt the axis is
  * horizontal, to the right of the launch direction (backspin: the lift points up); a positive tilt turns it
- * so that the lift leans to the right. A rate of 0 (or no lift model) leaves the body without lift. */
-void dragarc_forces_spin(dragarc_forces *f, double rate, double tilt, double azimuth);
+ * so that the lift leans to the right. */
+void dragarc_spin_axis(double tilt, double azimuth, double axis[3]);
 
-/* dy/dt at state y (6 values) into dydt (6 values); fills *flow if not NULL. Returns DRAGARC_OK, or
- * the atmosphere's error (e.g. DRAGARC_ERANGE above 86 km) with err filled. Pure: no I/O, no state. */
-int dragarc_forces_eval(const dragarc_forces *f, const double y[6], double dydt[6], dragarc_flow *flow,
-                        dragarc_error *err);
+/* Spin about the unit vector axis (east, north, up; NULL or zero: no spin), decaying exponentially with
+ * e-folding time decay_time (s; 0: not so). The rate itself is the state's seventh value. */
+void dragarc_forces_spin(dragarc_forces *f, const double axis[3], double decay_time);
+
+/* dy/dt at state y (DRAGARC_STATE_DIM values) into dydt (as many); fills *flow if not NULL. Returns
+ * DRAGARC_OK, or the atmosphere's error (e.g. DRAGARC_ERANGE above 86 km) with err filled. Pure: no I/O, no
+ * state. Without spin, y[6] is ignored and dydt[6] = 0. */
+int dragarc_forces_eval(const dragarc_forces *f, const double y[DRAGARC_STATE_DIM], double dydt[DRAGARC_STATE_DIM],
+                        dragarc_flow *flow, dragarc_error *err);
 
 /* Weight less buoyancy at height z (N; positive when the body sinks). */
 int dragarc_forces_net_weight(const dragarc_forces *f, double z, double *out, dragarc_error *err);

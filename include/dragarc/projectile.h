@@ -7,21 +7,11 @@
 
 #include "dragarc/drag.h"
 #include "dragarc/dragarc.h"
+#include "dragarc/lift.h"
 
 #ifdef __cplusplus
 extern "C" {
 #endif
-
-/* Lift of a spinning body (docs/models.md): F_L = 1/2 rho C_L A |v_rel|^2 along (w x v_rel)/|w x v_rel|. */
-typedef enum dragarc_lift_model {
-    DRAGARC_LIFT_NONE = 0,
-    DRAGARC_LIFT_CONSTANT /* C_L = cl whenever the spin rate is not zero */
-} dragarc_lift_model;
-
-typedef struct dragarc_lift {
-    dragarc_lift_model model;
-    double cl; /* constant model, 0 to 1 */
-} dragarc_lift;
 
 typedef struct dragarc_projectile {
     char name[64];      /* profile name or "" */
@@ -31,13 +21,15 @@ typedef struct dragarc_projectile {
     double volume;      /* m^3, for buoyancy (default pi d^3 / 6) */
     double density;     /* kg/m^3 when the mass was given as density x volume, else 0 */
     dragarc_drag drag;  /* owned (tables) */
-    dragarc_lift lift;  /* none by default */
+    dragarc_lift lift;  /* none by default; owned (tables) */
+    double spin_decay_coefficient; /* k in dw/dt = -k w |v_rel| / r (Smits & Smith 1994); 0: none */
+    double inertia_factor;         /* a in I = a m r^2: 0.4 solid sphere, 2/3 thin shell; 0: not given */
 } dragarc_projectile;
 
-/* Check mass, diameter, area, volume and drag; err->field relative to the projectile object. */
+/* Check mass, diameter, area, volume, drag, lift and spin decay; err->field relative to the projectile object. */
 int dragarc_projectile_check(const dragarc_projectile *p, dragarc_error *err);
 
-/* Free what the projectile owns (its drag table). */
+/* Free what the projectile owns (its drag and lift tables). */
 void dragarc_projectile_clear(dragarc_projectile *p);
 
 /* Deep copy; dst is overwritten without being cleared. */

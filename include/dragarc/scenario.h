@@ -35,6 +35,9 @@ typedef struct dragarc_launch {
     double height;    /* m above the site datum */
     double spin_rate; /* rad/s, >= 0: 0 for no spin */
     double spin_tilt; /* rad, [-pi, pi]: 0 pure backspin, positive tilts the lift to the right */
+    int spin_axis_given;   /* 1: spin_axis holds the axis (a 3-D spin vector was given), tilt unused */
+    double spin_axis[3];   /* unit vector (east, north, up) when spin_axis_given */
+    double spin_decay_time; /* s, e-folding time of the spin; 0: no exponential decay */
 } dragarc_launch;
 
 typedef struct dragarc_solver_options {

@@ -16,6 +16,7 @@
 #endif
 
 #define DEG (180.0 / 3.14159265358979323846)
+#define RPM (60.0 / (2.0 * 3.14159265358979323846)) /* rpm per rad/s */
 
 int cli_report(const char *where, const dragarc_error *err)
 {
@@ -137,15 +138,27 @@ void cli_print_flight(FILE *fp, const char *label, const dragarc_scenario *s, co
             SHOW(NULL, DRAGARC_Q_ANGLE, s->launch.azimuth * DEG), angle,
             SHOW("launch_height", DRAGARC_Q_LENGTH, s->launch.height), UNIT("launch_height", DRAGARC_Q_LENGTH));
     if (s->launch.spin_rate > 0.0) {
-        char lift[64];
-        if (p->lift.model == DRAGARC_LIFT_CONSTANT)
-            snprintf(lift, sizeof lift, "lift constant CL %.4g", p->lift.cl);
+        char lift[96], how[64] = "", decay[64] = "no decay";
+        switch (p->lift.model) {
+        case DRAGARC_LIFT_CONSTANT: snprintf(lift, sizeof lift, "lift constant CL %.4g", p->lift.cl); break;
+        case DRAGARC_LIFT_SAWICKI2003: snprintf(lift, sizeof lift, "lift CL(S) of Sawicki et al. 2003"); break;
+        case DRAGARC_LIFT_TABLE: snprintf(lift, sizeof lift, "lift CL(S) table, %zu points", p->lift.npoints); break;
+        default: snprintf(lift, sizeof lift, "no lift model: the spin has no effect"); break;
+        }
+        if (s->launch.spin_axis_given)
+            snprintf(how, sizeof how, "axis (%.3f, %.3f, %.3f) east-north-up", s->launch.spin_axis[0],
+                     s->launch.spin_axis[1], s->launch.spin_axis[2]);
         else
-            snprintf(lift, sizeof lift, "no lift model: the spin has no effect");
-        fprintf(fp, "  spin            %.4g %s, tilt %.4g %s (%s)\n",
-                SHOW("spin_rate", DRAGARC_Q_ANGULAR_SPEED, s->launch.spin_rate * 60.0 / (2.0 * 3.14159265358979323846)),
-                UNIT("spin_rate", DRAGARC_Q_ANGULAR_SPEED), SHOW(NULL, DRAGARC_Q_ANGLE, s->launch.spin_tilt * DEG), angle,
-                lift);
+            snprintf(how, sizeof how, "tilt %.4g %s", SHOW(NULL, DRAGARC_Q_ANGLE, s->launch.spin_tilt * DEG), angle);
+        if (s->launch.spin_decay_time > 0.0)
+            snprintf(decay, sizeof decay, "decay time %.4g %s",
+                     SHOW("spin_decay_time", DRAGARC_Q_TIME, s->launch.spin_decay_time),
+                     UNIT("spin_decay_time", DRAGARC_Q_TIME));
+        else if (p->spin_decay_coefficient > 0.0)
+            snprintf(decay, sizeof decay, "air-torque decay k %.3g", p->spin_decay_coefficient);
+        fprintf(fp, "  spin            %.4g %s, %s (%s; %s)\n",
+                SHOW("spin_rate", DRAGARC_Q_ANGULAR_SPEED, s->launch.spin_rate * RPM),
+                UNIT("spin_rate", DRAGARC_Q_ANGULAR_SPEED), how, lift, decay);
     }
     double cross = SHOW("crossrange", DRAGARC_Q_LENGTH, f->crossrange);
     fprintf(fp, "  range           %.2f %s (downrange %.2f %s, crossrange %.2f %s %s)\n",
@@ -162,6 +175,9 @@ void cli_print_flight(FILE *fp, const char *label, const dragarc_scenario *s, co
             SHOW("impact_speed", DRAGARC_Q_SPEED, f->impact_speed), UNIT("impact_speed", DRAGARC_Q_SPEED),
             SHOW("impact_angle", DRAGARC_Q_ANGLE, f->impact_angle * DEG), strcmp(iangle, "degree") == 0 ? "deg" : iangle,
             SHOW("impact_energy", DRAGARC_Q_ENERGY, f->impact_energy), UNIT("impact_energy", DRAGARC_Q_ENERGY));
+    if (s->launch.spin_rate > 0.0)
+        fprintf(fp, "  spin at landing %.4g %s\n", SHOW("spin_rate", DRAGARC_Q_ANGULAR_SPEED, f->impact[6] * RPM),
+                UNIT("spin_rate", DRAGARC_Q_ANGULAR_SPEED));
     if (isfinite(f->terminal_speed))
         fprintf(fp, "  terminal speed  %.3f %s (still air at launch height)\n",
                 SHOW("terminal_speed", DRAGARC_Q_SPEED, f->terminal_speed), UNIT("terminal_speed", DRAGARC_Q_SPEED));

@@ -172,8 +172,8 @@ static void write_json(FILE *fp, const char *scenario, double height, const drag
     for (int c = 0; c < NCOLS; c++)
         fprintf(fp, ", \"%s\": \"%s\"", COLS[c].name, uc[c] ? uc[c]->symbol : COLS[c].unit);
     fputs("},\n  \"cautions\": [", fp);
-    const char *cautions[8];
-    size_t nc = dragarc_cautions_notes(all_notes(rows, n), cautions, 8);
+    const char *cautions[DRAGARC_CAUTIONS_MAX];
+    size_t nc = dragarc_cautions_notes(all_notes(rows, n), cautions, DRAGARC_CAUTIONS_MAX);
     for (size_t i = 0; i < nc; i++) {
         fputs(i ? ",\n    " : "\n    ", fp);
         dragarc_json_text(fp, cautions[i]);
@@ -251,8 +251,8 @@ static void write_grid(FILE *fp, int markdown, const char *scenario, double heig
         dragarc_cautions_print(fp, all_notes(rows, n), 100);
         return;
     }
-    const char *cautions[8];
-    size_t nc = dragarc_cautions_notes(all_notes(rows, n), cautions, 8);
+    const char *cautions[DRAGARC_CAUTIONS_MAX];
+    size_t nc = dragarc_cautions_notes(all_notes(rows, n), cautions, DRAGARC_CAUTIONS_MAX);
     fputs("\nCautions:\n\n", fp);
     for (size_t i = 0; i < nc; i++)
         fprintf(fp, "- %s\n", cautions[i]);

@@ -5,9 +5,9 @@
 #include "dragarc/output.h"
 
 static const char LIMITS[] =
-    "Model limits: a point mass with drag, gravity and buoyancy only, on a flat, non-rotating Earth; no spin "
-    "lift, no gusts or turbulence, no tumbling. Treat results as estimates and check them against measurement "
-    "before relying on them.";
+    "Model limits: a point mass with drag, gravity, buoyancy and (only where a lift model is given) spin lift "
+    "about a fixed axis, on a flat, non-rotating Earth; no gusts or turbulence, no tumbling. Treat results as "
+    "estimates and check them against measurement before relying on them.";
 static const char DECIDE[] =
     "Safety distances, spectator and worker exclusion zones, spray buffer zones and debris hazard areas are set "
     "by local codes, product labels, regulations and licensed practice, not by this estimate.";
@@ -22,6 +22,10 @@ static const char CLAMPED[] =
 static const char CRISIS[] =
     "The Reynolds number passed through the drag crisis of a smooth sphere (2e5 to 1e6), where Cd falls sharply "
     "and depends on surface roughness and turbulence: ranges there are sensitive to the ball's surface.";
+static const char SPECTATORS[] =
+    "A struck or thrown ball can injure spectators, players and passers-by where it lands or bounces: netting, "
+    "fencing, stands and venue layouts follow local codes and the sport's own safety guidance, not this "
+    "estimate; real balls scatter more than one modelled flight.";
 static const char DENSE[] =
     "The fluid's density is more than 1 % of the body's: buoyancy is included, but added mass and unsteady "
     "(history) forces are not, so the acceleration phase is only approximate.";
@@ -34,7 +38,7 @@ size_t dragarc_cautions_flight(const dragarc_scenario *s, const dragarc_flight *
 
 size_t dragarc_cautions_notes(unsigned notes, const char **out, size_t max)
 {
-    const char *all[8];
+    const char *all[DRAGARC_CAUTIONS_MAX];
     size_t n = 0;
     all[n++] = LIMITS;
     all[n++] = DECIDE;
@@ -48,6 +52,8 @@ size_t dragarc_cautions_notes(unsigned notes, const char **out, size_t max)
         all[n++] = CRISIS;
     if (notes & DRAGARC_NOTE_DENSE_FLUID)
         all[n++] = DENSE;
+    if (notes & DRAGARC_NOTE_BALL)
+        all[n++] = SPECTATORS;
     size_t k = n < max ? n : max;
     for (size_t i = 0; i < k; i++)
         out[i] = all[i];
@@ -56,8 +62,8 @@ size_t dragarc_cautions_notes(unsigned notes, const char **out, size_t max)
 
 void dragarc_cautions_print(FILE *fp, unsigned notes, int width)
 {
-    const char *cautions[8];
-    size_t nc = dragarc_cautions_notes(notes, cautions, 8);
+    const char *cautions[DRAGARC_CAUTIONS_MAX];
+    size_t nc = dragarc_cautions_notes(notes, cautions, DRAGARC_CAUTIONS_MAX);
     fputs("Cautions:\n", fp);
     for (size_t i = 0; i < nc; i++)
         dragarc_text_wrap(fp, "  - ", 4, width, cautions[i]);

@@ -5,6 +5,7 @@
 #include <errno.h>
 #include <string.h>
 
+#include "core/constants.h"
 #include "dragarc/output.h"
 
 void dragarc_unit_column_suffix(const char *symbol, char *out, size_t n)
@@ -29,19 +30,26 @@ int dragarc_flight_write_csv(FILE *fp, const dragarc_flight *f, const dragarc_di
     const dragarc_unit_out *ut = dragarc_display_unit(d, NULL, DRAGARC_Q_TIME);
     const dragarc_unit_out *ul = dragarc_display_unit(d, NULL, DRAGARC_Q_LENGTH);
     const dragarc_unit_out *uv = dragarc_display_unit(d, NULL, DRAGARC_Q_SPEED);
-    char st[32], sl[32], sv[32];
+    const dragarc_unit_out *uw = dragarc_display_unit(d, "spin_rate", DRAGARC_Q_ANGULAR_SPEED);
+    char st[32], sl[32], sv[32], sw[32];
     dragarc_unit_column_suffix(ut->symbol, st, sizeof st);
     dragarc_unit_column_suffix(ul->symbol, sl, sizeof sl);
     dragarc_unit_column_suffix(uv->symbol, sv, sizeof sv);
-    fprintf(fp, "t_%s,x_%s,y_%s,z_%s,vx_%s,vy_%s,vz_%s,speed_%s,mach,reynolds\n", st, sl, sl, sl, sv, sv, sv, sv);
+    dragarc_unit_column_suffix(uw->symbol, sw, sizeof sw);
+    fprintf(fp, "t_%s,x_%s,y_%s,z_%s,vx_%s,vy_%s,vz_%s,speed_%s,mach,reynolds,spin_%s,spin_factor,cl,cd\n", st, sl, sl,
+            sl, sv, sv, sv, sv, sw);
+    enum { NCOL = 14 };
     for (size_t i = 0; i < f->npoints; i++) {
         const dragarc_flight_point *p = &f->points[i];
-        double v[10] = {dragarc_display_value(ut, p->t),      dragarc_display_value(ul, p->pos[0]),
-                        dragarc_display_value(ul, p->pos[1]), dragarc_display_value(ul, p->pos[2]),
-                        dragarc_display_value(uv, p->vel[0]), dragarc_display_value(uv, p->vel[1]),
-                        dragarc_display_value(uv, p->vel[2]), dragarc_display_value(uv, p->speed),
-                        p->mach,                              p->reynolds};
-        for (int k = 0; k < 10; k++) {
+        double v[NCOL] = {dragarc_display_value(ut, p->t),      dragarc_display_value(ul, p->pos[0]),
+                          dragarc_display_value(ul, p->pos[1]), dragarc_display_value(ul, p->pos[2]),
+                          dragarc_display_value(uv, p->vel[0]), dragarc_display_value(uv, p->vel[1]),
+                          dragarc_display_value(uv, p->vel[2]), dragarc_display_value(uv, p->speed),
+                          p->mach,                              p->reynolds,
+                          dragarc_display_value(uw, p->spin * 60.0 / (2.0 * DRAGARC_PI)),
+                          p->spin_factor,                       p->lift_coefficient,
+                          p->drag_coefficient};
+        for (int k = 0; k < NCOL; k++) {
             if (k)
                 fputc(',', fp);
             dragarc_number_write(fp, v[k]); /* an empty cell for NaN or inf */

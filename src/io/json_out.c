@@ -42,8 +42,8 @@ static char *finish(cJSON *doc)
 
 static void add_cautions(cJSON *doc, unsigned notes)
 {
-    const char *cautions[8];
-    size_t nc = dragarc_cautions_notes(notes, cautions, 8);
+    const char *cautions[DRAGARC_CAUTIONS_MAX];
+    size_t nc = dragarc_cautions_notes(notes, cautions, DRAGARC_CAUTIONS_MAX);
     cJSON *ca = cJSON_AddArrayToObject(doc, "cautions");
     for (size_t i = 0; i < nc; i++)
         cJSON_AddItemToArray(ca, cJSON_CreateString(cautions[i]));
@@ -96,6 +96,8 @@ char *dragarc_flight_json(const dragarc_scenario *s, const dragarc_flight *f, co
     cJSON_AddItemToObject(sum, "impact_position", vec3_shown(un, d, "impact_position", DRAGARC_Q_LENGTH, f->impact));
     cJSON_AddItemToObject(sum, "impact_velocity",
                           vec3_shown(un, d, "impact_velocity", DRAGARC_Q_SPEED, f->impact + 3));
+    if (s->launch.spin_rate > 0.0)
+        add_shown(sum, un, d, "landing_spin_rate", DRAGARC_Q_ANGULAR_SPEED, f->impact[6] * 60.0 / (2.0 * DRAGARC_PI));
     add_num(sum, "max_mach", f->max_mach);
     add_num(sum, "max_reynolds", f->max_reynolds);
     cJSON_AddStringToObject(sol, "method", dragarc_method_name(f->method));

@@ -202,7 +202,10 @@ static const struct {
     {"launch.height", DRAGARC_Q_LENGTH},
     {"launch.spin.rate", DRAGARC_Q_ANGULAR_SPEED},
     {"launch.spin.tilt", DRAGARC_Q_ANGLE},
+    {"launch.spin.decay_time", DRAGARC_Q_TIME},
     {"projectile.lift.cl", DRAGARC_Q_NUMBER},
+    {"projectile.spin_decay_coefficient", DRAGARC_Q_NUMBER},
+    {"projectile.inertia_factor", DRAGARC_Q_NUMBER},
     {"environment.gravity", DRAGARC_Q_ACCELERATION},
     {"environment.atmosphere.site_elevation", DRAGARC_Q_LENGTH},
     {"environment.atmosphere.temperature_offset", DRAGARC_Q_TEMPERATURE_DIFFERENCE},
@@ -317,6 +320,38 @@ static int with_units(cJSON *root, const char *path, dragarc_error *err)
 
 /* ---- drag ----------------------------------------------------------------------------------- */
 
+/* A table's "points": an array of 2 to 100000 pairs of numbers (what, e.g. "[x, cd]", names them in messages),
+ * copied into two new arrays (caller frees both, also after failure). */
+static int read_pairs(const cJSON *pts, const char *field, const char *what, double **xs, double **ys, int *count,
+                      dragarc_error *err)
+{
+    *xs = *ys = NULL;
+    if (!pts)
+        return dragarc_error_set(err, DRAGARC_EINVAL, field, "is required");
+    if (!cJSON_IsArray(pts))
+        return dragarc_error_set(err, DRAGARC_EINVAL, field, "must be an array of %s pairs, not %s", what, type_name(pts));
+    int n = cJSON_GetArraySize(pts);
+    if (n < 2)
+        return dragarc_error_set(err, DRAGARC_EINVAL, field, "needs at least 2 points (got %d)", n);
+    if (n > 100000)
+        return dragarc_error_set(err, DRAGARC_EINVAL, field, "has %d points; at most 100000 are allowed", n);
+    double *x = malloc((size_t)n * sizeof *x), *y = malloc((size_t)n * sizeof *y);
+    *xs = x, *ys = y, *count = n;
+    if (!x || !y)
+        return dragarc_error_set(err, DRAGARC_ENOMEM, field, "out of memory");
+    int i = 0;
+    for (const cJSON *p = pts->child; p; p = p->next, i++) {
+        char pf[PATH_MAX_LEN];
+        snprintf(pf, sizeof pf, "%s[%d]", field, i);
+        if (!cJSON_IsArray(p) || cJSON_GetArraySize(p) != 2 || !cJSON_IsNumber(p->child) ||
+            !cJSON_IsNumber(p->child->next))
+            return dragarc_error_set(err, DRAGARC_EINVAL, pf, "must be a pair of numbers %s", what);
+        x[i] = p->child->valuedouble;
+        y[i] = p->child->next->valuedouble;
+    }
+    return DRAGARC_OK;
+}
+
 static int read_drag(const cJSON *j, const char *path, dragarc_drag *d, dragarc_error *err)
 {
     TRY(want_object(j, path, err));
@@ -365,34 +400,10 @@ static int read_drag(const cJSON *j, const char *path, dragarc_drag *d, dragarc_
         join(field, sizeof field, path, "x");
         if (dragarc_drag_axis_from_name(axis, &ax) != DRAGARC_OK)
             return dragarc_error_set(err, DRAGARC_EINVAL, field, "unknown table axis \"%s\" (reynolds, mach, speed)", axis);
-        const cJSON *pts = cJSON_GetObjectItemCaseSensitive(j, "points");
+        double *x = NULL, *y = NULL;
+        int n = 0;
         join(field, sizeof field, path, "points");
-        if (!pts)
-            return dragarc_error_set(err, DRAGARC_EINVAL, field, "is required");
-        if (!cJSON_IsArray(pts))
-            return dragarc_error_set(err, DRAGARC_EINVAL, field, "must be an array of [x, cd] pairs, not %s", type_name(pts));
-        int n = cJSON_GetArraySize(pts);
-        if (n < 2)
-            return dragarc_error_set(err, DRAGARC_EINVAL, field, "needs at least 2 points (got %d)", n);
-        if (n > 100000)
-            return dragarc_error_set(err, DRAGARC_EINVAL, field, "has %d points; at most 100000 are allowed", n);
-        double *x = malloc((size_t)n * sizeof *x), *y = malloc((size_t)n * sizeof *y);
-        if (!x || !y) {
-            free(x), free(y);
-            return dragarc_error_set(err, DRAGARC_ENOMEM, field, "out of memory");
-        }
-        int i = 0, rc = DRAGARC_OK;
-        for (const cJSON *p = pts->child; p; p = p->next, i++) {
-            char pf[PATH_MAX_LEN];
-            snprintf(pf, sizeof pf, "%s[%d]", field, i);
-            if (!cJSON_IsArray(p) || cJSON_GetArraySize(p) != 2 || !cJSON_IsNumber(p->child) ||
-                !cJSON_IsNumber(p->child->next)) {
-                rc = dragarc_error_set(err, DRAGARC_EINVAL, pf, "must be a pair of numbers [x, cd]");
-                break;
-            }
-            x[i] = p->child->valuedouble;
-            y[i] = p->child->next->valuedouble;
-        }
+        int rc = read_pairs(cJSON_GetObjectItemCaseSensitive(j, "points"), field, "[x, cd]", &x, &y, &n, err);
         if (rc == DRAGARC_OK) {
             rc = dragarc_drag_table_set(d, ax, x, y, (size_t)n, err);
             if (rc != DRAGARC_OK)
@@ -410,12 +421,50 @@ static int read_drag(const cJSON *j, const char *path, dragarc_drag *d, dragarc_
     return rc;
 }
 
+/* projectile.lift: {"model": "constant", "cl"}, {"model": "sawicki2003"} or {"model": "table", "points": [[S, cl],
+ * ...]}. */
+static int read_lift(const cJSON *j, const char *path, dragarc_lift *l, dragarc_error *err)
+{
+    TRY(want_object(j, path, err));
+    TRY(check_source(j, path, err));
+    const char *model = NULL;
+    TRY(get_string(j, path, "model", 1, &model, err));
+    char field[PATH_MAX_LEN];
+    dragarc_lift_model m;
+    if (dragarc_lift_model_from_name(model, &m) != DRAGARC_OK || m == DRAGARC_LIFT_NONE) {
+        join(field, sizeof field, path, "model");
+        return dragarc_error_set(err, DRAGARC_EINVAL, field, "unknown lift model \"%s\" (constant, sawicki2003, table)",
+                                 model);
+    }
+    static const char *const keys[][4] = {{0}, {"model", "cl", "source", NULL}, {"model", "source", NULL},
+                                          {"model", "points", "source", NULL}};
+    TRY(check_keys(j, path, keys[m], err));
+    l->model = m;
+    int rc = DRAGARC_OK;
+    if (m == DRAGARC_LIFT_CONSTANT)
+        TRY(get_number(j, path, "cl", 1, &l->cl, NULL, err));
+    if (m == DRAGARC_LIFT_TABLE) {
+        double *x = NULL, *y = NULL;
+        int n = 0;
+        join(field, sizeof field, path, "points");
+        l->model = DRAGARC_LIFT_NONE; /* until the table is set */
+        rc = read_pairs(cJSON_GetObjectItemCaseSensitive(j, "points"), field, "[S, cl]", &x, &y, &n, err);
+        if (rc == DRAGARC_OK && (rc = dragarc_lift_table_set(l, x, y, (size_t)n, err)) != DRAGARC_OK)
+            dragarc_error_prefix(err, path);
+        free(x), free(y);
+    }
+    if (rc == DRAGARC_OK && (rc = dragarc_lift_check(l, err)) != DRAGARC_OK)
+        dragarc_error_prefix(err, path);
+    return rc;
+}
+
 /* ---- projectile ----------------------------------------------------------------------------- */
 
 static int read_projectile_object(const cJSON *j, const char *path, dragarc_projectile *p, dragarc_error *err)
 {
     static const char *const keys[] = {"name", "description", "source", "mass", "density", "diameter",
-                                       "area", "volume", "drag", "lift", NULL};
+                                       "area", "volume", "drag", "lift", "spin_decay_coefficient",
+                                       "inertia_factor", NULL};
     TRY(want_object(j, path, err));
     TRY(check_keys(j, path, keys, err));
     TRY(check_source(j, path, err));
@@ -462,21 +511,11 @@ static int read_projectile_object(const cJSON *j, const char *path, dragarc_proj
     TRY(read_drag(dj, field, &p->drag, err));
     const cJSON *lj = cJSON_GetObjectItemCaseSensitive(j, "lift");
     if (lj) {
-        static const char *const lkeys[] = {"model", "cl", "source", NULL};
         join(field, sizeof field, path, "lift");
-        TRY(want_object(lj, field, err));
-        TRY(check_keys(lj, field, lkeys, err));
-        TRY(check_source(lj, field, err));
-        const char *model = NULL;
-        TRY(get_string(lj, field, "model", 1, &model, err));
-        if (strcmp(model, "constant") != 0) {
-            char mf[PATH_MAX_LEN];
-            join(mf, sizeof mf, field, "model");
-            return dragarc_error_set(err, DRAGARC_EINVAL, mf, "unknown lift model \"%s\" (constant)", model);
-        }
-        p->lift.model = DRAGARC_LIFT_CONSTANT;
-        TRY(get_number(lj, field, "cl", 1, &p->lift.cl, NULL, err));
+        TRY(read_lift(lj, field, &p->lift, err));
     }
+    TRY(get_number(j, path, "spin_decay_coefficient", 0, &p->spin_decay_coefficient, NULL, err));
+    TRY(get_number(j, path, "inertia_factor", 0, &p->inertia_factor, NULL, err));
     int rc = dragarc_projectile_check(p, err);
     if (rc != DRAGARC_OK)
         dragarc_error_prefix(err, path);
@@ -571,21 +610,49 @@ static int read_projectile(const cJSON *j, const char *base_dir, const char *pro
 
 /* ---- launch, environment, ground, solver ----------------------------------------------------- */
 
-/* launch.spin: {"rate": rpm, "tilt": degrees}. */
+/* launch.spin: {"rate": rpm, "tilt": degrees} or {"vector": [east, north, up] in rpm}, and "decay_time": s. */
 static int read_spin(const cJSON *j, dragarc_launch *l, dragarc_error *err)
 {
-    static const char *const keys[] = {"rate", "tilt", NULL};
+    static const char *const keys[] = {"rate", "tilt", "vector", "decay_time", NULL};
     TRY(want_object(j, "launch.spin", err));
     TRY(check_keys(j, "launch.spin", keys, err));
     double rpm = 0.0, tilt = 0.0;
-    TRY(get_number(j, "launch.spin", "rate", 1, &rpm, NULL, err));
-    TRY(get_number(j, "launch.spin", "tilt", 0, &tilt, NULL, err));
+    const cJSON *vec = cJSON_GetObjectItemCaseSensitive(j, "vector");
+    if (vec) {
+        if (cJSON_GetObjectItemCaseSensitive(j, "rate") || cJSON_GetObjectItemCaseSensitive(j, "tilt"))
+            return dragarc_error_set(err, DRAGARC_EINVAL, "launch.spin.vector",
+                                     "give either the vector or the rate and tilt, not both");
+        if (!cJSON_IsArray(vec) || cJSON_GetArraySize(vec) != 3)
+            return dragarc_error_set(err, DRAGARC_EINVAL, "launch.spin.vector",
+                                     "must be an array of three numbers [east, north, up] in rpm");
+        double w[3];
+        int i = 0;
+        for (const cJSON *c = vec->child; c; c = c->next, i++) {
+            if (!cJSON_IsNumber(c) || !isfinite(c->valuedouble))
+                return dragarc_error_set(err, DRAGARC_EINVAL, "launch.spin.vector",
+                                         "must be an array of three numbers [east, north, up] in rpm");
+            w[i] = c->valuedouble;
+        }
+        rpm = sqrt(w[0] * w[0] + w[1] * w[1] + w[2] * w[2]);
+        if (rpm > 0.0) {
+            l->spin_axis_given = 1;
+            for (i = 0; i < 3; i++)
+                l->spin_axis[i] = w[i] / rpm;
+        }
+    } else {
+        TRY(get_number(j, "launch.spin", "rate", 1, &rpm, NULL, err));
+        TRY(get_number(j, "launch.spin", "tilt", 0, &tilt, NULL, err));
+    }
+    TRY(get_number(j, "launch.spin", "decay_time", 0, &l->spin_decay_time, NULL, err));
     if (!(rpm >= 0.0 && rpm <= 60000.0))
-        return dragarc_error_set(err, DRAGARC_EINVAL, "launch.spin.rate", "must be between 0 and 60000 rpm (got %g)",
-                                 rpm);
+        return dragarc_error_set(err, DRAGARC_EINVAL, vec ? "launch.spin.vector" : "launch.spin.rate",
+                                 "must be between 0 and 60000 rpm (got %g)", rpm);
     if (!(tilt >= -180.0 && tilt <= 180.0))
         return dragarc_error_set(err, DRAGARC_EINVAL, "launch.spin.tilt", "must be between -180 and 180 degrees (got %g)",
                                  tilt);
+    if (cJSON_GetObjectItemCaseSensitive(j, "decay_time") && !(l->spin_decay_time > 0.0))
+        return dragarc_error_set(err, DRAGARC_EINVAL, "launch.spin.decay_time", "must be positive, in s (got %g)",
+                                 l->spin_decay_time);
     l->spin_rate = rpm * 2.0 * DRAGARC_PI / 60.0;
     l->spin_tilt = tilt * DRAGARC_DEG;
     return DRAGARC_OK;

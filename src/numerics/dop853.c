@@ -1,5 +1,5 @@
 /* dop853.c: Dormand & Prince's explicit Runge-Kutta pair of order 8 with error estimators of orders 5
- * and 3 and a continuous extension of order 7, for the six-component state of one flight.
+ * and 3 and a continuous extension of order 7, for the state of one flight.
  * SPDX-License-Identifier: GPL-3.0-or-later
  *
  * Source: Hairer, E., Norsett, S. P. & Wanner, G. (1993), Solving Ordinary Differential Equations I:
@@ -10,7 +10,7 @@
  * One step from (t, y) with step h and stages k_1 = f(t, y), k_i = f(t + c_i h, y + h sum_j a_ij k_j):
  *   y_new = y + h sum_i b_i k_i                      (order 8; b_i = a_13,i)
  *   err5  = h sum_i e5_i k_i,   err3 = h sum_i (b_i - bhat_i) k_i
- *   err   = |err5|^2 / sqrt(N (|err5|^2 + 0.01 |err3|^2))   with each component divided by
+ *   err   = |err5|^2 / sqrt(n (|err5|^2 + 0.01 |err3|^2))   with each component divided by
  *           sk_i = atol + rtol max(|y_i|, |y_new_i|)  (Hairer et al. eq. II.10.17 and DOP853's ERR)
  * accepted when err <= 1; the next step is h / clamp(err^(1/8) / 0.9, 1/6, 3) (DOP853's defaults:
  * SAFE = 0.9, FAC1 = 0.333, FAC2 = 6, BETA = 0), and never grows right after a rejection.
@@ -86,18 +86,18 @@ static const double BHH1 = 0.244094488188976377952755905512, BHH9 = 0.7338466882
 #define FAC_MIN (1.0 / 6.0) /* 1 / FAC2: the step grows at most sixfold */
 #define FAC_MAX 3.0         /* 1 / FAC1: and shrinks at most threefold per attempt */
 
-/* y0 + h sum_j a_ij k_j over the row's non-zero entries (six accumulators: N is fixed at 6) */
+/* y0 + h sum_j a_ij k_j over the row's non-zero entries (seven accumulators: N is fixed at 7) */
 static inline void stage_state(const double y0[N], double (*k)[N], int i, double h, double out[N])
 {
     const stage_row *r = &A[i];
-    double a0 = 0.0, a1 = 0.0, a2 = 0.0, a3 = 0.0, a4 = 0.0, a5 = 0.0;
+    double a0 = 0.0, a1 = 0.0, a2 = 0.0, a3 = 0.0, a4 = 0.0, a5 = 0.0, a6 = 0.0;
     for (int m = 0; m < r->n; m++) {
         const double c = r->a[m], *kj = k[r->j[m]];
         a0 += c * kj[0], a1 += c * kj[1], a2 += c * kj[2];
-        a3 += c * kj[3], a4 += c * kj[4], a5 += c * kj[5];
+        a3 += c * kj[3], a4 += c * kj[4], a5 += c * kj[5], a6 += c * kj[6];
     }
     out[0] = y0[0] + h * a0, out[1] = y0[1] + h * a1, out[2] = y0[2] + h * a2;
-    out[3] = y0[3] + h * a3, out[4] = y0[4] + h * a4, out[5] = y0[5] + h * a5;
+    out[3] = y0[3] + h * a3, out[4] = y0[4] + h * a4, out[5] = y0[5] + h * a5, out[6] = y0[6] + h * a6;
 }
 
 static double weight(const dop853 *s, double a, double b) { return s->atol + s->rtol * fmax(fabs(a), fabs(b)); }
@@ -110,6 +110,7 @@ int dop853_init(dop853 *s, dop853_rhs f, void *user, double rtol, double atol, d
     s->user = user;
     s->rtol = rtol;
     s->atol = atol;
+    s->n_err = N;
     s->t = s->t_old = t0;
     memcpy(s->y, y0, sizeof s->y);
     memcpy(s->y_old, y0, sizeof s->y);
@@ -193,7 +194,7 @@ int dop853_step(dop853 *s, double t_end)
                 err3 += (e3 / sk) * (e3 / sk);
             }
             double deno = err5 + 0.01 * err3;
-            double err = fabs(h) * err5 * sqrt(1.0 / (N * (deno > 0.0 ? deno : 1.0)));
+            double err = fabs(h) * err5 * sqrt(1.0 / (s->n_err * (deno > 0.0 ? deno : 1.0)));
             double fac11 = pow(err, 1.0 / 8.0);
             if (!isfinite(err)) {
                 bad = 1;

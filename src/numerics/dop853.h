@@ -1,5 +1,5 @@
 /* dop853.h: an explicit Runge-Kutta stepper of order 8 with error estimators of orders 5 and 3 and a
- * continuous extension of order 7, for the six-component state of one flight (private to numerics/).
+ * continuous extension of order 7, for the state of one flight (private to numerics/).
  * SPDX-License-Identifier: GPL-3.0-or-later
  *
  * The method is Dormand & Prince's 8(5,3) pair as published by Hairer, Norsett & Wanner (1993),
@@ -10,7 +10,7 @@
 #ifndef DRAGARC_DOP853_H
 #define DRAGARC_DOP853_H
 
-#define DOP853_N 6
+#define DOP853_N 7 /* position, velocity, spin rate */
 
 /* Right-hand side f(t, y) -> dydt; returns 0, or non-zero when y cannot be evaluated (the stepper then
  * retries with a shorter step, and gives up after DOP853_MAX_RETRIES in a row). */
@@ -34,6 +34,8 @@ typedef struct dop853 {
     dop853_limit limit; /* NULL: none (set after dop853_init) */
     void *user;
     double rtol, atol; /* per component: |local error_i| weighted by 1 / (atol + rtol max(|y_i|, |y_new_i|)) */
+    int n_err;         /* components counted in the error norm's mean (DOP853_N after init): a component the
+                        * caller knows to stay exactly zero may be left out, so as not to dilute the others */
     double t, y[DOP853_N], fy[DOP853_N];                 /* the last accepted state and f there */
     double t_old, y_old[DOP853_N], f_old[DOP853_N], h_old; /* the start of the last accepted step */
     double h;                                            /* the next step to try */

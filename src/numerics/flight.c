@@ -48,8 +48,12 @@
  * 40 um (4394) 739 us against 261 us. The costs cross between the two, near 1000 on the estimate below. */
 #define STIFF_RATIO 1000.0
 
+#define NS DRAGARC_STATE_DIM
+
 typedef struct flight_ctx {
     dragarc_forces forces;
+    int n;                 /* components integrated: 6, or 7 when the spin rate is part of the state */
+    double spin0;          /* rad/s, the launch spin rate: the spin throughout when n = 6 */
     double ceiling;        /* m, local height where the atmosphere model ends (INFINITY if it does not) */
     dragarc_error rhs_err; /* first failure seen inside the right-hand side */
     int rhs_failed;
@@ -70,8 +74,9 @@ static int rhs(sunrealtype t, N_Vector y, N_Vector ydot, void *user)
     /* Trial states of a step may poke above the top of the atmosphere model; they see the air at the
      * top (continuous, and all but vacuum there), while the root function g2 stops a flight that
      * really climbs past it. */
-    double ys[6] = {yv[0], yv[1], fmin(yv[2], c->ceiling), yv[3], yv[4], yv[5]};
-    int rc = dragarc_forces_eval(&c->forces, ys, dv, NULL, &e);
+    double ys[NS] = {yv[0], yv[1], fmin(yv[2], c->ceiling), yv[3], yv[4], yv[5], c->n > 6 ? yv[6] : c->spin0}, d[NS];
+    int rc = dragarc_forces_eval(&c->forces, ys, d, NULL, &e);
+    memcpy(dv, d, (size_t)c->n * sizeof *dv);
     if (rc != DRAGARC_OK) {
         if (!c->rhs_failed) {
             c->rhs_err = e;
@@ -79,7 +84,7 @@ static int rhs(sunrealtype t, N_Vector y, N_Vector ydot, void *user)
         }
         return -1;
     }
-    for (int i = 0; i < 6; i++)
+    for (int i = 0; i < c->n; i++)
         if (!isfinite(dv[i])) {
             if (!c->rhs_failed) {
                 dragarc_error_set(&c->rhs_err, DRAGARC_ESOLVER, "", "the equations of motion gave a non-finite value");
@@ -127,7 +132,7 @@ void dragarc_flight_clear(dragarc_flight *f)
     memset(f, 0, sizeof *f);
 }
 
-static void launch_state(const dragarc_scenario *s, double y[6])
+static void launch_state(const dragarc_scenario *s, double y[NS])
 {
     const dragarc_launch *l = &s->launch;
     double ch = cos(l->elevation);
@@ -137,12 +142,13 @@ static void launch_state(const dragarc_scenario *s, double y[6])
     y[3] = l->speed * ch * sin(l->azimuth);
     y[4] = l->speed * ch * cos(l->azimuth);
     y[5] = l->speed * sin(l->elevation);
+    y[6] = l->spin_rate;
 }
 
 /* Time to fall from the launch to the ground in vacuum; NaN if it never gets there. */
 static double vacuum_time(const dragarc_scenario *s)
 {
-    double y[6];
+    double y[NS];
     launch_state(s, y);
     double dz = y[2] - s->ground_elevation, g = s->gravity;
     double disc = y[5] * y[5] + 2.0 * g * dz;
@@ -168,7 +174,7 @@ static int push_point(dragarc_flight *f, size_t *cap, const flight_ctx *c, doubl
         *cap = nc;
     }
     dragarc_flight_point *p = &f->points[f->npoints++];
-    double d[6];
+    double d[NS];
     dragarc_flow flow;
     p->t = t;
     for (int i = 0; i < 3; i++) {
@@ -176,11 +182,19 @@ static int push_point(dragarc_flight *f, size_t *cap, const flight_ctx *c, doubl
         p->vel[i] = y[i + 3];
     }
     p->speed = sqrt(y[3] * y[3] + y[4] * y[4] + y[5] * y[5]);
-    if (dragarc_forces_eval(&c->forces, y, d, &flow, NULL) == DRAGARC_OK) {
+    double ys[NS];
+    memcpy(ys, y, sizeof ys);
+    if (c->n < NS)
+        ys[6] = c->spin0;
+    p->spin = ys[6];
+    if (dragarc_forces_eval(&c->forces, ys, d, &flow, NULL) == DRAGARC_OK) {
         p->mach = flow.mach;
         p->reynolds = flow.reynolds;
+        p->spin_factor = flow.spin_factor;
+        p->lift_coefficient = flow.lift_coefficient;
+        p->drag_coefficient = flow.drag_coefficient;
     } else {
-        p->mach = p->reynolds = NAN;
+        p->mach = p->reynolds = p->spin_factor = p->lift_coefficient = p->drag_coefficient = NAN;
     }
     return DRAGARC_OK;
 }
@@ -209,9 +223,12 @@ static void observe_flow(dragarc_flight *f, const flight_ctx *c, dragarc_flow fl
 
 static void observe(dragarc_flight *f, const flight_ctx *c, const double *y)
 {
-    double d[6];
+    double d[NS], ys[NS];
+    memcpy(ys, y, sizeof ys);
+    if (c->n < NS)
+        ys[6] = c->spin0;
     dragarc_flow flow;
-    if (dragarc_forces_eval(&c->forces, y, d, &flow, NULL) == DRAGARC_OK)
+    if (dragarc_forces_eval(&c->forces, ys, d, &flow, NULL) == DRAGARC_OK)
         observe_flow(f, c, flow);
 }
 
@@ -263,12 +280,22 @@ static int err_no_impact(dragarc_error *err, const dragarc_scenario *s, double z
                              s->solver.max_time, z, z - s->ground_elevation);
 }
 
+/* A state of cx->n values as NS values (the launch spin rate when it is not integrated); returns out. */
+static double *widen(const flight_ctx *cx, const double *y, double out[NS])
+{
+    for (int i = 0; i < NS; i++)
+        out[i] = i < cx->n ? y[i] : cx->spin0;
+    return out;
+}
+
 /* Integrate with CVODE from y0 to impact, filling samples, apex, notes and steps; impact state in out->impact,
  * impact time in *t_end. */
 static int integrate_cvode(const dragarc_scenario *s, flight_ctx *cx, dragarc_method method, double dt,
-                           const double y0[6], dragarc_flight *out, size_t *cap_, double *t_end, dragarc_error *err)
+                           const double y0[NS], dragarc_flight *out, size_t *cap_, double *t_end, dragarc_error *err)
 {
     int rc = DRAGARC_OK;
+    const int n = cx->n;
+    double yw[NS]; /* a CVODE state widened to NS values */
     SUNContext sun = NULL;
     N_Vector y = NULL, ytmp = NULL;
     SUNMatrix A = NULL;
@@ -280,14 +307,14 @@ static int integrate_cvode(const dragarc_scenario *s, flight_ctx *cx, dragarc_me
         rc = dragarc_error_set(err, DRAGARC_ENOMEM, "", "could not create a SUNDIALS context");
         goto done;
     }
-    y = N_VNew_Serial(6, sun);
-    ytmp = N_VNew_Serial(6, sun);
+    y = N_VNew_Serial(n, sun);
+    ytmp = N_VNew_Serial(n, sun);
     mem = CVodeCreate(method == DRAGARC_METHOD_BDF ? CV_BDF : CV_ADAMS, sun);
     if (!y || !ytmp || !mem) {
         rc = dragarc_error_set(err, DRAGARC_ENOMEM, "", "could not allocate the integrator");
         goto done;
     }
-    memcpy(N_VGetArrayPointer(y), y0, 6 * sizeof *y0);
+    memcpy(N_VGetArrayPointer(y), y0, (size_t)n * sizeof *y0);
     int flag = CVodeSetErrHandlerFn(mem, on_cvode_error, cx);
     if (flag == CV_SUCCESS)
         flag = CVodeInit(mem, rhs, 0.0, y);
@@ -308,7 +335,7 @@ static int integrate_cvode(const dragarc_scenario *s, flight_ctx *cx, dragarc_me
         flag = CVodeSetNoInactiveRootWarn(mem);
     if (flag == CV_SUCCESS) {
         if (method == DRAGARC_METHOD_BDF) {
-            A = SUNDenseMatrix(6, 6, sun);
+            A = SUNDenseMatrix(n, n, sun);
             LS = A ? SUNLinSol_Dense(y, A, sun) : NULL;
             flag = LS ? CVodeSetLinearSolver(mem, LS, A) : CV_MEM_FAIL;
         } else {
@@ -359,11 +386,11 @@ static int integrate_cvode(const dragarc_scenario *s, flight_ctx *cx, dragarc_me
             }
             if (CVodeGetDky(mem, ts, 0, ytmp) != CV_SUCCESS)
                 break;
-            if ((rc = push_point(out, cap_, cx, ts, N_VGetArrayPointer(ytmp))) != DRAGARC_OK)
+            if ((rc = push_point(out, cap_, cx, ts, widen(cx, N_VGetArrayPointer(ytmp), yw))) != DRAGARC_OK)
                 goto nomem;
             k++;
         }
-        observe(out, cx, yv);
+        observe(out, cx, widen(cx, yv, yw));
         if (flag == CV_ROOT_RETURN) {
             int found[3] = {0, 0, 0};
             CVodeGetRootInfo(mem, found);
@@ -391,8 +418,7 @@ static int integrate_cvode(const dragarc_scenario *s, flight_ctx *cx, dragarc_me
         }
     }
 
-    const double *yi = N_VGetArrayPointer(y);
-    memcpy(out->impact, yi, sizeof out->impact);
+    widen(cx, N_VGetArrayPointer(y), out->impact);
     out->impact[2] = s->ground_elevation; /* the root finder leaves |z - z_g| at round-off level */
     if ((rc = push_point(out, cap_, cx, t, out->impact)) != DRAGARC_OK)
         goto nomem;
@@ -425,11 +451,13 @@ done:
  * of a step may poke above the top of the atmosphere model; they see the air at the top (continuous, and all
  * but vacuum there), while the events stop a flight that really climbs past it. A NaN or an infinity in any
  * component carries into the sum that is tested. */
-static int eval_checked(flight_ctx *c, const double y[6], double dydt[6], dragarc_flow *flow)
+static int eval_checked(flight_ctx *c, const double *y, double *dydt, dragarc_flow *flow)
 {
-    double ys[6] = {y[0], y[1], y[2] < c->ceiling ? y[2] : c->ceiling, y[3], y[4], y[5]};
+    double ys[NS] = {y[0], y[1], y[2] < c->ceiling ? y[2] : c->ceiling, y[3], y[4], y[5], c->n > 6 ? y[6] : c->spin0}, d[NS];
     dragarc_error e;
-    if (dragarc_forces_eval(&c->forces, ys, dydt, flow, &e) != DRAGARC_OK) {
+    int rc = dragarc_forces_eval(&c->forces, ys, d, flow, &e);
+    memcpy(dydt, d, (size_t)c->n * sizeof *dydt);
+    if (rc != DRAGARC_OK) {
         if (!c->rhs_failed)
             c->rhs_err = e;
         c->rhs_failed = 1;
@@ -455,11 +483,11 @@ static int rk_rhs(double t, const double y[], double dydt[], void *user)
 
 /* The state at t0 + tau from (t0, y0) by one rk8pd step of size tau (tau no longer than the step the error
  * control accepted, so the eighth-order step is at least as accurate). */
-static int rk_partial(gsl_odeiv2_step *st, const gsl_odeiv2_system *sys, double t0, const double y0[6], double tau,
-                      double y[6])
+static int rk_partial(gsl_odeiv2_step *st, const gsl_odeiv2_system *sys, double t0, const double y0[NS], double tau,
+                      double y[NS])
 {
-    double yerr[6];
-    memcpy(y, y0, 6 * sizeof *y);
+    double yerr[NS];
+    memcpy(y, y0, NS * sizeof *y);
     if (tau == 0.0)
         return GSL_SUCCESS;
     gsl_odeiv2_step_reset(st);
@@ -498,23 +526,23 @@ static void bracket_update(bracket *br, double m, double fm)
 /* The time in (ta, t1] where g = sign (y[k] - level) falls through zero, by the Illinois variant of regula
  * falsi (Dowell & Jarratt 1971, BIT 11:168) on states from rk_partial out of (t0, y0), the start of the step;
  * ystar gets the state there. g(ta) > 0 >= g(t1) on entry. */
-static int rk_locate(gsl_odeiv2_step *st, const gsl_odeiv2_system *sys, double t0, const double y0[6], double ta,
-                     const double ya[6], double t1, const double y1[6], int k, double level, double sign,
-                     double *tstar, double ystar[6])
+static int rk_locate(gsl_odeiv2_step *st, const gsl_odeiv2_system *sys, double t0, const double y0[NS], double ta,
+                     const double ya[NS], double t1, const double y1[NS], int k, double level, double sign,
+                     double *tstar, double ystar[NS])
 {
     bracket br = {ta, sign * (ya[k] - level), t1, sign * (y1[k] - level), 0};
-    memcpy(ystar, y1, 6 * sizeof *ystar);
+    memcpy(ystar, y1, NS * sizeof *ystar);
     *tstar = t1;
     /* Close enough when g is within 1e-12 of its change over the bracket: the crossing time is then known to
      * about 1e-12 of the step, far inside the integration's own accuracy. */
     const double gtol = 1e-12 * (fabs(br.fa) + fabs(br.fb));
     for (int it = 0; it < 100 && br.b - br.a > 1e-13 * fmax(1.0, fabs(br.b)); it++) {
-        double m = bracket_trial(&br), ym[6];
+        double m = bracket_trial(&br), ym[NS];
         if (rk_partial(st, sys, t0, y0, m - t0, ym) != GSL_SUCCESS)
             return -1;
         double fm = sign * (ym[k] - level);
         if (fm <= 0.0 || fabs(fm) <= gtol) {
-            memcpy(ystar, ym, 6 * sizeof *ystar);
+            memcpy(ystar, ym, NS * sizeof *ystar);
             *tstar = m;
         }
         if (fabs(fm) <= gtol || fm == 0.0)
@@ -527,20 +555,21 @@ static int rk_locate(gsl_odeiv2_step *st, const gsl_odeiv2_system *sys, double t
 /* Integrate with rk8pd (Prince & Dormand 1981, J. Comput. Appl. Math. 7:67; GSL odeiv2) under GSL's
  * standard error control (|err_i| <= atol + rtol |y_i|), one accepted step at a time. Events are found
  * inside the step that contains them by regula falsi on partial steps from its start; samples likewise. */
-static int integrate_rk(const dragarc_scenario *s, flight_ctx *cx, double dt, const double y0[6],
+static int integrate_rk(const dragarc_scenario *s, flight_ctx *cx, double dt, const double y0[NS],
                         dragarc_flight *out, size_t *cap, double *t_end, dragarc_error *err)
 {
-    gsl_odeiv2_system sys = {rk_rhs, NULL, 6, cx};
-    gsl_odeiv2_step *step = gsl_odeiv2_step_alloc(gsl_odeiv2_step_rk8pd, 6);
-    gsl_odeiv2_step *part = gsl_odeiv2_step_alloc(gsl_odeiv2_step_rk8pd, 6);
+    const size_t n = (size_t)cx->n;
+    gsl_odeiv2_system sys = {rk_rhs, NULL, n, cx};
+    gsl_odeiv2_step *step = gsl_odeiv2_step_alloc(gsl_odeiv2_step_rk8pd, n);
+    gsl_odeiv2_step *part = gsl_odeiv2_step_alloc(gsl_odeiv2_step_rk8pd, n);
     gsl_odeiv2_control *con = gsl_odeiv2_control_standard_new(s->solver.atol, s->solver.rtol, 1.0, 0.0);
-    gsl_odeiv2_evolve *ev = gsl_odeiv2_evolve_alloc(6);
+    gsl_odeiv2_evolve *ev = gsl_odeiv2_evolve_alloc(n);
     int rc = DRAGARC_OK;
     if (!step || !part || !con || !ev) {
         rc = dragarc_error_set(err, DRAGARC_ENOMEM, "", "could not allocate the integrator");
         goto done;
     }
-    double y[6], yprev[6], ytmp[6];
+    double y[NS], yprev[NS], ytmp[NS];
     memcpy(y, y0, sizeof y);
     double t = 0.0, h = 1e-3;
     if ((rc = push_point(out, cap, cx, 0.0, y)) != DRAGARC_OK)
@@ -571,7 +600,7 @@ static int integrate_rk(const dragarc_scenario *s, flight_ctx *cx, double dt, co
         }
         /* Events inside this step, in time order: leaving the atmosphere, the apex, the impact. */
         double t_top = INFINITY, t_apex = INFINITY, t_hit = INFINITY;
-        double y_apex[6], y_hit[6], y_top[6];
+        double y_apex[NS], y_hit[NS], y_top[NS];
         const double zg = s->ground_elevation;
         if (isfinite(cx->ceiling) && y[2] > cx->ceiling && yprev[2] <= cx->ceiling &&
             rk_locate(part, &sys, tprev, yprev, tprev, yprev, t, y, 2, cx->ceiling, -1.0, &t_top, y_top) != 0)
@@ -656,10 +685,11 @@ done:
 
 /* Right-hand side in the stepper's form, keeping what the flow looked like at the end of each accepted step
  * (the stepper evaluates f there anyway), so the diagnostics of a step cost no extra evaluation. */
-static int dop_rhs(double t, const double y[6], double dydt[6], void *user)
+static int dop_rhs(double t, const double y[NS], double dydt[NS], void *user)
 {
     (void)t;
     flight_ctx *c = user;
+    dydt[6] = 0.0; /* the spin rate stays constant when it is not integrated */
     return eval_checked(c, y, dydt, c->stepper && c->stepper->at_step_end ? &c->flow : NULL);
 }
 
@@ -688,7 +718,7 @@ static int gather_breaks(const dragarc_scenario *s, flight_ctx *cx)
  * predicted from z + vz tau + az tau^2 / 2 meets it (0.1 % short, to allow for the prediction's error), and
  * the next, tiny, step closes the gap exactly; the step after that starts on the kink, within 1e-8 of a
  * step's reach (gaps that small are ignored), and sees only the smooth side. */
-static double kink_limit(double t, const double y[6], const double f[6], double h, void *user)
+static double kink_limit(double t, const double y[NS], const double f[NS], double h, void *user)
 {
     (void)t;
     const flight_ctx *c = user;
@@ -745,16 +775,16 @@ static double dense_locate(const dop853 *st, double ta, int k, double level, dou
  * (|dt| is at round-off of the dense root, so the neglected term is far below the step's error). Measured
  * on the bench's ball (rtol 1e-8): the range error against a 1e-12 solution drops from 1.6e-8 to 9.6e-9;
  * on the 100 um drop from 5.9e-9 to 1e-11; cost: 12 evaluations per flight. */
-static int polish_impact(const dop853 *st, flight_ctx *cx, double zg, double *t_hit, double y_hit[6])
+static int polish_impact(const dop853 *st, flight_ctx *cx, double zg, double *t_hit, double y_hit[NS])
 {
-    double ys[6], f[6];
+    double ys[NS], f[NS];
     if (dop853_partial(st, *t_hit - st->t_old, ys) != DOP853_OK || dop_rhs(*t_hit, ys, f, cx) != 0)
         return -1;
     double dtc = ys[5] < 0.0 ? -(ys[2] - zg) / ys[5] : 0.0;
     if (!(fabs(dtc) <= 1e-6 * (st->t - st->t_old)))
         return 0; /* a grazing crossing: keep the interpolated state */
     *t_hit += dtc;
-    for (int i = 0; i < 6; i++)
+    for (int i = 0; i < NS; i++)
         y_hit[i] = ys[i] + dtc * f[i];
     return 0;
 }
@@ -780,7 +810,7 @@ static int dop_step_events(const dragarc_scenario *s, flight_ctx *cx, dop853 *st
     cx->rhs_failed = 0;
     /* Events inside this step, in time order: leaving the atmosphere, the apex, the impact. */
     double t_top = INFINITY, t_apex = INFINITY, t_hit = INFINITY;
-    double y_apex[6], y_hit[6];
+    double y_apex[NS], y_hit[NS];
     if (crosses_top)
         t_top = dense_locate(st, st->t_old, 2, cx->ceiling, -1.0);
     if (apex) {
@@ -806,7 +836,7 @@ static int dop_step_events(const dragarc_scenario *s, flight_ctx *cx, dop853 *st
                                      "a sampling interval of %g s gives more than %d rows over this flight; use "
                                      "a larger interval",
                                      dt, MAX_SAMPLES);
-        double ys[6];
+        double ys[NS];
         dop853_dense_eval(st, *k * dt, ys);
         if ((rc = push_point(out, cap, cx, *k * dt, ys)) != DRAGARC_OK)
             return rc;
@@ -837,14 +867,19 @@ static int dop_step_events(const dragarc_scenario *s, flight_ctx *cx, dop853 *st
 /* Integrate with DOP853 (Hairer, Norsett & Wanner 1993) under its error control (weighted RMS norm of the
  * local error, weights 1 / (atol + rtol max(|y_i|, |y_new_i|)), as CVODE's), one accepted step at a time.
  * Events and samples inside a step come from the step's continuous extension of order 7. */
-static int integrate_dop853(const dragarc_scenario *s, flight_ctx *cx, double dt, const double y0[6],
+static int integrate_dop853(const dragarc_scenario *s, flight_ctx *cx, double dt, const double y0[NS],
                             dragarc_flight *out, size_t *cap, double *t_end, dragarc_error *err)
 {
     dop853 st;
     cx->stepper = &st; /* for dop_rhs: which evaluation ends a step */
-    int rc, ds = dop853_init(&st, dop_rhs, cx, s->solver.rtol, s->solver.atol, 0.0, y0, s->solver.max_time);
+    double ys0[NS];
+    memcpy(ys0, y0, sizeof ys0);
+    if (cx->n < NS)
+        ys0[6] = 0.0; /* not integrated: kept out of the starting-step estimate (eval_checked uses spin0) */
+    int rc, ds = dop853_init(&st, dop_rhs, cx, s->solver.rtol, s->solver.atol, 0.0, ys0, s->solver.max_time);
     if (ds != DOP853_OK)
         return dop_failure(cx, ds, 0.0, err);
+    st.n_err = cx->n; /* a constant spin rate does not dilute the error norm */
     if (gather_breaks(s, cx) != DRAGARC_OK)
         return dragarc_error_set(err, DRAGARC_ENOMEM, "", "could not allocate the integrator");
     if (cx->nbreaks)
@@ -906,10 +941,23 @@ int dragarc_flight_run(const dragarc_scenario *s, double dt, dragarc_flight *out
     flight_ctx c;
     memset(&c, 0, sizeof c);
     dragarc_forces_init(&c.forces, &s->projectile, &s->atmosphere, &s->wind, s->gravity, s->ground_elevation);
-    dragarc_forces_spin(&c.forces, s->launch.spin_rate, s->launch.spin_tilt, s->launch.azimuth);
+    if (s->launch.spin_rate > 0.0) {
+        double axis[3];
+        if (s->launch.spin_axis_given)
+            memcpy(axis, s->launch.spin_axis, sizeof axis);
+        else
+            dragarc_spin_axis(s->launch.spin_tilt, s->launch.azimuth, axis);
+        dragarc_forces_spin(&c.forces, axis, s->launch.spin_decay_time);
+    }
+    /* The spin rate joins the state only when something acts on it or through it. */
+    int spin_matters = s->launch.spin_rate > 0.0 &&
+                       (s->projectile.lift.model != DRAGARC_LIFT_NONE || s->launch.spin_decay_time > 0.0 ||
+                        s->projectile.spin_decay_coefficient > 0.0);
+    c.n = spin_matters ? NS : 6;
+    c.spin0 = s->launch.spin_rate;
     c.ceiling = s->atmosphere.model == DRAGARC_ATMOSPHERE_ISA ? DRAGARC_ISA_Z_MAX - s->atmosphere.site_elevation : INFINITY;
 
-    double y0[6];
+    double y0[NS];
     launch_state(s, y0);
     out->launch_energy = 0.5 * s->projectile.mass * s->launch.speed * s->launch.speed;
     out->vacuum_range = dragarc_vacuum_range(s);
@@ -949,6 +997,8 @@ int dragarc_flight_run(const dragarc_scenario *s, double dt, dragarc_flight *out
         rc = integrate_cvode(s, &c, method, dt, y0, out, &cap, &t, err);
     if (rc != DRAGARC_OK)
         return rc;
+    if (c.n < NS)
+        out->impact[6] = c.spin0;
     double ex = out->impact[0], ny = out->impact[1];
     double az = s->launch.azimuth;
     out->time_of_flight = t;
@@ -961,5 +1011,7 @@ int dragarc_flight_run(const dragarc_scenario *s, double dt, dragarc_flight *out
     out->impact_energy = 0.5 * s->projectile.mass * out->impact_speed * out->impact_speed;
     if (out->impact_energy >= 15.0)
         out->notes |= DRAGARC_NOTE_HIGH_ENERGY;
+    if (s->launch.spin_rate > 0.0)
+        out->notes |= DRAGARC_NOTE_BALL;
     return DRAGARC_OK;
 }

@@ -2,13 +2,19 @@
  * SPDX-License-Identifier: GPL-3.0-or-later
  *
  *   dx/dt = v
- *   dv/dt = -g z^ + (rho_f V g / m) z^ - (D / m) (v - w) + F_L / m
- * Newton's second law with Archimedes' buoyancy; D is the drag factor (drag.h) at |v - w|. The lift of a
- * spinning body, F_L = 1/2 rho C_L A |v_rel|^2 along (w x v_rel)/|w x v_rel|, is perpendicular to the
- * relative velocity, on the side toward which the spin carries the air's boundary layer (the Magnus
- * effect; e.g. Nathan, A. M. 2008, "The effect of spin on the flight of a baseball", Am. J. Phys.
- * 76:119, eq. 1, where the same form defines C_L). No added mass, Basset history force or Earth
- * rotation in this model (see docs/models.md).
+ *   dv/dt = -g z^ + (rho_f V g / m) z^ - (D / m) (v - u) + F_L / m
+ *   dw/dt = -w / tau - k w |v - u| / r
+ * Newton's second law with Archimedes' buoyancy; D is the drag factor (drag.h) at |v - u|, u the wind. The
+ * lift of a spinning body, F_L = 1/2 rho C_L A |v_rel|^2 along (w x v_rel)/|w x v_rel|, is perpendicular to
+ * the relative velocity, on the side toward which the spin carries the air's boundary layer (the Magnus
+ * effect; e.g. Nathan, A. M. 2008, "The effect of spin on the flight of a baseball", Am. J. Phys. 76:119,
+ * eq. 1, where the same form defines C_L). C_L depends on the spin factor S = r w_perp / |v_rel| (lift.h).
+ * The spin axis stays fixed in space (the ball is a gyroscope: aerodynamic torques about other axes are
+ * neglected); the rate decays exponentially (an e-folding time tau) or by the air's friction torque,
+ * dw/dt = -k w v / r (Smits, A. J. & Smith, D. R. 1994, "A new aerodynamic model of a golf ball in flight",
+ * Science and Golf II, 340-347, k about 2e-5 for a golf ball, as used by Penner, A. R. 2001, "The physics of
+ * golf: the optimum loft of a driver", Am. J. Phys. 69:563; recalled). No added mass, Basset history force or
+ * Earth rotation in this model (see docs/models.md).
  */
 #include <math.h>
 
@@ -28,23 +34,26 @@ void dragarc_forces_init(dragarc_forces *f, const dragarc_projectile *projectile
     f->prepared = 1;
 }
 
-void dragarc_forces_spin(dragarc_forces *f, double rate, double tilt, double azimuth)
+void dragarc_spin_axis(double tilt, double azimuth, double axis[3])
 {
-    if (!(rate > 0.0)) {
-        f->spin_axis[0] = f->spin_axis[1] = f->spin_axis[2] = 0.0;
-        return;
-    }
     /* r: horizontal, to the right of the launch direction d = (sin az, cos az, 0); r x d = z^, so spin
      * about r with the body moving along d lifts it. Tilting by t: w^ = cos t r - sin t z^, whose lift
      * (w^ x d) = cos t z^ + sin t r leans to the right for t > 0. */
     double r[3] = {cos(azimuth), -sin(azimuth), 0.0};
-    f->spin_axis[0] = cos(tilt) * r[0];
-    f->spin_axis[1] = cos(tilt) * r[1];
-    f->spin_axis[2] = -sin(tilt);
+    axis[0] = cos(tilt) * r[0];
+    axis[1] = cos(tilt) * r[1];
+    axis[2] = -sin(tilt);
 }
 
-int dragarc_forces_eval(const dragarc_forces *f, const double y[6], double dydt[6], dragarc_flow *flow,
-                        dragarc_error *err)
+void dragarc_forces_spin(dragarc_forces *f, const double axis[3], double decay_time)
+{
+    for (int i = 0; i < 3; i++)
+        f->spin_axis[i] = axis ? axis[i] : 0.0;
+    f->spin_decay_rate = decay_time > 0.0 ? 1.0 / decay_time : 0.0;
+}
+
+int dragarc_forces_eval(const dragarc_forces *f, const double y[DRAGARC_STATE_DIM], double dydt[DRAGARC_STATE_DIM],
+                        dragarc_flow *flow, dragarc_error *err)
 {
     const dragarc_projectile *p = f->projectile;
     dragarc_air air;
@@ -65,15 +74,23 @@ int dragarc_forces_eval(const dragarc_forces *f, const double y[6], double dydt[
     dydt[3] = -dm * rel[0];
     dydt[4] = -dm * rel[1];
     dydt[5] = -f->gravity + buoy - dm * rel[2];
-    const double *a = f->spin_axis;
-    if (p->lift.model == DRAGARC_LIFT_CONSTANT && (a[0] != 0.0 || a[1] != 0.0 || a[2] != 0.0) && speed > 0.0) {
-        double c[3] = {a[1] * rel[2] - a[2] * rel[1], a[2] * rel[0] - a[0] * rel[2], a[0] * rel[1] - a[1] * rel[0]};
-        double cn = sqrt(c[0] * c[0] + c[1] * c[1] + c[2] * c[2]);
-        if (cn > 1e-12 * speed) { /* no lift when the spin axis lies along the relative velocity */
-            double k = 0.5 * air.density * p->lift.cl * p->area * speed * speed * inv_m / cn;
-            dydt[3] += k * c[0];
-            dydt[4] += k * c[1];
-            dydt[5] += k * c[2];
+    dydt[6] = 0.0;
+    const double *a = f->spin_axis, spin = y[6];
+    double S = 0.0, cl = 0.0;
+    if ((a[0] != 0.0 || a[1] != 0.0 || a[2] != 0.0) && spin > 0.0) {
+        const double radius = 0.5 * p->diameter;
+        dydt[6] = -spin * (f->spin_decay_rate + p->spin_decay_coefficient * speed / radius);
+        if (p->lift.model != DRAGARC_LIFT_NONE && speed > 0.0) {
+            double c[3] = {a[1] * rel[2] - a[2] * rel[1], a[2] * rel[0] - a[0] * rel[2], a[0] * rel[1] - a[1] * rel[0]};
+            double cn = sqrt(c[0] * c[0] + c[1] * c[1] + c[2] * c[2]);
+            if (cn > 1e-12 * speed) { /* no lift when the spin axis lies along the relative velocity */
+                S = radius * spin * cn / (speed * speed); /* r w_perp / |v_rel|, w_perp = w |w^ x v_rel^| */
+                cl = dragarc_lift_coefficient(&p->lift, S);
+                double k = 0.5 * air.density * cl * p->area * speed * speed * inv_m / cn;
+                dydt[3] += k * c[0];
+                dydt[4] += k * c[1];
+                dydt[5] += k * c[2];
+            }
         }
     }
     if (flow) {
@@ -83,6 +100,9 @@ int dragarc_forces_eval(const dragarc_forces *f, const double y[6], double dydt[
         flow->mach = speed / air.speed_of_sound;
         flow->reynolds = air.density * speed * p->diameter / air.viscosity;
         flow->drag_factor = dfac;
+        flow->drag_coefficient = air.density > 0.0 && speed > 0.0 ? 2.0 * dfac / (air.density * p->area * speed) : NAN;
+        flow->spin_factor = S;
+        flow->lift_coefficient = cl;
     }
     return DRAGARC_OK;
 }

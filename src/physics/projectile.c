@@ -17,11 +17,20 @@ int dragarc_projectile_check(const dragarc_projectile *p, dragarc_error *err)
     if (!(p->volume >= 0.0 && isfinite(p->volume)))
         return dragarc_error_set(err, DRAGARC_EINVAL, "volume", "must be zero or positive, in m^3 (got %g)",
                                  p->volume);
-    if (p->lift.model == DRAGARC_LIFT_CONSTANT && !(p->lift.cl >= 0.0 && p->lift.cl <= 1.0))
-        return dragarc_error_set(err, DRAGARC_EINVAL, "lift.cl", "must be between 0 and 1 (got %g)", p->lift.cl);
-    if (p->lift.model != DRAGARC_LIFT_NONE && p->lift.model != DRAGARC_LIFT_CONSTANT)
-        return dragarc_error_set(err, DRAGARC_EINVAL, "lift.model", "unknown lift model %d", (int)p->lift.model);
-    int rc = dragarc_drag_check(&p->drag, err);
+    /* Smits & Smith's coefficient for a golf ball is about 2e-5 (recalled): 1e-2 would stop the spin within
+     * a few ball diameters of flight, far beyond any ball's. */
+    if (!(p->spin_decay_coefficient >= 0.0 && p->spin_decay_coefficient <= 1e-2))
+        return dragarc_error_set(err, DRAGARC_EINVAL, "spin_decay_coefficient", "must be between 0 and 0.01 (got %g)",
+                                 p->spin_decay_coefficient);
+    if (!(p->inertia_factor == 0.0 || (p->inertia_factor > 0.0 && p->inertia_factor <= 2.0 / 3.0 + 1e-12)))
+        return dragarc_error_set(err, DRAGARC_EINVAL, "inertia_factor",
+                                 "must be above 0 and at most 2/3, a thin shell (got %g)", p->inertia_factor);
+    int rc = dragarc_lift_check(&p->lift, err);
+    if (rc != DRAGARC_OK) {
+        dragarc_error_prefix(err, "lift");
+        return rc;
+    }
+    rc = dragarc_drag_check(&p->drag, err);
     if (rc != DRAGARC_OK)
         dragarc_error_prefix(err, "drag");
     return rc;
@@ -32,11 +41,17 @@ void dragarc_projectile_clear(dragarc_projectile *p)
     if (!p)
         return;
     dragarc_drag_clear(&p->drag);
+    dragarc_lift_clear(&p->lift);
     memset(p, 0, sizeof *p);
 }
 
 int dragarc_projectile_copy(dragarc_projectile *dst, const dragarc_projectile *src, dragarc_error *err)
 {
     *dst = *src;
-    return dragarc_drag_copy(&dst->drag, &src->drag, err);
+    dst->lift.s = dst->lift.c = NULL;
+    dst->lift.interp = NULL;
+    int rc = dragarc_drag_copy(&dst->drag, &src->drag, err);
+    if (rc == DRAGARC_OK && (rc = dragarc_lift_copy(&dst->lift, &src->lift, err)) != DRAGARC_OK)
+        dragarc_drag_clear(&dst->drag);
+    return rc;
 }

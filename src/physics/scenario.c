@@ -43,6 +43,14 @@ int dragarc_scenario_check(const dragarc_scenario *s, dragarc_error *err)
                                  l->spin_rate * 60.0 / (2.0 * DRAGARC_PI));
     if (!(fabs(l->spin_tilt) <= DRAGARC_PI + 1e-12))
         return dragarc_error_set(err, DRAGARC_EINVAL, "launch.spin.tilt", "must be between -180 and 180 degrees");
+    if (l->spin_axis_given && !(fabs(hypot(hypot(l->spin_axis[0], l->spin_axis[1]), l->spin_axis[2]) - 1.0) < 1e-9))
+        return dragarc_error_set(err, DRAGARC_EINVAL, "launch.spin.vector", "the spin axis must be a unit vector");
+    if (!(l->spin_decay_time == 0.0 || (l->spin_decay_time > 0.0 && isfinite(l->spin_decay_time))))
+        return dragarc_error_set(err, DRAGARC_EINVAL, "launch.spin.decay_time", "must be positive, in s (got %g)",
+                                 l->spin_decay_time);
+    if (l->spin_decay_time > 0.0 && s->projectile.spin_decay_coefficient > 0.0)
+        return dragarc_error_set(err, DRAGARC_EINVAL, "launch.spin.decay_time",
+                                 "give either this or projectile.spin_decay_coefficient, not both");
     if (!isfinite(s->ground_elevation))
         return dragarc_error_set(err, DRAGARC_EINVAL, "ground.elevation", "must be a finite height in m");
     /* A launch below the impact plane (a throw up onto a terrace or roof) must climb through it. */

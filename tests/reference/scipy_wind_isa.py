@@ -34,6 +34,13 @@
 #            coefficient used here; equation number from memory). The spin axis of dragarc's launch.spin
 #            is written again here from docs/models.md: horizontal, to the right of the launch direction,
 #            tilted by t: w^ = cos t (cos az, -sin az, 0) - sin t z^.
+#   [Sawicki03] G. S. Sawicki, M. Hubbard, W. J. Stronge, "How to hit home runs: optimum baseball bat swing
+#            parameters for maximum range trajectories", Am. J. Phys. 71 (2003) 1152: the lift fit C_L = 1.5 S
+#            (S < 0.1), 0.09 + 0.6 S above, S = r w / v (recalled). Here S takes the spin across the
+#            relative velocity, w |w^ x v^|, as docs/models.md says.
+#   [Smits94] A. J. Smits, D. R. Smith, "A new aerodynamic model of a golf ball in flight", Science and
+#            Golf II (1994) 340: spin decay dw/dt = -k w v / r (recalled, as used by Penner 2001, Am. J.
+#            Phys. 69:563).
 #   [Newton] Drag D = 1/2 rho Cd A |v - w|^2 along -(v - w) (definition of the drag coefficient) and
 #            buoyancy rho V g upward (Archimedes); see e.g. F. M. White, "Fluid Mechanics", 7th ed.,
 #            McGraw-Hill, 2011, chapter 7 (definition of the drag coefficient; chapter from memory).
@@ -177,25 +184,48 @@ def reference_flight(sc, rtol, atol, vacuum=False):
     u_ref, h_ref, z0, wfrom = wind["speed"], wind["ref_height"], wind["roughness"], wind["from"]
     lift = pr.get("lift")
     spin = la.get("spin")
-    axis = None
-    if lift and spin and spin["rate"] > 0:
-        tilt, azr = math.radians(spin.get("tilt", 0.0)), math.radians(la["azimuth"])
-        axis = np.array([math.cos(tilt) * math.cos(azr), -math.cos(tilt) * math.sin(azr), -math.sin(tilt)])
+    axis, w0, tau = None, 0.0, None
+    if spin:
+        if "vector" in spin:  # rpm, east-north-up
+            vec = np.array(spin["vector"], dtype=float)
+            w0 = math.sqrt(vec @ vec) * 2.0 * math.pi / 60.0
+            axis = vec / math.sqrt(vec @ vec)
+        elif spin["rate"] > 0:
+            tilt, azr = math.radians(spin.get("tilt", 0.0)), math.radians(la["azimuth"])
+            axis = np.array([math.cos(tilt) * math.cos(azr), -math.cos(tilt) * math.sin(azr), -math.sin(tilt)])
+            w0 = spin["rate"] * 2.0 * math.pi / 60.0
+        tau = spin.get("decay_time")
+    k_decay = pr.get("spin_decay_coefficient", 0.0)
+
+    def lift_coefficient(S):
+        if lift["model"] == "constant":
+            return lift["cl"]
+        if lift["model"] == "sawicki2003":  # [Sawicki03]
+            return 1.5 * S if S < 0.1 else 0.09 + 0.6 * S
+        raise ValueError("lift model %s" % lift["model"])
 
     def rhs(t, s):
         vel = s[3:6]
         acc = np.array([0.0, 0.0, -g])
+        dw = 0.0
         if not vacuum:
             rho = isa_density(site + s[2], dT)
             w = log_wind(s[2] - ground, u_ref, h_ref, z0, wfrom)
             rel = vel - w
-            k = 0.5 * rho * cd * area * math.sqrt(rel @ rel) / m
+            speed = math.sqrt(rel @ rel)
+            k = 0.5 * rho * cd * area * speed / m
             acc = acc - k * rel
             acc[2] += rho * vol * g / m
-            if axis is not None:  # lift [Nathan08]
-                c = np.cross(axis, rel)
-                acc = acc + 0.5 * rho * lift["cl"] * area * (rel @ rel) / m * c / math.sqrt(c @ c)
-        return np.concatenate((vel, acc))
+            if axis is not None and s[6] > 0:
+                if tau:
+                    dw -= s[6] / tau
+                dw -= k_decay * s[6] * speed / (0.5 * d)  # [Smits94]
+                if lift:  # lift [Nathan08]; S from the spin across the relative velocity
+                    c = np.cross(axis, rel)
+                    cn = math.sqrt(c @ c)
+                    S = 0.5 * d * s[6] * cn / (speed * speed)
+                    acc = acc + 0.5 * rho * lift_coefficient(S) * area * speed * speed / m * c / cn
+        return np.concatenate((vel, acc, [dw]))
 
     def hit_ground(t, s):
         return s[2] - ground
@@ -211,14 +241,14 @@ def reference_flight(sc, rtol, atol, vacuum=False):
     az = math.radians(la["azimuth"])
     v0 = la["speed"]
     s0 = [0.0, 0.0, la["height"],
-          v0 * math.cos(el) * math.sin(az), v0 * math.cos(el) * math.cos(az), v0 * math.sin(el)]
+          v0 * math.cos(el) * math.sin(az), v0 * math.cos(el) * math.cos(az), v0 * math.sin(el), w0]
     t_max = sc["solver"]["max_time"]
     sol = solve_ivp(rhs, (0.0, t_max), s0, method="DOP853", rtol=rtol, atol=atol,
                     events=(hit_ground, apex))
     if sol.status != 1 or len(sol.t_events[0]) != 1:
         raise RuntimeError("reference flight did not reach the ground: %s" % sol.message)
     t_imp = sol.t_events[0][0]
-    x, y, z, vx, vy, vz = sol.y_events[0][0]
+    x, y, z, vx, vy, vz, w_imp = sol.y_events[0][0]
     # Apex: the highest point, i.e. the launch height or the highest vz = 0 crossing (a horizontal
     # launch starts at its apex).
     apex_z = max([la["height"]] + [e[2] for e in sol.y_events[1]])
@@ -230,6 +260,7 @@ def reference_flight(sc, rtol, atol, vacuum=False):
         "apex_height": apex_z,
         "impact_speed": math.sqrt(vx * vx + vy * vy + vz * vz),
         "impact_angle": math.degrees(math.atan2(-vz, math.hypot(vx, vy))),
+        "landing_spin_rate": w_imp * 60.0 / (2.0 * math.pi),
         "_nfev": sol.nfev,
     }
 
@@ -291,7 +322,34 @@ SCENARIO_SPIN = {
     "solver": {"rtol": 1e-10, "atol": 1e-9, "max_time": 2000},
 }
 
-SCENARIOS = [("ball", SCENARIO_BALL), ("fragment", SCENARIO_FRAGMENT), ("spinning ball", SCENARIO_SPIN)]
+# 4. A ball struck north with a 3-D spin vector (east-north-up: backspin about the east axis, a spin
+#    component along the flight that gives no lift, and an upward component that curves it left), the lift
+#    fit of [Sawicki03], and the air-torque spin decay of [Smits94], in a cross wind from the east: S and the
+#    lift change along the flight as the ball slows and the spin decays (values invented).
+SCENARIO_SPIN_FIT = {
+    "name": "reference: ball with a 3-D spin vector, the Sawicki lift fit and air-torque spin decay",
+    "projectile": {"mass": 0.145, "diameter": 0.0737, "drag": {"model": "constant", "cd": 0.33},
+                   "lift": {"model": "sawicki2003"}, "spin_decay_coefficient": 3e-5},
+    "launch": {"speed": 46.0, "elevation": 28.0, "azimuth": 0.0, "height": 1.0,
+               "spin": {"vector": [2000.0, 600.0, 300.0]}},
+    "environment": {
+        "gravity": 9.80665,
+        "atmosphere": {"model": "isa", "site_elevation": 1600.0, "temperature_offset": 8.0},
+        "wind": {"model": "log", "speed": 6.0, "from": 90.0, "ref_height": 10.0,
+                 "roughness": 0.03},
+    },
+    "ground": {"elevation": 0.0},
+    "solver": {"rtol": 1e-10, "atol": 1e-9, "max_time": 2000},
+}
+
+# 5. The ball of scenario 3 with its spin decaying exponentially and the lift fit (values invented).
+SCENARIO_SPIN_DECAY = json.loads(json.dumps(SCENARIO_SPIN))
+SCENARIO_SPIN_DECAY["name"] = "reference: ball with exponentially decaying tilted backspin and the lift fit"
+SCENARIO_SPIN_DECAY["projectile"]["lift"] = {"model": "sawicki2003"}
+SCENARIO_SPIN_DECAY["launch"]["spin"]["decay_time"] = 12.0
+
+SCENARIOS = [("ball", SCENARIO_BALL), ("fragment", SCENARIO_FRAGMENT), ("spinning ball", SCENARIO_SPIN),
+             ("spin vector with lift fit", SCENARIO_SPIN_FIT), ("decaying spin", SCENARIO_SPIN_DECAY)]
 
 KEYS = ["range", "downrange", "crossrange", "time_of_flight", "apex_height", "impact_speed",
         "impact_angle"]
@@ -312,6 +370,7 @@ ABS_FLOOR = {
     "time_of_flight": 1e-6,                                                     # s
     "impact_speed": 1e-6,                                                       # m/s
     "impact_angle": 1e-6,                                                       # deg
+    "landing_spin_rate": 1e-6,                                                  # rpm
 }
 
 # The reference integrates at rtol = atol = 1e-12 (DOP853's error estimate is reliable down to a few
@@ -458,7 +517,7 @@ def reference_converged(tally, label, sc):
     coarse = reference_flight(sc, REF_TOL_COARSE, REF_TOL_COARSE)
     print("     %s: reference DOP853 used %d (rtol 1e-12) and %d (rtol 1e-10) evaluations"
           % (label, fine["_nfev"], coarse["_nfev"]))
-    for k in KEYS:
+    for k in KEYS + ["landing_spin_rate"]:
         tally.check("%s reference converged %s" % (label, k), coarse[k], fine[k],
                     CONVERGENCE_FRACTION * tolerance(k, fine[k]), "rtol1e-10", "rtol1e-12")
     return fine
@@ -492,7 +551,8 @@ def run_dragarc(tally, binary, workdir, label, sc, ref):
         tally.fail("%s dragarc JSON" % label, "%s; stdout:\n%s\nstderr:\n%s"
                    % (e, proc.stdout[:2000], proc.stderr))
         return
-    for k in KEYS:
+    keys = KEYS + (["landing_spin_rate"] if "landing_spin_rate" in summary else [])
+    for k in keys:
         try:
             got = summary_value(summary, k)
         except (KeyError, ValueError, TypeError) as e:

@@ -18,16 +18,17 @@
 #include "check.h"
 #include "numerics/dop853.h"
 
-static int powers(double t, const double y[6], double f[6], void *user)
+static int powers(double t, const double y[DOP853_N], double f[DOP853_N], void *user)
 {
     (void)y, (void)user;
     for (int i = 0; i < 6; i++)
         f[i] = pow(t, 7 - i); /* y_i' = t^(7 - i): degrees 7 down to 2 */
+    f[6] = 0.0;
     return 0;
 }
 
 /* One step of exactly h from (t0, y0) with the error test switched off (huge tolerances). */
-static void one_step(dop853 *s, dop853_rhs f, double t0, const double y0[6], double h)
+static void one_step(dop853 *s, dop853_rhs f, double t0, const double y0[DOP853_N], double h)
 {
     CHECK(dop853_init(s, f, NULL, 1e30, 1e30, t0, y0, t0 + h) == DOP853_OK);
     s->h = h;
@@ -38,20 +39,21 @@ static void one_step(dop853 *s, dop853_rhs f, double t0, const double y0[6], dou
 TEST(one_step_integrates_polynomials_up_to_degree_seven_exactly)
 {
     dop853 s;
-    const double y0[6] = {0};
+    const double y0[DOP853_N] = {0};
     one_step(&s, powers, 0.0, y0, 1.0);
     for (int i = 0; i < 6; i++)
         CHECK_ABS(s.y[i], 1.0 / (8 - i), 4e-16);
+    CHECK(s.y[6] == 0.0);
 }
 
 TEST(continuous_extension_integrates_degree_six_exactly_inside_the_step)
 {
     dop853 s;
-    const double y0[6] = {0};
+    const double y0[DOP853_N] = {0};
     one_step(&s, powers, 0.0, y0, 1.0);
     CHECK(dop853_dense(&s) == DOP853_OK);
     for (double th = 0.0; th <= 1.0; th += 0.125) {
-        double y[6];
+        double y[DOP853_N];
         dop853_dense_eval(&s, th, y);
         /* y_1' = t^6: the continuous extension is of order 7, so exact; y_0' = t^7 is not expected to be. */
         for (int i = 1; i < 6; i++)
@@ -60,20 +62,21 @@ TEST(continuous_extension_integrates_degree_six_exactly_inside_the_step)
     }
 }
 
-static int oscillator(double t, const double y[6], double f[6], void *user)
+static int oscillator(double t, const double y[DOP853_N], double f[DOP853_N], void *user)
 {
     (void)t, (void)user;
     for (int i = 0; i < 3; i++) {
         f[i] = y[i + 3];
         f[i + 3] = -y[i];
     }
+    f[6] = 0.0;
     return 0;
 }
 
 static void oscillator_errors(double h, double *step_err, double *dense_err)
 {
     const double t0 = 0.3;
-    double y0[6] = {cos(t0), 2.0 * cos(t0), 0.0, -sin(t0), -2.0 * sin(t0), 0.0};
+    double y0[DOP853_N] = {cos(t0), 2.0 * cos(t0), 0.0, -sin(t0), -2.0 * sin(t0), 0.0};
     dop853 s;
     one_step(&s, oscillator, t0, y0, h);
     *step_err = fabs(s.y[0] - cos(t0 + h)) + fabs(s.y[3] + sin(t0 + h));
@@ -97,7 +100,7 @@ TEST(adaptive_steps_meet_the_tolerance_over_ten_periods)
 {
     /* Global error over t = 0..20 pi at rtol = atol = 1e-10: bounded by a small multiple of the tolerance
      * times the number of steps (errors add up at most linearly for this non-dissipative problem). */
-    double y0[6] = {1.0, 0.0, 0.0, 0.0, 1.0, 0.0};
+    double y0[DOP853_N] = {1.0, 0.0, 0.0, 0.0, 1.0, 0.0};
     dop853 s;
     const double tend = 20.0 * 3.14159265358979323846;
     CHECK(dop853_init(&s, oscillator, NULL, 1e-10, 1e-10, 0.0, y0, tend) == DOP853_OK);
@@ -111,7 +114,7 @@ TEST(adaptive_steps_meet_the_tolerance_over_ten_periods)
     CHECK(s.nsteps < 250); /* an eighth-order method: under 20 steps a period at this tolerance (174 seen) */
 }
 
-static double cap_at(double t, const double y[6], const double f[6], double h, void *user)
+static double cap_at(double t, const double y[DOP853_N], const double f[DOP853_N], double h, void *user)
 {
     (void)t, (void)y, (void)f;
     return fmin(h, *(const double *)user);
@@ -119,7 +122,7 @@ static double cap_at(double t, const double y[6], const double f[6], double h, v
 
 TEST(a_step_limit_shortens_the_step_and_the_proposal_survives_it)
 {
-    double y0[6] = {1.0, 0.0, 0.0, 0.0, 1.0, 0.0}, cap = 1e-3;
+    double y0[DOP853_N] = {1.0, 0.0, 0.0, 0.0, 1.0, 0.0}, cap = 1e-3;
     dop853 s;
     CHECK(dop853_init(&s, oscillator, &cap, 1e-8, 1e-8, 0.0, y0, 10.0) == DOP853_OK);
     s.limit = cap_at;
@@ -128,19 +131,19 @@ TEST(a_step_limit_shortens_the_step_and_the_proposal_survives_it)
     CHECK(s.h > 1e-2); /* the next proposal is the error control's, not the cut step grown by at most 6 */
 }
 
-static int fails_above(double t, const double y[6], double f[6], void *user)
+static int fails_above(double t, const double y[DOP853_N], double f[DOP853_N], void *user)
 {
     (void)t;
     if (y[0] > *(const double *)user)
         return -1;
-    for (int i = 0; i < 6; i++)
+    for (int i = 0; i < DOP853_N; i++)
         f[i] = 1.0;
     return 0;
 }
 
 TEST(failed_evaluations_are_retried_shorter_then_reported)
 {
-    double y0[6] = {0}, wall = 0.5;
+    double y0[DOP853_N] = {0}, wall = 0.5;
     dop853 s;
     CHECK(dop853_init(&s, fails_above, &wall, 1e-8, 1e-8, 0.0, y0, 10.0) == DOP853_OK);
     s.h = 2.0; /* would step past the wall */
@@ -154,7 +157,7 @@ TEST(failed_evaluations_are_retried_shorter_then_reported)
 
 TEST(stepping_at_the_end_time_is_refused)
 {
-    double y0[6] = {1.0, 0.0, 0.0, 0.0, 1.0, 0.0};
+    double y0[DOP853_N] = {1.0, 0.0, 0.0, 0.0, 1.0, 0.0};
     dop853 s;
     CHECK(dop853_init(&s, oscillator, NULL, 1e-8, 1e-8, 0.0, y0, 0.5) == DOP853_OK);
     while (s.t < 0.5)
