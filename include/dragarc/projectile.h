@@ -13,6 +13,10 @@
 extern "C" {
 #endif
 
+/* The largest inertia factor accepted: 2/3 (a thin shell, the most a ball's mass can hold away from its
+ * centre) written to three digits, so that 0.667 is read as the shell. */
+#define DRAGARC_INERTIA_FACTOR_MAX 0.667
+
 typedef struct dragarc_projectile {
     char name[64];      /* profile name or "" */
     double mass;        /* kg, > 0 */

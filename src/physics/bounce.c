@@ -39,6 +39,7 @@
 #include <math.h>
 
 #include "dragarc/bounce.h"
+#include "dragarc/projectile.h"
 
 static double dot3(const double a[3], const double b[3]) { return a[0] * b[0] + a[1] * b[1] + a[2] * b[2]; }
 
@@ -78,9 +79,9 @@ int dragarc_sphere_check(const dragarc_sphere *s, dragarc_error *err)
     if (!(s->radius > 0.0 && isfinite(s->radius)))
         return dragarc_error_set(err, DRAGARC_EINVAL, "radius", "must be above 0 m (got %g)", s->radius);
     /* a shell, all mass at r, has the largest I of any sphere whose density depends only on the radius */
-    if (!(s->inertia_factor > 0.0 && s->inertia_factor <= DRAGARC_INERTIA_SHELL))
+    if (!(s->inertia_factor > 0.0 && s->inertia_factor <= DRAGARC_INERTIA_FACTOR_MAX))
         return dragarc_error_set(err, DRAGARC_EINVAL, "inertia_factor",
-                                 "must be above 0 and at most 2/3, a thin shell (got %g)", s->inertia_factor);
+                                 "must be above 0 and at most 0.667 (2/3, a thin shell) (got %g)", s->inertia_factor);
     return DRAGARC_OK;
 }
 

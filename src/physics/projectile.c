@@ -22,9 +22,9 @@ int dragarc_projectile_check(const dragarc_projectile *p, dragarc_error *err)
     if (!(p->spin_decay_coefficient >= 0.0 && p->spin_decay_coefficient <= 1e-2))
         return dragarc_error_set(err, DRAGARC_EINVAL, "spin_decay_coefficient", "must be between 0 and 0.01 (got %g)",
                                  p->spin_decay_coefficient);
-    if (!(p->inertia_factor == 0.0 || (p->inertia_factor > 0.0 && p->inertia_factor <= 2.0 / 3.0 + 1e-12)))
+    if (!(p->inertia_factor == 0.0 || (p->inertia_factor > 0.0 && p->inertia_factor <= DRAGARC_INERTIA_FACTOR_MAX)))
         return dragarc_error_set(err, DRAGARC_EINVAL, "inertia_factor",
-                                 "must be above 0 and at most 2/3, a thin shell (got %g)", p->inertia_factor);
+                                 "must be above 0 and at most 0.667 (2/3, a thin shell) (got %g)", p->inertia_factor);
     int rc = dragarc_lift_check(&p->lift, err);
     if (rc != DRAGARC_OK) {
         dragarc_error_prefix(err, "lift");
