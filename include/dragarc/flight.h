@@ -56,7 +56,14 @@ typedef struct dragarc_flight {
     double launch_energy;  /* J */
     double terminal_speed; /* m/s in still air at the launch height; NaN when there is none */
     double vacuum_range;   /* m, same launch without air to the same ground; NaN if it never lands */
-    double impact[7];      /* state at impact: position (m), velocity (m/s), spin rate (rad/s) */
+    double impact[7];      /* state at (first) impact: position (m), velocity (m/s), spin rate (rad/s) */
+    /* after the first impact (ground.surface): bounces and roll-out. Without a surface the ball stops where
+     * it lands: bounces 0, total_distance = range, rest_position = the impact point, rest_time = time_of_flight */
+    int bounces;              /* impacts after the first that ended in another flight */
+    double total_distance;    /* m, horizontal distance launch -> where the ball comes to rest */
+    double rest_position[2];  /* m, east and north of the launch point */
+    double rest_time;         /* s, launch -> rest */
+    double roll_distance;     /* m, rolled (and slid) on the ground after the last bounce */
     double max_mach;
     double max_reynolds;
     double relaxation_time; /* s, terminal_speed / g: how fast drag acts; NaN without drag */

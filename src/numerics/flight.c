@@ -1009,6 +1009,9 @@ int dragarc_flight_run(const dragarc_scenario *s, double dt, dragarc_flight *out
     out->impact_speed = sqrt(vh * vh + out->impact[5] * out->impact[5]);
     out->impact_angle = atan2(-out->impact[5], vh);
     out->impact_energy = 0.5 * s->projectile.mass * out->impact_speed * out->impact_speed;
+    out->total_distance = out->range;
+    out->rest_position[0] = ex, out->rest_position[1] = ny;
+    out->rest_time = t;
     if (out->impact_energy >= 15.0)
         out->notes |= DRAGARC_NOTE_HIGH_ENERGY;
     if (s->launch.spin_rate > 0.0)
