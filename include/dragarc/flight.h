@@ -42,6 +42,20 @@ enum {
     DRAGARC_NOTE_BALL = 1u << 5           /* a spinning ball (launch.spin): a sports flight near people */
 };
 
+/* One landing of a ball on a ground surface (ground.surface): the state just before and just after it. */
+typedef struct dragarc_landing {
+    double t;          /* s since launch */
+    double pos[2];     /* m, east and north of the launch point */
+    double speed_in;   /* m/s, ground-relative, before */
+    double angle_in;   /* rad below horizontal, before */
+    double spin_in;    /* rad/s, before */
+    double speed_out;  /* m/s, after */
+    double angle_out;  /* rad above horizontal, after */
+    double spin_out;   /* rad/s, after */
+    int grips;         /* 1 when friction stopped the contact point's slip during the impact */
+    int rolls;         /* 1 for the last landing: the ball stays on the ground and rolls out */
+} dragarc_landing;
+
 typedef struct dragarc_flight {
     /* summary */
     double range;          /* m, horizontal distance launch -> impact */
@@ -64,6 +78,8 @@ typedef struct dragarc_flight {
     double rest_position[2];  /* m, east and north of the launch point */
     double rest_time;         /* s, launch -> rest */
     double roll_distance;     /* m, rolled (and slid) on the ground after the last bounce */
+    size_t nlandings;         /* landings on the surface (bounces + 1), 0 without a surface */
+    dragarc_landing *landings; /* owned: dragarc_flight_clear */
     double max_mach;
     double max_reynolds;
     double relaxation_time; /* s, terminal_speed / g: how fast drag acts; NaN without drag */

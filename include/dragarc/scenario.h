@@ -12,6 +12,7 @@
 #include <stddef.h>
 
 #include "dragarc/atmosphere.h"
+#include "dragarc/bounce.h"
 #include "dragarc/dragarc.h"
 #include "dragarc/projectile.h"
 #include "dragarc/wind.h"
@@ -56,6 +57,9 @@ typedef struct dragarc_scenario {
     dragarc_atmosphere atmosphere;
     dragarc_wind wind;             /* owned */
     double ground_elevation;       /* m above the site datum: the impact plane */
+    int ground_surface_given;      /* 1: the ball bounces and rolls on `surface` after landing */
+    dragarc_surface surface;       /* ground.surface */
+    dragarc_bounce_limits bounce;  /* ground.bounce: when the bouncing stops (defaults 5 mm, 50) */
     dragarc_solver_options solver;
 } dragarc_scenario;
 

@@ -175,6 +175,17 @@ void cli_print_flight(FILE *fp, const char *label, const dragarc_scenario *s, co
             SHOW("impact_speed", DRAGARC_Q_SPEED, f->impact_speed), UNIT("impact_speed", DRAGARC_Q_SPEED),
             SHOW("impact_angle", DRAGARC_Q_ANGLE, f->impact_angle * DEG), strcmp(iangle, "degree") == 0 ? "deg" : iangle,
             SHOW("impact_energy", DRAGARC_Q_ENERGY, f->impact_energy), UNIT("impact_energy", DRAGARC_Q_ENERGY));
+    if (s->ground_surface_given) {
+        double rest_cross = f->rest_position[0] * cos(s->launch.azimuth) - f->rest_position[1] * sin(s->launch.azimuth);
+        double shown = SHOW("crossrange", DRAGARC_Q_LENGTH, rest_cross);
+        fprintf(fp, "  after landing   %d bounce%s, then %.2f %s of roll; at rest %.2f %s from launch (%.2f %s %s) "
+                "after %.3f %s\n",
+                f->bounces, f->bounces == 1 ? "" : "s", SHOW("roll_distance", DRAGARC_Q_LENGTH, f->roll_distance),
+                UNIT("roll_distance", DRAGARC_Q_LENGTH), SHOW("total_distance", DRAGARC_Q_LENGTH, f->total_distance),
+                UNIT("total_distance", DRAGARC_Q_LENGTH), fabs(shown), UNIT("crossrange", DRAGARC_Q_LENGTH),
+                shown >= -0.005 ? "right" : "left", SHOW("rest_time", DRAGARC_Q_TIME, f->rest_time),
+                UNIT("rest_time", DRAGARC_Q_TIME));
+    }
     if (s->launch.spin_rate > 0.0)
         fprintf(fp, "  spin at landing %.4g %s\n", SHOW("spin_rate", DRAGARC_Q_ANGULAR_SPEED, f->impact[6] * RPM),
                 UNIT("spin_rate", DRAGARC_Q_ANGULAR_SPEED));

@@ -62,7 +62,8 @@ static cJSON *vec3_shown(cJSON *units, const dragarc_display *d, const char *key
 {
     const dragarc_unit_out *u = dragarc_display_unit(d, key, q);
     double w[3] = {dragarc_display_value(u, v[0]), dragarc_display_value(u, v[1]), dragarc_display_value(u, v[2])};
-    cJSON_AddStringToObject(units, key, u->symbol);
+    if (!cJSON_GetObjectItemCaseSensitive(units, key))
+        cJSON_AddStringToObject(units, key, u->symbol);
     return vec3(w);
 }
 
@@ -96,6 +97,31 @@ char *dragarc_flight_json(const dragarc_scenario *s, const dragarc_flight *f, co
     cJSON_AddItemToObject(sum, "impact_position", vec3_shown(un, d, "impact_position", DRAGARC_Q_LENGTH, f->impact));
     cJSON_AddItemToObject(sum, "impact_velocity",
                           vec3_shown(un, d, "impact_velocity", DRAGARC_Q_SPEED, f->impact + 3));
+    if (s->ground_surface_given) {
+        cJSON_AddNumberToObject(sum, "bounces", f->bounces);
+        add_shown(sum, un, d, "total_distance", DRAGARC_Q_LENGTH, f->total_distance);
+        add_shown(sum, un, d, "roll_distance", DRAGARC_Q_LENGTH, f->roll_distance);
+        add_shown(sum, un, d, "rest_time", DRAGARC_Q_TIME, f->rest_time);
+        double rest[3] = {f->rest_position[0], f->rest_position[1], s->ground_elevation};
+        cJSON_AddItemToObject(sum, "rest_position", vec3_shown(un, d, "rest_position", DRAGARC_Q_LENGTH, rest));
+        cJSON *ls = cJSON_AddArrayToObject(doc, "landings");
+        for (size_t i = 0; i < f->nlandings; i++) {
+            const dragarc_landing *L = &f->landings[i];
+            cJSON *o = cJSON_CreateObject();
+            double pos[3] = {L->pos[0], L->pos[1], s->ground_elevation};
+            add_shown(o, un, d, "time", DRAGARC_Q_TIME, L->t);
+            cJSON_AddItemToObject(o, "position", vec3_shown(un, d, "position", DRAGARC_Q_LENGTH, pos));
+            add_shown(o, un, d, "speed_in", DRAGARC_Q_SPEED, L->speed_in);
+            add_shown(o, un, d, "angle_in", DRAGARC_Q_ANGLE, L->angle_in / DRAGARC_DEG);
+            add_shown(o, un, d, "spin_in", DRAGARC_Q_ANGULAR_SPEED, L->spin_in * 60.0 / (2.0 * DRAGARC_PI));
+            add_shown(o, un, d, "speed_out", DRAGARC_Q_SPEED, L->speed_out);
+            add_shown(o, un, d, "angle_out", DRAGARC_Q_ANGLE, L->angle_out / DRAGARC_DEG);
+            add_shown(o, un, d, "spin_out", DRAGARC_Q_ANGULAR_SPEED, L->spin_out * 60.0 / (2.0 * DRAGARC_PI));
+            cJSON_AddStringToObject(o, "contact", L->grips ? "grips" : "slides");
+            cJSON_AddStringToObject(o, "then", L->rolls ? "rolls" : "bounces");
+            cJSON_AddItemToArray(ls, o);
+        }
+    }
     if (s->launch.spin_rate > 0.0)
         add_shown(sum, un, d, "landing_spin_rate", DRAGARC_Q_ANGULAR_SPEED, f->impact[6] * 60.0 / (2.0 * DRAGARC_PI));
     add_num(sum, "max_mach", f->max_mach);

@@ -223,6 +223,7 @@ static const struct {
     {"environment.wind.layers[].speed", DRAGARC_Q_SPEED},
     {"environment.wind.layers[].from", DRAGARC_Q_ANGLE},
     {"ground.elevation", DRAGARC_Q_LENGTH},
+    {"ground.bounce.min_height", DRAGARC_Q_LENGTH},
     {"solver.max_time", DRAGARC_Q_TIME},
 };
 
@@ -610,6 +611,71 @@ static int read_projectile(const cJSON *j, const char *base_dir, const char *pro
 
 /* ---- launch, environment, ground, solver ----------------------------------------------------- */
 
+/* Named ground surfaces. INVENTED EXAMPLES, not measurements: they show the form and give plausible
+ * orders of magnitude for trying the model; give measured values for real work (docs/scenario.md). */
+static const struct {
+    const char *name;
+    dragarc_surface surface;
+} SURFACE_EXAMPLES[] = {
+    {"example-firm-turf", {0.4, 0.4, 0.25, 0.0}},
+    {"example-soft-wet-grass", {0.2, 0.5, 0.4, 0.0}},
+    {"example-smooth-pavement", {0.7, 0.6, 0.02, 0.0}},
+};
+
+/* ground.surface: {"restitution", "friction", "rolling_resistance", "tangential_restitution"} or the name of
+ * an example; ground.bounce: {"min_height", "max_bounces"}. */
+static int read_ground(const cJSON *g, dragarc_scenario *s, dragarc_error *err)
+{
+    static const char *const gkeys[] = {"elevation", "surface", "bounce", NULL};
+    TRY(want_object(g, "ground", err));
+    TRY(check_keys(g, "ground", gkeys, err));
+    TRY(get_number(g, "ground", "elevation", 0, &s->ground_elevation, NULL, err));
+    const cJSON *sf = cJSON_GetObjectItemCaseSensitive(g, "surface");
+    if (sf && cJSON_IsString(sf)) {
+        size_t n = sizeof SURFACE_EXAMPLES / sizeof *SURFACE_EXAMPLES, i;
+        for (i = 0; i < n && strcmp(sf->valuestring, SURFACE_EXAMPLES[i].name) != 0; i++)
+            ;
+        if (i == n)
+            return dragarc_error_set(err, DRAGARC_EINVAL, "ground.surface",
+                                     "no example surface named \"%s\" (example-firm-turf, example-soft-wet-grass, "
+                                     "example-smooth-pavement), and no object of surface values",
+                                     sf->valuestring);
+        s->surface = SURFACE_EXAMPLES[i].surface;
+        s->ground_surface_given = 1;
+    } else if (sf) {
+        static const char *const keys[] = {"restitution", "friction", "rolling_resistance", "tangential_restitution",
+                                           "source", NULL};
+        if (!cJSON_IsObject(sf))
+            return dragarc_error_set(err, DRAGARC_EINVAL, "ground.surface",
+                                     "must be an object of surface values or the name of an example surface, not %s",
+                                     type_name(sf));
+        TRY(check_keys(sf, "ground.surface", keys, err));
+        TRY(check_source(sf, "ground.surface", err));
+        TRY(get_number(sf, "ground.surface", "restitution", 1, &s->surface.restitution, NULL, err));
+        TRY(get_number(sf, "ground.surface", "friction", 1, &s->surface.friction, NULL, err));
+        TRY(get_number(sf, "ground.surface", "rolling_resistance", 1, &s->surface.rolling_resistance, NULL, err));
+        TRY(get_number(sf, "ground.surface", "tangential_restitution", 0, &s->surface.tangential_restitution, NULL,
+                       err));
+        s->ground_surface_given = 1;
+    }
+    const cJSON *b = cJSON_GetObjectItemCaseSensitive(g, "bounce");
+    if (b) {
+        static const char *const keys[] = {"min_height", "max_bounces", NULL};
+        TRY(want_object(b, "ground.bounce", err));
+        TRY(check_keys(b, "ground.bounce", keys, err));
+        if (!sf)
+            return dragarc_error_set(err, DRAGARC_EINVAL, "ground.bounce", "needs a ground.surface to bounce on");
+        double mb = s->bounce.max_bounces;
+        TRY(get_number(b, "ground.bounce", "min_height", 0, &s->bounce.min_height, NULL, err));
+        TRY(get_number(b, "ground.bounce", "max_bounces", 0, &mb, NULL, err));
+        if (!(mb >= 1.0 && mb <= 1000.0 && mb == floor(mb)))
+            return dragarc_error_set(err, DRAGARC_EINVAL, "ground.bounce.max_bounces",
+                                     "must be a whole number from 1 to 1000 (got %g)", mb);
+        s->bounce.max_bounces = (int)mb;
+    }
+    return DRAGARC_OK;
+}
+
 /* launch.spin: {"rate": rpm, "tilt": degrees} or {"vector": [east, north, up] in rpm}, and "decay_time": s. */
 static int read_spin(const cJSON *j, dragarc_launch *l, dragarc_error *err)
 {
@@ -890,12 +956,8 @@ static int read_scenario(const cJSON *root, const char *base_dir, const char *pr
     if (e)
         TRY(read_environment(e, s, err));
     const cJSON *g = cJSON_GetObjectItemCaseSensitive(root, "ground");
-    if (g) {
-        static const char *const gkeys[] = {"elevation", NULL};
-        TRY(want_object(g, "ground", err));
-        TRY(check_keys(g, "ground", gkeys, err));
-        TRY(get_number(g, "ground", "elevation", 0, &s->ground_elevation, NULL, err));
-    }
+    if (g)
+        TRY(read_ground(g, s, err));
     const cJSON *so = cJSON_GetObjectItemCaseSensitive(root, "solver");
     if (so)
         TRY(read_solver(so, &s->solver, err));

@@ -129,6 +129,7 @@ void dragarc_flight_clear(dragarc_flight *f)
     if (!f)
         return;
     free(f->points);
+    free(f->landings);
     memset(f, 0, sizeof *f);
 }
 
@@ -928,6 +929,144 @@ static int integrate_dop853(const dragarc_scenario *s, flight_ctx *cx, double dt
     }
 }
 
+/* Spin about the unit vector axis at rate (rad/s; NULL or 0: none). The spin rate joins the state only when
+ * something acts on it or through it. */
+static void set_spin(const dragarc_scenario *s, flight_ctx *c, const double axis[3], double rate)
+{
+    dragarc_forces_spin(&c->forces, rate > 0.0 ? axis : NULL, s->launch.spin_decay_time);
+    int spin_matters = rate > 0.0 && (s->projectile.lift.model != DRAGARC_LIFT_NONE || s->launch.spin_decay_time > 0.0 ||
+                                      s->projectile.spin_decay_coefficient > 0.0);
+    c->n = spin_matters ? NS : 6;
+    c->spin0 = rate;
+}
+
+/* Fly from y0 (at local time 0) to the ground with the given method. */
+static int integrate(const dragarc_scenario *s, flight_ctx *c, dragarc_method method, double dt, const double y0[NS],
+                     dragarc_flight *out, size_t *cap, double *t, dragarc_error *err)
+{
+    int rc;
+    if (method == DRAGARC_METHOD_DOP853) {
+        rc = integrate_dop853(s, c, dt, y0, out, cap, t, err);
+        free(c->breaks);
+        c->breaks = NULL;
+        c->nbreaks = 0;
+    } else if (method == DRAGARC_METHOD_RK8PD) {
+        rc = integrate_rk(s, c, dt, y0, out, cap, t, err);
+    } else {
+        rc = integrate_cvode(s, c, method, dt, y0, out, cap, t, err);
+    }
+    if (rc == DRAGARC_OK && c->n < NS)
+        out->impact[6] = c->spin0;
+    return rc;
+}
+
+/* Append the samples of a rebound flight `seg` (its times from 0) to `out`, shifted to start at t0. */
+static int append_segment(dragarc_flight *out, size_t *cap, const dragarc_flight *seg, double t0)
+{
+    if (out->npoints + seg->npoints > *cap) {
+        size_t nc = out->npoints + seg->npoints + 64;
+        dragarc_flight_point *np = realloc(out->points, nc * sizeof *np);
+        if (!np)
+            return DRAGARC_ENOMEM;
+        out->points = np;
+        *cap = nc;
+    }
+    for (size_t i = 0; i < seg->npoints; i++) {
+        dragarc_flight_point p = seg->points[i];
+        p.t += t0;
+        out->points[out->npoints++] = p;
+    }
+    return DRAGARC_OK;
+}
+
+/* After the first landing on a ground surface: each landing resolved by the rigid-sphere impact of bounce.h,
+ * each rebound flown like the launch (same method, spin about the axis the impact leaves), until a rebound is
+ * too low or too many; then the slide and roll-out to rest. The summary of the first flight stays as it is. */
+static int bounce_and_roll(const dragarc_scenario *s, flight_ctx *c, dragarc_method method, double dt,
+                           dragarc_flight *out, size_t *cap, double t_land, dragarc_error *err)
+{
+    const dragarc_sphere ball = {0.5 * s->projectile.diameter,
+                                 s->projectile.inertia_factor > 0.0 ? s->projectile.inertia_factor : DRAGARC_INERTIA_SOLID};
+    double state[NS];
+    memcpy(state, out->impact, sizeof state);
+    double t = t_land;
+    int rc = DRAGARC_OK;
+    out->landings = calloc((size_t)s->bounce.max_bounces + 1, sizeof *out->landings);
+    if (!out->landings)
+        return dragarc_error_set(err, DRAGARC_ENOMEM, "", "out of memory for the landings");
+    for (int count = 1;; count++) {
+        double v[3] = {state[3], state[4], state[5]}, w[3];
+        for (int i = 0; i < 3; i++)
+            w[i] = state[6] * c->forces.spin_axis[i];
+        dragarc_bounce b;
+        dragarc_bounce_next next;
+        rc = dragarc_bounce_land(&s->surface, &ball, &s->bounce, s->gravity, count, v, w, &b, &next, err);
+        if (rc != DRAGARC_OK) {
+            dragarc_error_prefix(err, "ground.surface");
+            return rc;
+        }
+        dragarc_landing *L = &out->landings[out->nlandings++];
+        double vh = hypot(v[0], v[1]), vh2 = hypot(b.velocity[0], b.velocity[1]);
+        L->t = t;
+        L->pos[0] = state[0], L->pos[1] = state[1];
+        L->speed_in = sqrt(vh * vh + v[2] * v[2]);
+        L->angle_in = atan2(-v[2], vh);
+        L->spin_in = state[6];
+        L->speed_out = sqrt(vh2 * vh2 + b.velocity[2] * b.velocity[2]);
+        L->angle_out = atan2(b.velocity[2], vh2);
+        L->spin_out = sqrt(b.spin[0] * b.spin[0] + b.spin[1] * b.spin[1] + b.spin[2] * b.spin[2]);
+        L->grips = b.regime == DRAGARC_BOUNCE_GRIPS;
+        if (next == DRAGARC_BOUNCE_ROLL) {
+            L->rolls = 1;
+            dragarc_roll roll;
+            rc = dragarc_bounce_roll(&s->surface, &ball, s->gravity, b.velocity, b.spin, &roll, err);
+            if (rc != DRAGARC_OK) {
+                dragarc_error_prefix(err, "ground.surface");
+                return rc;
+            }
+            out->rest_position[0] = state[0] + roll.offset[0];
+            out->rest_position[1] = state[1] + roll.offset[1];
+            out->rest_time = t + roll.time;
+            out->roll_distance = hypot(roll.offset[0], roll.offset[1]);
+            out->total_distance = hypot(out->rest_position[0], out->rest_position[1]);
+            /* one row where the ball comes to rest */
+            dragarc_flight_point p = {.t = out->rest_time,
+                                      .pos = {out->rest_position[0], out->rest_position[1], s->ground_elevation},
+                                      .mach = 0.0, .reynolds = 0.0, .drag_coefficient = NAN};
+            dragarc_flight one = {.npoints = 1, .points = &p};
+            if (append_segment(out, cap, &one, 0.0) != DRAGARC_OK)
+                return dragarc_error_set(err, DRAGARC_ENOMEM, "", "out of memory for trajectory samples");
+            return DRAGARC_OK;
+        }
+        /* the rebound: a new flight from the ground, spinning about the axis the impact left */
+        double rate = L->spin_out, axis[3] = {0.0, 0.0, 0.0};
+        if (rate > 0.0)
+            for (int i = 0; i < 3; i++)
+                axis[i] = b.spin[i] / rate;
+        set_spin(s, c, axis, rate);
+        double y0[NS] = {state[0], state[1], s->ground_elevation, b.velocity[0], b.velocity[1], b.velocity[2], rate};
+        dragarc_flight seg;
+        memset(&seg, 0, sizeof seg);
+        size_t segcap = 0;
+        double t_seg = 0.0;
+        rc = integrate(s, c, method, dt, y0, &seg, &segcap, &t_seg, err);
+        if (rc == DRAGARC_OK && (rc = append_segment(out, cap, &seg, t)) != DRAGARC_OK)
+            dragarc_error_set(err, DRAGARC_ENOMEM, "", "out of memory for trajectory samples");
+        if (rc == DRAGARC_OK) {
+            out->notes |= seg.notes;
+            out->max_mach = fmax(out->max_mach, seg.max_mach);
+            out->max_reynolds = fmax(out->max_reynolds, seg.max_reynolds);
+            out->steps += seg.steps;
+            out->bounces++;
+            memcpy(state, seg.impact, sizeof state);
+            t += t_seg;
+        }
+        dragarc_flight_clear(&seg);
+        if (rc != DRAGARC_OK)
+            return rc;
+    }
+}
+
 int dragarc_flight_run(const dragarc_scenario *s, double dt, dragarc_flight *out, dragarc_error *err)
 {
     memset(out, 0, sizeof *out);
@@ -947,14 +1086,10 @@ int dragarc_flight_run(const dragarc_scenario *s, double dt, dragarc_flight *out
             memcpy(axis, s->launch.spin_axis, sizeof axis);
         else
             dragarc_spin_axis(s->launch.spin_tilt, s->launch.azimuth, axis);
-        dragarc_forces_spin(&c.forces, axis, s->launch.spin_decay_time);
+        set_spin(s, &c, axis, s->launch.spin_rate);
+    } else {
+        set_spin(s, &c, NULL, 0.0);
     }
-    /* The spin rate joins the state only when something acts on it or through it. */
-    int spin_matters = s->launch.spin_rate > 0.0 &&
-                       (s->projectile.lift.model != DRAGARC_LIFT_NONE || s->launch.spin_decay_time > 0.0 ||
-                        s->projectile.spin_decay_coefficient > 0.0);
-    c.n = spin_matters ? NS : 6;
-    c.spin0 = s->launch.spin_rate;
     c.ceiling = s->atmosphere.model == DRAGARC_ATMOSPHERE_ISA ? DRAGARC_ISA_Z_MAX - s->atmosphere.site_elevation : INFINITY;
 
     double y0[NS];
@@ -987,18 +1122,9 @@ int dragarc_flight_run(const dragarc_scenario *s, double dt, dragarc_flight *out
 
     size_t cap = 0;
     double t = 0.0;
-    if (method == DRAGARC_METHOD_DOP853) {
-        rc = integrate_dop853(s, &c, dt, y0, out, &cap, &t, err);
-        free(c.breaks);
-    }
-    else if (method == DRAGARC_METHOD_RK8PD)
-        rc = integrate_rk(s, &c, dt, y0, out, &cap, &t, err);
-    else
-        rc = integrate_cvode(s, &c, method, dt, y0, out, &cap, &t, err);
+    rc = integrate(s, &c, method, dt, y0, out, &cap, &t, err);
     if (rc != DRAGARC_OK)
         return rc;
-    if (c.n < NS)
-        out->impact[6] = c.spin0;
     double ex = out->impact[0], ny = out->impact[1];
     double az = s->launch.azimuth;
     out->time_of_flight = t;
@@ -1012,6 +1138,8 @@ int dragarc_flight_run(const dragarc_scenario *s, double dt, dragarc_flight *out
     out->total_distance = out->range;
     out->rest_position[0] = ex, out->rest_position[1] = ny;
     out->rest_time = t;
+    if (s->ground_surface_given)
+        return bounce_and_roll(s, &c, method, dt, out, &cap, t, err);
     if (out->impact_energy >= 15.0)
         out->notes |= DRAGARC_NOTE_HIGH_ENERGY;
     if (s->launch.spin_rate > 0.0)

@@ -18,6 +18,10 @@ void dragarc_scenario_default(dragarc_scenario *s)
     s->solver.max_time = 3600.0;
     s->solver.max_steps = 1000000;
     s->solver.method = DRAGARC_METHOD_AUTO;
+    /* When the bouncing stops: numerical settings, not physics (docs/models.md): a rebound that would rise
+     * less than 5 mm, or the 50th impact, ends in the roll-out. */
+    s->bounce.min_height = 0.005;
+    s->bounce.max_bounces = 50;
 }
 
 int dragarc_scenario_check(const dragarc_scenario *s, dragarc_error *err)
@@ -51,6 +55,16 @@ int dragarc_scenario_check(const dragarc_scenario *s, dragarc_error *err)
     if (l->spin_decay_time > 0.0 && s->projectile.spin_decay_coefficient > 0.0)
         return dragarc_error_set(err, DRAGARC_EINVAL, "launch.spin.decay_time",
                                  "give either this or projectile.spin_decay_coefficient, not both");
+    if (s->ground_surface_given) {
+        if ((rc = dragarc_surface_check(&s->surface, err)) != DRAGARC_OK) {
+            dragarc_error_prefix(err, "ground.surface");
+            return rc;
+        }
+        if ((rc = dragarc_bounce_limits_check(&s->bounce, err)) != DRAGARC_OK) {
+            dragarc_error_prefix(err, "ground.bounce");
+            return rc;
+        }
+    }
     if (!isfinite(s->ground_elevation))
         return dragarc_error_set(err, DRAGARC_EINVAL, "ground.elevation", "must be a finite height in m");
     /* A launch below the impact plane (a throw up onto a terrace or roof) must climb through it. */

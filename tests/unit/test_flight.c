@@ -295,6 +295,97 @@ TEST(the_integrators_agree_on_a_decaying_spinning_flight)
         dragarc_flight_clear(&f[i]);
 }
 
+TEST(a_ball_dropped_in_a_vacuum_rebounds_to_e_squared_of_its_height)
+{
+    /* Newton's rule v_z' = -e v_z (Brody 1984, "That's how the ball bounces", Phys. Teach. 22:494; the model of
+     * bounce.h): dropped from h in a vacuum it lands at sqrt(2 g h), leaves at e sqrt(2 g h), so it is in the
+     * air 2 e sqrt(2 g h) / g before landing again and rises to e^2 h (closed forms). Each rebound repeats
+     * with one more factor e, until the rebound would rise less than ground.bounce.min_height. Tolerance
+     * 1e-9: the integration's (rtol 1e-11). */
+    dragarc_scenario s;
+    dragarc_flight f;
+    const double h = 2.0, e = 0.7, g = 9.80665;
+    make_scenario(&s, 0.0, 0.0577, 0.067, h, 0.0, 0.0, g, 1e-11);
+    s.ground_surface_given = 1;
+    s.surface.restitution = e;
+    s.surface.friction = 0.5;
+    s.surface.rolling_resistance = 0.1;
+    s.bounce.min_height = 0.01;
+    CHECK(dragarc_flight_run(&s, 0.01, &f, NULL) == DRAGARC_OK);
+    /* rebounds rise e^2 h, e^4 h, ...: 0.98, 0.48, 0.235, 0.115, 0.0565, 0.0277, 0.0136 m, then 0.0066 < 0.01 */
+    CHECK(f.bounces == 7 && f.nlandings == 8);
+    double v = sqrt(2.0 * g * h);
+    for (size_t i = 0; i + 1 < f.nlandings; i++) {
+        CHECK_ABS(f.landings[i].speed_in, v, 1e-9);
+        CHECK_ABS(f.landings[i].speed_out, e * v, 1e-9);
+        CHECK_ABS(f.landings[i + 1].t - f.landings[i].t, 2.0 * e * v / g, 1e-9);
+        v *= e;
+    }
+    /* the samples of the first rebound peak at e^2 h (sampled every 0.01 s: within g (0.005 s)^2 / 2) */
+    double top = 0.0;
+    for (size_t i = 0; i < f.npoints; i++)
+        if (f.points[i].t > f.landings[0].t && f.points[i].t < f.landings[1].t)
+            top = fmax(top, f.points[i].pos[2]);
+    printf("  first rebound peaks at %.6f m (e^2 h = %.6f m); %d bounces\n", top, e * e * h, f.bounces);
+    CHECK_ABS(top, e * e * h, 0.5 * g * 0.005 * 0.005 + 1e-9);
+    CHECK_ABS(f.total_distance, 0.0, 1e-12);
+    CHECK(f.landings[f.nlandings - 1].rolls == 1);
+    dragarc_flight_clear(&f);
+}
+
+TEST(a_ball_that_lands_gripping_rolls_out_as_the_closed_forms_say)
+{
+    /* Thrown level at u from height h in a vacuum onto a surface with e = 0 and ample friction: it lands at
+     * x = u sqrt(2 h / g), its contact point stops during the impact, and it leaves rolling at 5/7 u (a solid
+     * sphere without spin: Brody 1984; the rolling condition of bounce.h), then decelerates at mu_r g, so it
+     * rolls (5u/7)^2 / (2 mu_r g) further and rests after (5u/7) / (mu_r g) (closed forms). */
+    dragarc_scenario s;
+    dragarc_flight f;
+    const double h = 1.2, u = 6.0, g = 9.80665, mu_r = 0.3;
+    make_scenario(&s, 0.0, 0.16, 0.072, h, u, 0.0, g, 1e-11);
+    s.projectile.inertia_factor = 0.4;
+    s.ground_surface_given = 1;
+    s.surface.restitution = 0.0;
+    s.surface.friction = 2.0;
+    s.surface.rolling_resistance = mu_r;
+    CHECK(dragarc_flight_run(&s, 0.0, &f, NULL) == DRAGARC_OK);
+    double t1 = sqrt(2.0 * h / g), vr = 5.0 * u / 7.0;
+    CHECK(f.bounces == 0 && f.nlandings == 1 && f.landings[0].grips == 1);
+    CHECK_ABS(f.range, u * t1, 1e-9);
+    CHECK_ABS(f.roll_distance, vr * vr / (2.0 * mu_r * g), 1e-9);
+    CHECK_ABS(f.total_distance, u * t1 + vr * vr / (2.0 * mu_r * g), 1e-9);
+    CHECK_ABS(f.rest_time, t1 + vr / (mu_r * g), 1e-9);
+    CHECK_ABS(f.rest_position[0], 0.0, 1e-12); /* launched north: it stays on the line */
+    printf("  carry %.6f m, roll %.6f m, total %.6f m\n", f.range, f.roll_distance, f.total_distance);
+    dragarc_flight_clear(&f);
+}
+
+TEST(backspin_checks_a_ball_up_and_topspin_runs_it_on)
+{
+    /* The same carry with and without spin lift is not comparable, so the lift model is off: only the spin's
+     * effect at the ground is left. A backspinning ball's contact point slides forward fast, so friction takes
+     * more of its speed than a ball landing without spin; topspin leaves it faster (sign of the impulse in
+     * bounce.h, Cross 2002). */
+    dragarc_scenario s;
+    dragarc_flight none, back, top;
+    const double rpm[3] = {0.0, 3000.0, 3000.0}, tilt[3] = {0.0, 0.0, 180.0};
+    dragarc_flight *out[3] = {&none, &back, &top};
+    for (int i = 0; i < 3; i++) {
+        spinning_ball(&s, rpm[i], tilt[i], 0.0);
+        s.projectile.lift.model = DRAGARC_LIFT_NONE;
+        s.ground_surface_given = 1;
+        s.surface = (dragarc_surface){0.4, 0.4, 0.25, 0.0};
+        CHECK(dragarc_flight_run(&s, 0.0, out[i], NULL) == DRAGARC_OK);
+    }
+    printf("  run after landing: no spin %.2f m, backspin %.2f m, topspin %.2f m\n", none.total_distance - none.range,
+           back.total_distance - back.range, top.total_distance - top.range);
+    CHECK(none.range == back.range && none.range == top.range);
+    CHECK(back.total_distance < none.total_distance && top.total_distance > none.total_distance);
+    dragarc_flight_clear(&none);
+    dragarc_flight_clear(&back);
+    dragarc_flight_clear(&top);
+}
+
 TEST(downward_launch_has_its_apex_at_the_launch_point)
 {
     dragarc_scenario s;
@@ -483,6 +574,9 @@ int main(void)
     RUN(spin_about_the_direction_of_flight_gives_no_lift);
     RUN(the_spin_factor_and_lift_along_a_flight_follow_the_fit);
     RUN(the_integrators_agree_on_a_decaying_spinning_flight);
+    RUN(a_ball_dropped_in_a_vacuum_rebounds_to_e_squared_of_its_height);
+    RUN(a_ball_that_lands_gripping_rolls_out_as_the_closed_forms_say);
+    RUN(backspin_checks_a_ball_up_and_topspin_runs_it_on);
     RUN(downward_launch_has_its_apex_at_the_launch_point);
     RUN(landing_on_raised_ground_counts_only_the_descending_crossing);
     RUN(wind_from_the_left_pushes_the_impact_to_the_right);
