@@ -94,10 +94,11 @@ int dragarc_aim_table_write(FILE *fp, dragarc_table_format format, const char *s
                             const struct dragarc_aim_table_row *rows, size_t n, const dragarc_display *d,
                             dragarc_error *err);
 
-/* The `atmosphere --json` document for n altitudes (m) and their states, in the units of display d (NULL:
- * SI) named in "units". Caller frees with free(). */
-char *dragarc_atmosphere_json(const double *altitudes, const dragarc_air *levels, size_t n, double temperature_offset,
-                              const dragarc_display *d);
+/* The `atmosphere --json` document for atmosphere atm (isa: its temperature offset, n geometric altitudes in
+ * m; local: the site's weather, n heights above the site in m) and the states there, in the units of
+ * display d (NULL: SI) named in "units". Borrows everything; caller frees the text with free(). */
+char *dragarc_atmosphere_json(const dragarc_atmosphere *atm, const double *altitudes, const dragarc_air *levels,
+                              size_t n, const dragarc_display *d);
 
 /* ---- tables of flights (sweep.h; the formats are documented in docs/table.md) ---- */
 

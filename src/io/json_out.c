@@ -196,9 +196,10 @@ char *dragarc_aim_json(const dragarc_scenario *s, const dragarc_aim_request *req
     return finish(doc);
 }
 
-char *dragarc_atmosphere_json(const double *altitudes, const dragarc_air *levels, size_t n, double temperature_offset,
-                              const dragarc_display *d)
+char *dragarc_atmosphere_json(const dragarc_atmosphere *atm, const double *altitudes, const dragarc_air *levels,
+                              size_t n, const dragarc_display *d)
 {
+    int local = atm->model == DRAGARC_ATMOSPHERE_LOCAL;
     dragarc_display si;
     if (!d) {
         dragarc_display_si(&si);
@@ -208,13 +209,21 @@ char *dragarc_atmosphere_json(const double *altitudes, const dragarc_air *levels
     if (!doc)
         return NULL;
     cJSON *un = cJSON_CreateObject();
-    cJSON_AddStringToObject(doc, "model", "U.S. Standard Atmosphere 1976");
-    add_shown(doc, un, d, "temperature_offset", DRAGARC_Q_TEMPERATURE_DIFFERENCE, temperature_offset);
+    if (local) {
+        cJSON_AddStringToObject(doc, "model", "local");
+        add_shown(doc, un, d, "temperature", DRAGARC_Q_TEMPERATURE, atm->temperature);
+        add_shown(doc, un, d, "pressure", DRAGARC_Q_PRESSURE, atm->pressure);
+        add_num(doc, "relative_humidity", atm->relative_humidity);
+        cJSON_AddStringToObject(un, "relative_humidity", "1");
+    } else {
+        cJSON_AddStringToObject(doc, "model", "U.S. Standard Atmosphere 1976");
+        add_shown(doc, un, d, "temperature_offset", DRAGARC_Q_TEMPERATURE_DIFFERENCE, atm->temperature_offset);
+    }
     cJSON *arr = cJSON_AddArrayToObject(doc, "levels");
     for (size_t i = 0; i < n; i++) {
         cJSON *l = cJSON_CreateObject();
         cJSON *u = i == 0 ? un : cJSON_CreateObject();
-        add_shown(l, u, d, "altitude", DRAGARC_Q_LENGTH, altitudes[i]);
+        add_shown(l, u, d, local ? "height" : "altitude", DRAGARC_Q_LENGTH, altitudes[i]);
         add_shown(l, u, d, "temperature", DRAGARC_Q_TEMPERATURE, levels[i].temperature);
         add_shown(l, u, d, "pressure", DRAGARC_Q_PRESSURE, levels[i].pressure);
         add_shown(l, u, d, "density", DRAGARC_Q_DENSITY, levels[i].density);

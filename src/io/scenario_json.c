@@ -6,6 +6,7 @@
  */
 #include <errno.h>
 #include <math.h>
+#include <stddef.h>
 #include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
@@ -214,6 +215,8 @@ static const struct {
     {"environment.atmosphere.temperature", DRAGARC_Q_TEMPERATURE},
     {"environment.atmosphere.speed_of_sound", DRAGARC_Q_SPEED},
     {"environment.atmosphere.scale_height", DRAGARC_Q_LENGTH},
+    {"environment.atmosphere.pressure", DRAGARC_Q_PRESSURE},
+    {"environment.atmosphere.relative_humidity", DRAGARC_Q_NUMBER},
     {"environment.wind.speed", DRAGARC_Q_SPEED},
     {"environment.wind.from", DRAGARC_Q_ANGLE},
     {"environment.wind.ref_height", DRAGARC_Q_LENGTH},
@@ -748,6 +751,36 @@ static int read_launch(const cJSON *j, dragarc_launch *l, dragarc_error *err)
     return DRAGARC_OK;
 }
 
+/* The atmosphere models and their keys besides "model", in the order they are read: a name, the double it
+ * fills in dragarc_atmosphere, and whether it must be given. A new model is one row. */
+typedef struct atmosphere_key {
+    const char *name;
+    size_t offset;
+    int required;
+} atmosphere_key;
+
+#define ATMOSPHERE_KEY(field, required) {#field, offsetof(dragarc_atmosphere, field), required}
+#define ATMOSPHERE_MAX_KEYS 4
+
+static const struct {
+    const char *name;
+    dragarc_atmosphere_model model;
+    atmosphere_key keys[ATMOSPHERE_MAX_KEYS]; /* ends at the first without a name */
+} ATMOSPHERE_MODELS[] = {
+    {"isa", DRAGARC_ATMOSPHERE_ISA, {ATMOSPHERE_KEY(site_elevation, 0), ATMOSPHERE_KEY(temperature_offset, 0)}},
+    {"constant",
+     DRAGARC_ATMOSPHERE_CONSTANT,
+     {ATMOSPHERE_KEY(density, 1), ATMOSPHERE_KEY(viscosity, 1), ATMOSPHERE_KEY(temperature, 0),
+      ATMOSPHERE_KEY(speed_of_sound, 0)}},
+    {"exponential",
+     DRAGARC_ATMOSPHERE_EXPONENTIAL,
+     {ATMOSPHERE_KEY(density, 1), ATMOSPHERE_KEY(scale_height, 1), ATMOSPHERE_KEY(temperature, 0)}},
+    {"local",
+     DRAGARC_ATMOSPHERE_LOCAL,
+     {ATMOSPHERE_KEY(temperature, 1), ATMOSPHERE_KEY(pressure, 1), ATMOSPHERE_KEY(relative_humidity, 1)}},
+};
+#define NATMOSPHERE_MODELS (sizeof ATMOSPHERE_MODELS / sizeof ATMOSPHERE_MODELS[0])
+
 static int read_atmosphere(const cJSON *j, dragarc_atmosphere *a, dragarc_error *err)
 {
     const char *path = "environment.atmosphere";
@@ -755,32 +788,27 @@ static int read_atmosphere(const cJSON *j, dragarc_atmosphere *a, dragarc_error 
     const char *model = "isa";
     TRY(get_string(j, path, "model", 0, &model, err));
     dragarc_atmosphere_default(a);
-    if (strcmp(model, "isa") == 0) {
-        static const char *const keys[] = {"model", "site_elevation", "temperature_offset", NULL};
-        TRY(check_keys(j, path, keys, err));
-        a->model = DRAGARC_ATMOSPHERE_ISA;
-        TRY(get_number(j, path, "site_elevation", 0, &a->site_elevation, NULL, err));
-        TRY(get_number(j, path, "temperature_offset", 0, &a->temperature_offset, NULL, err));
-    } else if (strcmp(model, "constant") == 0) {
-        static const char *const keys[] = {"model", "density", "viscosity", "temperature", "speed_of_sound", NULL};
-        TRY(check_keys(j, path, keys, err));
-        a->model = DRAGARC_ATMOSPHERE_CONSTANT;
-        TRY(get_number(j, path, "density", 1, &a->density, NULL, err));
-        TRY(get_number(j, path, "viscosity", 1, &a->viscosity, NULL, err));
-        a->temperature = 293.15;
-        TRY(get_number(j, path, "temperature", 0, &a->temperature, NULL, err));
-        TRY(get_number(j, path, "speed_of_sound", 0, &a->speed_of_sound, NULL, err));
-    } else if (strcmp(model, "exponential") == 0) {
-        static const char *const keys[] = {"model", "density", "scale_height", "temperature", NULL};
-        TRY(check_keys(j, path, keys, err));
-        a->model = DRAGARC_ATMOSPHERE_EXPONENTIAL;
-        TRY(get_number(j, path, "density", 1, &a->density, NULL, err));
-        TRY(get_number(j, path, "scale_height", 1, &a->scale_height, NULL, err));
-        TRY(get_number(j, path, "temperature", 0, &a->temperature, NULL, err));
-    } else {
+    size_t m = 0;
+    while (m < NATMOSPHERE_MODELS && strcmp(model, ATMOSPHERE_MODELS[m].name) != 0)
+        m++;
+    if (m == NATMOSPHERE_MODELS) {
+        char names[128] = "";
+        for (size_t i = 0; i < NATMOSPHERE_MODELS; i++)
+            snprintf(names + strlen(names), sizeof names - strlen(names), "%s%s", i ? ", " : "",
+                     ATMOSPHERE_MODELS[i].name);
         return dragarc_error_set(err, DRAGARC_EINVAL, "environment.atmosphere.model",
-                                 "unknown atmosphere model \"%s\" (isa, constant, exponential)", model);
+                                 "unknown atmosphere model \"%s\" (%s)", model, names);
     }
+    const atmosphere_key *keys = ATMOSPHERE_MODELS[m].keys;
+    const char *allowed[ATMOSPHERE_MAX_KEYS + 2] = {"model"};
+    for (size_t k = 0; k < ATMOSPHERE_MAX_KEYS && keys[k].name; k++)
+        allowed[k + 1] = keys[k].name;
+    TRY(check_keys(j, path, allowed, err));
+    a->model = ATMOSPHERE_MODELS[m].model;
+    if (a->model == DRAGARC_ATMOSPHERE_CONSTANT)
+        a->temperature = 293.15; /* a room, not the standard's sea level */
+    for (size_t k = 0; k < ATMOSPHERE_MAX_KEYS && keys[k].name; k++)
+        TRY(get_number(j, path, keys[k].name, keys[k].required, (double *)((char *)a + keys[k].offset), NULL, err));
     int rc = dragarc_atmosphere_check(a, err);
     if (rc != DRAGARC_OK)
         dragarc_error_prefix(err, path);

@@ -257,8 +257,13 @@ static int cvode_failure(flight_ctx *c, int flag, double t, dragarc_error *err)
 }
 
 /* The errors both integrators report in the same words. */
-static int err_left_atmosphere(dragarc_error *err, double t)
+static int err_left_atmosphere(const flight_ctx *c, dragarc_error *err, double t)
 {
+    if (c->forces.atmosphere->model == DRAGARC_ATMOSPHERE_LOCAL)
+        return dragarc_error_set(err, DRAGARC_ERANGE, "environment.atmosphere",
+                                 "at t = %.6g s the flight climbs more than %g m above the site datum, the top of the "
+                                 "'local' model (the standard troposphere's lapse rate)",
+                                 t, DRAGARC_LOCAL_Z_MAX);
     return dragarc_error_set(err, DRAGARC_ERANGE, "environment.atmosphere",
                              "at t = %.6g s the flight climbs above %g m altitude, the top of the U.S. Standard "
                              "Atmosphere 1976 model",
@@ -396,7 +401,7 @@ static int integrate_cvode(const dragarc_scenario *s, flight_ctx *cx, dragarc_me
             int found[3] = {0, 0, 0};
             CVodeGetRootInfo(mem, found);
             if (found[2]) {
-                rc = err_left_atmosphere(err, t);
+                rc = err_left_atmosphere(cx, err, t);
                 goto done;
             }
             if (found[1] && yv[2] > out->apex_height) {
@@ -634,7 +639,7 @@ static int integrate_rk(const dragarc_scenario *s, flight_ctx *cx, double dt, co
             k++;
         }
         if (isfinite(t_top) && t_top <= fmin(t_hit, t_apex)) {
-            rc = err_left_atmosphere(err, t_top);
+            rc = err_left_atmosphere(cx, err, t_top);
             goto done;
         }
         if (t_apex < t_hit) {
@@ -844,7 +849,7 @@ static int dop_step_events(const dragarc_scenario *s, flight_ctx *cx, dop853 *st
         (*k)++;
     }
     if (isfinite(t_top) && t_top <= fmin(t_hit, t_apex))
-        return err_left_atmosphere(err, t_top);
+        return err_left_atmosphere(cx, err, t_top);
     if (t_apex < t_hit) {
         if (y_apex[2] > out->apex_height) {
             out->apex_height = y_apex[2];
@@ -1090,7 +1095,7 @@ int dragarc_flight_run(const dragarc_scenario *s, double dt, dragarc_flight *out
     } else {
         set_spin(s, &c, NULL, 0.0);
     }
-    c.ceiling = s->atmosphere.model == DRAGARC_ATMOSPHERE_ISA ? DRAGARC_ISA_Z_MAX - s->atmosphere.site_elevation : INFINITY;
+    c.ceiling = dragarc_atmosphere_ceiling(&s->atmosphere);
 
     double y0[NS];
     launch_state(s, y0);

@@ -108,6 +108,7 @@ static const char *atmosphere_model_name(dragarc_atmosphere_model m)
     case DRAGARC_ATMOSPHERE_ISA: return "isa";
     case DRAGARC_ATMOSPHERE_CONSTANT: return "constant";
     case DRAGARC_ATMOSPHERE_EXPONENTIAL: return "exponential";
+    case DRAGARC_ATMOSPHERE_LOCAL: return "local";
     }
     return "unknown";
 }
@@ -139,10 +140,11 @@ static int applicable(const dragarc_scenario *s, param_id id, dragarc_error *err
                                      atmosphere_model_name(s->atmosphere.model));
         return DRAGARC_OK;
     case P_SITE_ELEVATION:
-        if (s->atmosphere.model == DRAGARC_ATMOSPHERE_CONSTANT)
+        if (s->atmosphere.model == DRAGARC_ATMOSPHERE_CONSTANT || s->atmosphere.model == DRAGARC_ATMOSPHERE_LOCAL)
             return dragarc_error_set(err, DRAGARC_EINVAL, path,
-                                     "the atmosphere model is 'constant': only the 'isa' and 'exponential' models "
-                                     "have a site elevation");
+                                     "the atmosphere model is '%s': only the 'isa' and 'exponential' models "
+                                     "have a site elevation",
+                                     atmosphere_model_name(s->atmosphere.model));
         return DRAGARC_OK;
     default: return DRAGARC_OK;
     }

@@ -1,5 +1,5 @@
-/* atmosphere.c: the U.S. Standard Atmosphere 1976 below 86 km, a constant fluid, and an isothermal
- * exponential atmosphere.
+/* atmosphere.c: the U.S. Standard Atmosphere 1976 below 86 km, a constant fluid, an isothermal
+ * exponential atmosphere, and the day's weather at the site carried up the standard lapse rate ("local").
  * SPDX-License-Identifier: GPL-3.0-or-later
  *
  * U.S. Standard Atmosphere 1976 (NOAA, NASA, USAF; NASA-TM-X-74335), sections 1.2-1.3: with the
@@ -19,11 +19,20 @@
  * The base pressures p_b follow from p0 = 101325 Pa by the same formulas carried up layer by layer; they
  * are stored to 17 digits (they agree with the standard's Table 4: 22632.06, 5474.889, 868.0187, 110.9063,
  * 66.93887, 3.956420 Pa), and tests/reference/test_isa_1976.c recomputes them from the formulas.
+ *
+ * "local": the site datum's temperature T0, pressure p0 and relative humidity h, carried to height z by the
+ * standard's first-layer lapse rate L = -6.5 K/km with the site as the layer base, eq. 33a unchanged:
+ *   T = T0 + L z,   p = p0 (T0 / T)^(g0 M0 / (R* L)),   h constant,
+ * and the air at (T, p, h) is moist air by CIPM-2007 (moist_air.c). z is used as a geopotential height (g
+ * taken as g0: at 1 km the pressure differs from the geometric reading by 2e-5) and the hydrostatic
+ * balance is that of dry air (docs/models.md gives what both leave out). Valid 1 km below to 11 km above
+ * the site: the standard's lapse rate holds in the troposphere only.
  */
 #include <math.h>
 #include <stddef.h>
 
 #include "dragarc/atmosphere.h"
+#include "dragarc/moist_air.h"
 
 #define R_STAR 8314.32  /* J/(kmol K) */
 #define M0 28.9644      /* kg/kmol */
@@ -116,6 +125,42 @@ int dragarc_isa_eval(double z, double temperature_offset, dragarc_air *out, drag
     return DRAGARC_OK;
 }
 
+/* The local model at height z (m above the site datum). */
+static int local_eval(const dragarc_atmosphere *atm, double z, dragarc_air *out, dragarc_error *err)
+{
+    if (!(z >= DRAGARC_LOCAL_Z_MIN && z <= DRAGARC_LOCAL_Z_MAX))
+        return dragarc_error_set(err, DRAGARC_ERANGE, "environment.atmosphere",
+                                 "height %.6g m is outside the 'local' model, which holds from -1000 to 11000 m "
+                                 "about the site datum (the standard troposphere's lapse rate)",
+                                 z);
+    const layer site = {0.0, atm->temperature, DRAGARC_LOCAL_LAPSE, atm->pressure, GMR / DRAGARC_LOCAL_LAPSE};
+    double t = site.t + site.lapse * z;
+    double p = layer_pressure(&site, site.p, z);
+    dragarc_moist_air m;
+    int rc = dragarc_moist_air_eval(t, p, atm->relative_humidity, DRAGARC_CIPM_X_CO2, &m, err);
+    if (rc != DRAGARC_OK) {
+        dragarc_error_prefix(err, "environment.atmosphere");
+        return rc;
+    }
+    out->temperature = t;
+    out->pressure = p;
+    out->density = m.density;
+    out->speed_of_sound = m.speed_of_sound;
+    out->viscosity = m.viscosity;
+    return DRAGARC_OK;
+}
+
+double dragarc_atmosphere_ceiling(const dragarc_atmosphere *atm)
+{
+    switch (atm->model) {
+    case DRAGARC_ATMOSPHERE_ISA: return DRAGARC_ISA_Z_MAX - atm->site_elevation;
+    case DRAGARC_ATMOSPHERE_LOCAL: return DRAGARC_LOCAL_Z_MAX;
+    case DRAGARC_ATMOSPHERE_CONSTANT:
+    case DRAGARC_ATMOSPHERE_EXPONENTIAL: break;
+    }
+    return INFINITY;
+}
+
 size_t dragarc_atmosphere_breaks(const dragarc_atmosphere *atm, double *out, size_t max)
 {
     if (atm->model != DRAGARC_ATMOSPHERE_ISA)
@@ -140,6 +185,8 @@ void dragarc_atmosphere_default(dragarc_atmosphere *atm)
     atm->temperature = DRAGARC_ISA_T0;
     atm->speed_of_sound = 0.0;
     atm->scale_height = 8500.0;
+    atm->pressure = DRAGARC_ISA_P0;
+    atm->relative_humidity = 0.0;
 }
 
 int dragarc_atmosphere_check(const dragarc_atmosphere *atm, dragarc_error *err)
@@ -179,6 +226,34 @@ int dragarc_atmosphere_check(const dragarc_atmosphere *atm, dragarc_error *err)
             return dragarc_error_set(err, DRAGARC_EINVAL, "temperature", "must be positive, in K (got %g)",
                                      atm->temperature);
         return DRAGARC_OK;
+    case DRAGARC_ATMOSPHERE_LOCAL: {
+        /* A number that fits the range only in a common unit of the trade gets the hint to say its unit. */
+        double t = atm->temperature, p = atm->pressure, h = atm->relative_humidity;
+        if (!(t >= DRAGARC_LOCAL_T_MIN && t <= DRAGARC_LOCAL_T_MAX))
+            return t >= -93.15 && t <= 66.85
+                       ? dragarc_error_set(err, DRAGARC_EINVAL, "temperature",
+                                           "must be between 180 and 340 K (got %g): for degrees Celsius write the "
+                                           "unit, \"%g degC\"",
+                                           t, t)
+                       : dragarc_error_set(err, DRAGARC_EINVAL, "temperature", "must be between 180 and 340 K (got %g)",
+                                           t);
+        if (!(p >= DRAGARC_LOCAL_P_MIN && p <= DRAGARC_LOCAL_P_MAX))
+            return p >= 300.0 && p <= 1100.0
+                       ? dragarc_error_set(err, DRAGARC_EINVAL, "pressure",
+                                           "must be between 30000 and 110000 Pa (got %g): for hectopascals write the "
+                                           "unit, \"%g hPa\"",
+                                           p, p)
+                       : dragarc_error_set(err, DRAGARC_EINVAL, "pressure",
+                                           "must be between 30000 and 110000 Pa (got %g)", p);
+        if (!(h >= 0.0 && h <= 1.0))
+            return h > 1.0 && h <= 100.0
+                       ? dragarc_error_set(err, DRAGARC_EINVAL, "relative_humidity",
+                                           "must be between 0 and 1 (got %g): a fraction, so %g %% is %g", h, h,
+                                           h / 100.0)
+                       : dragarc_error_set(err, DRAGARC_EINVAL, "relative_humidity",
+                                           "must be between 0 and 1 (got %g)", h);
+        return DRAGARC_OK;
+    }
     }
     return dragarc_error_set(err, DRAGARC_EINVAL, "model", "unknown atmosphere model %d", (int)atm->model);
 }
@@ -203,6 +278,8 @@ int dragarc_atmosphere_eval(const dragarc_atmosphere *atm, double z, dragarc_air
         out->speed_of_sound = air_sound_speed(atm->temperature);
         out->viscosity = dragarc_air_viscosity(atm->temperature);
         return DRAGARC_OK;
+    case DRAGARC_ATMOSPHERE_LOCAL:
+        return local_eval(atm, z, out, err);
     }
     return dragarc_error_set(err, DRAGARC_EINVAL, "environment.atmosphere.model", "unknown model");
 }

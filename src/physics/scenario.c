@@ -98,6 +98,15 @@ int dragarc_scenario_check(const dragarc_scenario *s, dragarc_error *err)
                                      "Standard Atmosphere 1976 model",
                                      bottom);
     }
+    if (s->atmosphere.model == DRAGARC_ATMOSPHERE_LOCAL) {
+        if (l->height > DRAGARC_LOCAL_Z_MAX)
+            return dragarc_error_set(err, DRAGARC_EINVAL, "launch.height",
+                                     "%g m is above the 11000 m top of the 'local' atmosphere model", l->height);
+        if (s->ground_elevation < DRAGARC_LOCAL_Z_MIN)
+            return dragarc_error_set(err, DRAGARC_EINVAL, "ground.elevation",
+                                     "%g m is below the -1000 m bottom of the 'local' atmosphere model",
+                                     s->ground_elevation);
+    }
     rc = dragarc_wind_check(&s->wind, err);
     if (rc != DRAGARC_OK) {
         dragarc_error_prefix(err, "environment.wind");
