@@ -1,5 +1,5 @@
-/* cmd_demo.c: `dragarc demo`: three built-in scenarios of our own invention, one for each kind of user,
- * flown and explained. The numbers are illustrative, not measurements of any real product.
+/* cmd_demo.c: `dragarc demo`: built-in scenarios of our own invention, one for each kind of user, and one
+ * ball driven at two invented venues, flown and explained. The numbers are illustrative, not measurements of any real product.
  * SPDX-License-Identifier: GPL-3.0-or-later
  */
 #include <math.h>
@@ -15,8 +15,9 @@
 static const char HELP[] =
     "usage: dragarc demo\n"
     "\n"
-    "Fly three built-in example scenarios (a practice ball in a breeze, a sprinkler droplet, a fragment\n"
-    "shed at 3 km) and explain what each shows. No files are read or written.\n";
+    "Fly built-in example scenarios (a practice ball in a breeze, a sprinkler droplet, a fragment shed at\n"
+    "3 km, and one spinning ball driven at two venues) and explain what each shows. No files are read or\n"
+    "written.\n";
 
 typedef struct demo_case {
     const char *title;
@@ -54,6 +55,33 @@ static const demo_case CASES[] = {
      " \"solver\": {\"max_time\": 600}}",
      "The fragment's forward speed is gone within seconds; it then falls at a terminal speed that shrinks as "
      "the air thickens toward the ground, and the layered wind, veering with height, decides where it lands."},
+    /* The same invented ball and launch at two invented venues: only the day's air and the ground differ. */
+    {"4. A spinning ball driven at Saltmarsh Links (sea level, a cool damp morning, soft wet grass)",
+     "{\"name\": \"driven ball at Saltmarsh Links\","
+     " \"projectile\": {\"name\": \"demo ball (invented)\", \"mass\": 0.0459, \"diameter\": 0.0427,"
+     "   \"drag\": {\"model\": \"constant\", \"cd\": 0.25},"
+     "   \"lift\": {\"model\": \"table\", \"points\": [[0, 0], [0.05, 0.12], [0.1, 0.18], [0.2, 0.25], [0.3, 0.29]]},"
+     "   \"spin_decay_coefficient\": 2e-5, \"inertia_factor\": 0.4},"
+     " \"launch\": {\"speed\": 70.0, \"elevation\": 11.0, \"azimuth\": 0.0, \"spin\": {\"rate\": 2700, \"tilt\": 4}},"
+     " \"environment\": {\"atmosphere\": {\"model\": \"local\", \"temperature\": \"12 degC\", \"pressure\": \"1021 hPa\","
+     "   \"relative_humidity\": 0.85}, \"wind\": {\"model\": \"log\", \"speed\": 3.0, \"from\": 200.0, \"ref_height\": 10.0,"
+     "   \"roughness\": 0.03}},"
+     " \"ground\": {\"surface\": \"example-soft-wet-grass\"}}",
+     "Backspin lift keeps the ball up far longer than drag alone would; the tilt of its spin axis curves it "
+     "right. Dense, cool air costs carry, and the soft ground stops it within a few bounces."},
+    {"5. The same ball and launch at High Mesa Range (1900 m, a hot dry afternoon, firm turf)",
+     "{\"name\": \"driven ball at High Mesa Range\","
+     " \"projectile\": {\"name\": \"demo ball (invented)\", \"mass\": 0.0459, \"diameter\": 0.0427,"
+     "   \"drag\": {\"model\": \"constant\", \"cd\": 0.25},"
+     "   \"lift\": {\"model\": \"table\", \"points\": [[0, 0], [0.05, 0.12], [0.1, 0.18], [0.2, 0.25], [0.3, 0.29]]},"
+     "   \"spin_decay_coefficient\": 2e-5, \"inertia_factor\": 0.4},"
+     " \"launch\": {\"speed\": 70.0, \"elevation\": 11.0, \"azimuth\": 0.0, \"spin\": {\"rate\": 2700, \"tilt\": 4}},"
+     " \"environment\": {\"atmosphere\": {\"model\": \"local\", \"temperature\": \"29 degC\", \"pressure\": \"810 hPa\","
+     "   \"relative_humidity\": 0.15}, \"wind\": {\"model\": \"log\", \"speed\": 3.0, \"from\": 200.0, \"ref_height\": 10.0,"
+     "   \"roughness\": 0.03}},"
+     " \"ground\": {\"surface\": \"example-firm-turf\"}}",
+     "Thin, warm air means less drag and less lift: the drag saving wins, so the ball carries farther, lands "
+     "faster and runs on across firm ground."},
 };
 
 /* The inverse question for the first case: which launches put the ball on a spot `range` metres out? */
@@ -112,7 +140,8 @@ int cmd_demo(int argc, char **argv)
         }
         return cli_usage_error("demo", "takes no arguments, got '%s'", argv[i]);
     }
-    puts("dragarc demo: three invented scenarios, one for each kind of user.\n");
+    puts("dragarc demo: invented scenarios, one for each kind of user, and one ball at two venues.\n");
+    double carry[2] = {0.0, 0.0}, total[2] = {0.0, 0.0};
     unsigned notes = 0;
     dragarc_scenario last;
     int have_last = 0;
@@ -130,7 +159,9 @@ int cmd_demo(int argc, char **argv)
         }
         cli_print_flight(stdout, CASES[k].title, &s, &f, NULL, 0);
         if (isfinite(f.vacuum_range) && f.vacuum_range > 0.0)
-            printf("  drag shortened the range to %.0f %% of the vacuum range\n", 100.0 * f.range / f.vacuum_range);
+            printf(f.range <= f.vacuum_range ? "  drag shortened the range to %.0f %% of the vacuum range\n"
+                                             : "  spin lift carried it to %.0f %% of the vacuum range\n",
+                   100.0 * f.range / f.vacuum_range);
         if (isfinite(f.relaxation_time))
             printf("  drag relaxation time %.3g s (terminal speed / g) against a %.3g s flight: %s method\n",
                    f.relaxation_time, f.time_of_flight, dragarc_method_name(f.method));
@@ -141,6 +172,13 @@ int cmd_demo(int argc, char **argv)
             if (have_last)
                 dragarc_scenario_clear(&last);
             return EXIT_FAILED;
+        }
+        if (k >= 3) {
+            carry[k - 3] = f.range, total[k - 3] = f.total_distance;
+            if (k == 4)
+                printf("  The two venues: the same shot carries %.1f m farther (%+.1f %%) and finishes %.1f m farther "
+                       "at High Mesa Range.\n",
+                       carry[1] - carry[0], 100.0 * (carry[1] / carry[0] - 1.0), total[1] - total[0]);
         }
         putchar('\n');
         notes |= f.notes;

@@ -1143,11 +1143,11 @@ int dragarc_flight_run(const dragarc_scenario *s, double dt, dragarc_flight *out
     out->total_distance = out->range;
     out->rest_position[0] = ex, out->rest_position[1] = ny;
     out->rest_time = t;
-    if (s->ground_surface_given)
-        return bounce_and_roll(s, &c, method, dt, out, &cap, t, err);
     if (out->impact_energy >= 15.0)
         out->notes |= DRAGARC_NOTE_HIGH_ENERGY;
-    if (s->launch.spin_rate > 0.0)
+    if (s->launch.spin_rate > 0.0 || s->ground_surface_given)
         out->notes |= DRAGARC_NOTE_BALL;
+    if (s->ground_surface_given)
+        return bounce_and_roll(s, &c, method, dt, out, &cap, t, err);
     return DRAGARC_OK;
 }
