@@ -9,6 +9,8 @@
  *   constant   D = 1/2 rho Cd A |v_rel|
  *   sphere     D = 1/2 rho Cd(Re) A |v_rel|, Cd(Re) of a smooth sphere (Clift, Grace & Weber 1978)
  *   table      D = 1/2 rho Cd(x) A |v_rel|, Cd tabulated against Reynolds number, Mach number or speed
+ *   spin_table D = 1/2 rho Cd(Re, S) A |v_rel|, Cd tabulated against Reynolds number and spin factor S
+ *              (a spinning ball's drag rises with S; S as in lift.h)
  *
  * Re = rho |v_rel| d / mu with d the diameter; Mach = |v_rel| / a.
  */
@@ -30,7 +32,8 @@ typedef enum dragarc_drag_model {
     DRAGARC_DRAG_LINEAR,
     DRAGARC_DRAG_QUADRATIC,
     DRAGARC_DRAG_SPHERE,
-    DRAGARC_DRAG_TABLE
+    DRAGARC_DRAG_TABLE,
+    DRAGARC_DRAG_SPIN_TABLE
 } dragarc_drag_model;
 
 typedef enum dragarc_drag_axis {
@@ -51,7 +54,9 @@ typedef struct dragarc_drag {
     double *x;    /* table abscissae as given (Re, Mach or m/s), strictly increasing */
     double *u;    /* interpolation abscissae: ln(x) for Reynolds, x otherwise */
     double *y;    /* Cd values */
-    void *interp; /* gsl_interp *, owned */
+    void *interp; /* gsl_interp *, owned (table); gsl_interp2d *, owned (spin_table) */
+    size_t ns;    /* spin_table: spin factors, from 0 up, strictly increasing, in s */
+    double *s;    /* spin_table: y holds Cd at (x[i], s[j]) as y[j * npoints + i], GSL's order */
 } dragarc_drag;
 
 /* Names used in scenario files: "none", "constant", ...; NULL for an unknown value. */
@@ -65,6 +70,13 @@ int dragarc_drag_axis_from_name(const char *name, dragarc_drag_axis *out);
  * at the ends. On failure the drag is left untouched and err->field names "points[i]". */
 int dragarc_drag_table_set(dragarc_drag *drag, dragarc_drag_axis axis, const double *x, const double *y,
                            size_t n, dragarc_error *err);
+
+/* Make `drag` a spin_table model: copies nre >= 2 Reynolds numbers (positive, strictly increasing), ns >= 2
+ * spin factors (from 0 to 10, strictly increasing) and Cd values cd[i * ns + j] at (re[i], s[j]) (positive).
+ * Bilinear interpolation in (ln Re, S) (GSL's gsl_interp2d_bilinear), clamped at the edges. On failure the
+ * drag is left untouched and err->field names "reynolds[i]", "spin_factor[j]" or "cd[i][j]". */
+int dragarc_drag_spin_table_set(dragarc_drag *drag, const double *re, size_t nre, const double *s, size_t ns,
+                                const double *cd, dragarc_error *err);
 
 /* Deep copy src into dst (dst is overwritten without being cleared). */
 int dragarc_drag_copy(dragarc_drag *dst, const dragarc_drag *src, dragarc_error *err);
@@ -87,9 +99,13 @@ double dragarc_sphere_cd_re24(double re);
 double dragarc_drag_cd(const dragarc_drag *drag, double reynolds, double mach, double speed);
 
 /* The drag factor D (kg/s) at air-relative speed `speed` (m/s), for a body of diameter d (m) and
- * reference area (m^2). Finite for speed = 0. */
+ * reference area (m^2), not spinning (S = 0). Finite for speed = 0. */
 double dragarc_drag_factor(const dragarc_drag *drag, double speed, const dragarc_air *air, double diameter,
                            double area);
+
+/* The same at spin factor S >= 0 (only the spin_table model depends on it). */
+double dragarc_drag_factor_spin(const dragarc_drag *drag, double speed, const dragarc_air *air, double diameter,
+                                double area, double spin_factor);
 
 #ifdef __cplusplus
 }

@@ -108,6 +108,9 @@ static void describe_drag(char *buf, size_t n, const dragarc_drag *d)
     case DRAGARC_DRAG_TABLE:
         snprintf(buf, n, "table of Cd against %s (%zu points)", dragarc_drag_axis_name(d->axis), d->npoints);
         break;
+    case DRAGARC_DRAG_SPIN_TABLE:
+        snprintf(buf, n, "table of Cd against Reynolds number and spin factor (%zu x %zu)", d->npoints, d->ns);
+        break;
     default: snprintf(buf, n, "none"); break;
     }
 }

@@ -356,6 +356,77 @@ static int read_pairs(const cJSON *pts, const char *field, const char *what, dou
     return DRAGARC_OK;
 }
 
+/* An array of 2 to 10000 numbers at path.key into a new array (caller frees, also after failure). */
+static int read_numbers(const cJSON *obj, const char *path, const char *key, double **out, size_t *count,
+                        dragarc_error *err)
+{
+    char field[PATH_MAX_LEN];
+    join(field, sizeof field, path, key);
+    const cJSON *a = cJSON_GetObjectItemCaseSensitive(obj, key);
+    *out = NULL;
+    if (!a)
+        return dragarc_error_set(err, DRAGARC_EINVAL, field, "is required");
+    int n = cJSON_IsArray(a) ? cJSON_GetArraySize(a) : -1;
+    if (n < 2 || n > 10000)
+        return dragarc_error_set(err, DRAGARC_EINVAL, field, "must be an array of 2 to 10000 numbers");
+    double *v = malloc((size_t)n * sizeof *v);
+    *out = v;
+    if (!v)
+        return dragarc_error_set(err, DRAGARC_ENOMEM, field, "out of memory");
+    int i = 0;
+    for (const cJSON *c = a->child; c; c = c->next, i++) {
+        if (!cJSON_IsNumber(c)) {
+            char f[PATH_MAX_LEN + 16];
+            snprintf(f, sizeof f, "%s[%d]", field, i);
+            return dragarc_error_set(err, DRAGARC_EINVAL, f, "must be a number, not %s", type_name(c));
+        }
+        v[i] = c->valuedouble;
+    }
+    *count = (size_t)n;
+    return DRAGARC_OK;
+}
+
+/* drag {"model": "spin_table", "reynolds": [...], "spin_factor": [...], "cd": [[Cd at each S] for each Re]}. */
+static int read_spin_table(const cJSON *j, const char *path, dragarc_drag *d, dragarc_error *err)
+{
+    double *re = NULL, *sf = NULL, *cd = NULL;
+    size_t nre = 0, ns = 0;
+    char field[PATH_MAX_LEN];
+    join(field, sizeof field, path, "cd");
+    int rc = read_numbers(j, path, "reynolds", &re, &nre, err);
+    if (rc == DRAGARC_OK)
+        rc = read_numbers(j, path, "spin_factor", &sf, &ns, err);
+    const cJSON *rows = cJSON_GetObjectItemCaseSensitive(j, "cd");
+    if (rc == DRAGARC_OK && (!cJSON_IsArray(rows) || (size_t)cJSON_GetArraySize(rows) != nre))
+        rc = dragarc_error_set(err, DRAGARC_EINVAL, field,
+                               "must be an array of %zu rows (one per Reynolds number) of %zu numbers (one per spin "
+                               "factor)",
+                               nre, ns);
+    if (rc == DRAGARC_OK && !(cd = malloc(nre * ns * sizeof *cd)))
+        rc = dragarc_error_set(err, DRAGARC_ENOMEM, field, "out of memory");
+    size_t i = 0;
+    for (const cJSON *row = rc == DRAGARC_OK ? rows->child : NULL; row && rc == DRAGARC_OK; row = row->next, i++) {
+        size_t k = 0;
+        if (!cJSON_IsArray(row) || (size_t)cJSON_GetArraySize(row) != ns)
+            rc = -1;
+        for (const cJSON *c = rc == DRAGARC_OK ? row->child : NULL; c && rc == DRAGARC_OK; c = c->next, k++) {
+            if (!cJSON_IsNumber(c))
+                rc = -1;
+            else
+                cd[i * ns + k] = c->valuedouble;
+        }
+        if (rc == -1) {
+            char f[PATH_MAX_LEN + 16];
+            snprintf(f, sizeof f, "%s[%zu]", field, i);
+            rc = dragarc_error_set(err, DRAGARC_EINVAL, f, "must be an array of %zu numbers (one per spin factor)", ns);
+        }
+    }
+    if (rc == DRAGARC_OK && (rc = dragarc_drag_spin_table_set(d, re, nre, sf, ns, cd, err)) != DRAGARC_OK)
+        dragarc_error_prefix(err, path);
+    free(re), free(sf), free(cd);
+    return rc;
+}
+
 static int read_drag(const cJSON *j, const char *path, dragarc_drag *d, dragarc_error *err)
 {
     TRY(want_object(j, path, err));
@@ -366,7 +437,7 @@ static int read_drag(const cJSON *j, const char *path, dragarc_drag *d, dragarc_
     dragarc_drag_model m;
     if (dragarc_drag_model_from_name(model, &m) != DRAGARC_OK)
         return dragarc_error_set(err, DRAGARC_EINVAL, field,
-                                 "unknown drag model \"%s\" (none, constant, linear, quadratic, sphere, table)", model);
+                                 "unknown drag model \"%s\" (none, constant, linear, quadratic, sphere, table, spin_table)", model);
     TRY(check_source(j, path, err));
     memset(d, 0, sizeof *d);
     d->model = m;
@@ -393,6 +464,12 @@ static int read_drag(const cJSON *j, const char *path, dragarc_drag *d, dragarc_
         static const char *const keys[] = {"model", "c", "source", NULL};
         TRY(check_keys(j, path, keys, err));
         TRY(get_number(j, path, "c", 1, &d->c, NULL, err));
+        break;
+    }
+    case DRAGARC_DRAG_SPIN_TABLE: {
+        static const char *const keys[] = {"model", "reynolds", "spin_factor", "cd", "source", NULL};
+        TRY(check_keys(j, path, keys, err));
+        TRY(read_spin_table(j, path, d, err));
         break;
     }
     case DRAGARC_DRAG_TABLE: {

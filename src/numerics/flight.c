@@ -213,6 +213,10 @@ static void observe_flow(dragarc_flight *f, const flight_ctx *c, dragarc_flow fl
         f->notes |= DRAGARC_NOTE_TRANSONIC;
     if (dr->model == DRAGARC_DRAG_SPHERE && flow.reynolds > 2e5 && flow.reynolds < 1e6)
         f->notes |= DRAGARC_NOTE_DRAG_CRISIS;
+    if (dr->model == DRAGARC_DRAG_SPIN_TABLE && flow.air.density > 0.0 && flow.airspeed > 0.5 &&
+        (flow.reynolds < dr->x[0] || flow.reynolds > dr->x[dr->npoints - 1] || flow.spin_factor > dr->s[dr->ns - 1] ||
+         flow.spin_factor < dr->s[0]))
+        f->notes |= DRAGARC_NOTE_TABLE_CLAMPED;
     if (dr->model == DRAGARC_DRAG_TABLE && flow.air.density > 0.0) {
         double x = dr->axis == DRAGARC_AXIS_REYNOLDS ? flow.reynolds : dr->axis == DRAGARC_AXIS_MACH ? flow.mach : flow.airspeed;
         /* Launch from rest and the last instants near zero airspeed always read below the table;
@@ -940,7 +944,8 @@ static void set_spin(const dragarc_scenario *s, flight_ctx *c, const double axis
 {
     dragarc_forces_spin(&c->forces, rate > 0.0 ? axis : NULL, s->launch.spin_decay_time);
     int spin_matters = rate > 0.0 && (s->projectile.lift.model != DRAGARC_LIFT_NONE || s->launch.spin_decay_time > 0.0 ||
-                                      s->projectile.spin_decay_coefficient > 0.0);
+                                      s->projectile.spin_decay_coefficient > 0.0 ||
+                                      s->projectile.drag.model == DRAGARC_DRAG_SPIN_TABLE);
     c->n = spin_matters ? NS : 6;
     c->spin0 = rate;
 }

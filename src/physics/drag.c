@@ -22,6 +22,10 @@
  * spurious overshoot), linear for two points, clamped beyond the ends. The abscissa is the natural
  * logarithm, which is cheaper than log10 and gives the same curve: Steffen's cubic does not change when
  * the abscissa is scaled by a constant.
+ *
+ * Spin tables: Cd against Reynolds number and spin factor S, bilinear in (ln Re, S) with GSL's
+ * gsl_interp2d_bilinear, clamped at the edges of the grid: the data of a wind-tunnel sweep of speed and spin
+ * (e.g. a spinning ball's drag rising with S) used as measured, without a fitted form.
  */
 #include <math.h>
 #include <stdio.h>
@@ -30,10 +34,11 @@
 
 #include <gsl/gsl_errno.h>
 #include <gsl/gsl_interp.h>
+#include <gsl/gsl_interp2d.h>
 
 #include "dragarc/drag.h"
 
-static const char *const MODEL_NAMES[] = {"none", "constant", "linear", "quadratic", "sphere", "table"};
+static const char *const MODEL_NAMES[] = {"none", "constant", "linear", "quadratic", "sphere", "table", "spin_table"};
 static const char *const AXIS_NAMES[] = {"reynolds", "mach", "speed"};
 
 const char *dragarc_drag_model_name(dragarc_drag_model model)
@@ -113,6 +118,15 @@ static double table_cd(const dragarc_drag *d, double x)
     return gsl_interp_eval((const gsl_interp *)d->interp, d->u, d->y, u, NULL);
 }
 
+static double spin_table_cd(const dragarc_drag *d, double re, double S)
+{
+    double u = re > 0.0 ? log(re) : -INFINITY;
+    u = u < d->u[0] ? d->u[0] : u > d->u[d->npoints - 1] ? d->u[d->npoints - 1] : u;
+    S = S < d->s[0] ? d->s[0] : S > d->s[d->ns - 1] ? d->s[d->ns - 1] : S;
+    /* NULL accelerators keep evaluation read-only, so threads may share one table. */
+    return gsl_interp2d_eval((const gsl_interp2d *)d->interp, d->u, d->s, d->y, u, S, NULL, NULL);
+}
+
 double dragarc_drag_cd(const dragarc_drag *d, double reynolds, double mach, double speed)
 {
     switch (d->model) {
@@ -120,12 +134,19 @@ double dragarc_drag_cd(const dragarc_drag *d, double reynolds, double mach, doub
     case DRAGARC_DRAG_SPHERE: return dragarc_sphere_cd(reynolds);
     case DRAGARC_DRAG_TABLE:
         return table_cd(d, d->axis == DRAGARC_AXIS_REYNOLDS ? reynolds : d->axis == DRAGARC_AXIS_MACH ? mach : speed);
+    case DRAGARC_DRAG_SPIN_TABLE: return spin_table_cd(d, reynolds, 0.0);
     default: return NAN;
     }
 }
 
 double dragarc_drag_factor(const dragarc_drag *d, double speed, const dragarc_air *air, double diameter,
                            double area)
+{
+    return dragarc_drag_factor_spin(d, speed, air, diameter, area, 0.0);
+}
+
+double dragarc_drag_factor_spin(const dragarc_drag *d, double speed, const dragarc_air *air, double diameter,
+                                double area, double spin_factor)
 {
     switch (d->model) {
     case DRAGARC_DRAG_NONE: return 0.0;
@@ -144,6 +165,9 @@ double dragarc_drag_factor(const dragarc_drag *d, double speed, const dragarc_ai
                                                     : speed;
         return 0.5 * air->density * table_cd(d, x) * area * speed;
     }
+    case DRAGARC_DRAG_SPIN_TABLE:
+        return 0.5 * air->density * spin_table_cd(d, air->density * speed * diameter / air->viscosity, spin_factor) *
+               area * speed;
     }
     return 0.0;
 }
@@ -152,13 +176,32 @@ void dragarc_drag_clear(dragarc_drag *d)
 {
     if (!d)
         return;
-    if (d->interp)
+    if (d->interp && d->model == DRAGARC_DRAG_SPIN_TABLE)
+        gsl_interp2d_free((gsl_interp2d *)d->interp);
+    else if (d->interp)
         gsl_interp_free((gsl_interp *)d->interp);
+    free(d->s);
     free(d->x);
     free(d->u);
     free(d->y);
     memset(d, 0, sizeof *d);
     d->model = DRAGARC_DRAG_NONE;
+}
+
+/* Replace what d held by a table whose arrays and interpolation object it now owns. */
+static void install(dragarc_drag *d, dragarc_drag_model model, dragarc_drag_axis axis, size_t n, double *x, double *u,
+                    double *y, size_t ns, double *s, void *interp)
+{
+    dragarc_drag_clear(d);
+    d->model = model;
+    d->axis = axis;
+    d->npoints = n;
+    d->x = x;
+    d->u = u;
+    d->y = y;
+    d->ns = ns;
+    d->s = s;
+    d->interp = interp;
 }
 
 int dragarc_drag_table_set(dragarc_drag *d, dragarc_drag_axis axis, const double *x, const double *y, size_t n,
@@ -201,14 +244,7 @@ int dragarc_drag_table_set(dragarc_drag *d, dragarc_drag_axis axis, const double
         free(xs), free(us), free(ys), gsl_interp_free(ip);
         return dragarc_error_set(err, DRAGARC_EINVAL, "points", "GSL could not set up the interpolation");
     }
-    dragarc_drag_clear(d);
-    d->model = DRAGARC_DRAG_TABLE;
-    d->axis = axis;
-    d->npoints = n;
-    d->x = xs;
-    d->u = us;
-    d->y = ys;
-    d->interp = ip;
+    install(d, DRAGARC_DRAG_TABLE, axis, n, xs, us, ys, 0, NULL, ip);
     return DRAGARC_OK;
 fail_nomem:
     free(xs), free(us), free(ys);
@@ -217,16 +253,81 @@ fail_nomem:
     return dragarc_error_set(err, DRAGARC_ENOMEM, "points", "out of memory for %zu points", n);
 }
 
+int dragarc_drag_spin_table_set(dragarc_drag *d, const double *re, size_t nre, const double *s, size_t ns,
+                                const double *cd, dragarc_error *err)
+{
+    char field[48];
+    if (nre < 2)
+        return dragarc_error_set(err, DRAGARC_EINVAL, "reynolds", "needs at least 2 values (got %zu)", nre);
+    if (ns < 2)
+        return dragarc_error_set(err, DRAGARC_EINVAL, "spin_factor", "needs at least 2 values (got %zu)", ns);
+    for (size_t i = 0; i < nre; i++) {
+        snprintf(field, sizeof field, "reynolds[%zu]", i);
+        if (!(re[i] > 0.0 && isfinite(re[i])))
+            return dragarc_error_set(err, DRAGARC_EINVAL, field, "must be positive (got %g)", re[i]);
+        if (i > 0 && !(log(re[i]) > log(re[i - 1])))
+            return dragarc_error_set(err, DRAGARC_EINVAL, field, "must increase strictly (%g follows %g)", re[i],
+                                     re[i - 1]);
+    }
+    for (size_t j = 0; j < ns; j++) {
+        snprintf(field, sizeof field, "spin_factor[%zu]", j);
+        if (!(s[j] >= 0.0 && s[j] <= 10.0))
+            return dragarc_error_set(err, DRAGARC_EINVAL, field, "must be between 0 and 10 (got %g)", s[j]);
+        if (j > 0 && !(s[j] > s[j - 1]))
+            return dragarc_error_set(err, DRAGARC_EINVAL, field, "must increase strictly (%g follows %g)", s[j],
+                                     s[j - 1]);
+    }
+    for (size_t i = 0; i < nre; i++)
+        for (size_t j = 0; j < ns; j++)
+            if (!(cd[i * ns + j] > 0.0 && cd[i * ns + j] < 100.0)) {
+                snprintf(field, sizeof field, "cd[%zu][%zu]", i, j);
+                return dragarc_error_set(err, DRAGARC_EINVAL, field, "must be positive and below 100 (got %g)",
+                                         cd[i * ns + j]);
+            }
+    double *xs = malloc(nre * sizeof *xs), *us = malloc(nre * sizeof *us), *ss = malloc(ns * sizeof *ss);
+    double *zs = malloc(nre * ns * sizeof *zs);
+    gsl_interp2d *ip = gsl_interp2d_alloc(gsl_interp2d_bilinear, nre, ns);
+    if (!xs || !us || !ss || !zs || !ip) {
+        free(xs), free(us), free(ss), free(zs);
+        if (ip)
+            gsl_interp2d_free(ip);
+        return dragarc_error_set(err, DRAGARC_ENOMEM, "cd", "out of memory for %zu x %zu values", nre, ns);
+    }
+    for (size_t i = 0; i < nre; i++)
+        xs[i] = re[i], us[i] = log(re[i]);
+    memcpy(ss, s, ns * sizeof *ss);
+    for (size_t i = 0; i < nre; i++)
+        for (size_t j = 0; j < ns; j++)
+            gsl_interp2d_set(ip, zs, i, j, cd[i * ns + j]);
+    if (gsl_interp2d_init(ip, us, ss, zs, nre, ns) != GSL_SUCCESS) {
+        free(xs), free(us), free(ss), free(zs), gsl_interp2d_free(ip);
+        return dragarc_error_set(err, DRAGARC_EINVAL, "cd", "GSL could not set up the interpolation");
+    }
+    install(d, DRAGARC_DRAG_SPIN_TABLE, DRAGARC_AXIS_REYNOLDS, nre, xs, us, zs, ns, ss, ip);
+    return DRAGARC_OK;
+}
+
 int dragarc_drag_copy(dragarc_drag *dst, const dragarc_drag *src, dragarc_error *err)
 {
     *dst = *src;
-    dst->x = dst->u = dst->y = NULL;
+    dst->x = dst->u = dst->y = dst->s = NULL;
     dst->interp = NULL;
-    if (src->model != DRAGARC_DRAG_TABLE)
+    if (src->model != DRAGARC_DRAG_TABLE && src->model != DRAGARC_DRAG_SPIN_TABLE)
         return DRAGARC_OK;
     dst->model = DRAGARC_DRAG_NONE;
-    dst->npoints = 0;
-    return dragarc_drag_table_set(dst, src->axis, src->x, src->y, src->npoints, err);
+    dst->npoints = dst->ns = 0;
+    if (src->model == DRAGARC_DRAG_TABLE)
+        return dragarc_drag_table_set(dst, src->axis, src->x, src->y, src->npoints, err);
+    /* back from GSL's order (x fastest) to the setter's (s fastest) */
+    double *cd = malloc(src->npoints * src->ns * sizeof *cd);
+    if (!cd)
+        return dragarc_error_set(err, DRAGARC_ENOMEM, "cd", "out of memory");
+    for (size_t i = 0; i < src->npoints; i++)
+        for (size_t j = 0; j < src->ns; j++)
+            cd[i * src->ns + j] = src->y[j * src->npoints + i];
+    int rc = dragarc_drag_spin_table_set(dst, src->x, src->npoints, src->s, src->ns, cd, err);
+    free(cd);
+    return rc;
 }
 
 int dragarc_drag_check(const dragarc_drag *d, dragarc_error *err)
@@ -249,6 +350,10 @@ int dragarc_drag_check(const dragarc_drag *d, dragarc_error *err)
     case DRAGARC_DRAG_TABLE:
         if (d->npoints < 2 || !d->interp)
             return dragarc_error_set(err, DRAGARC_EINVAL, "points", "needs at least 2 points");
+        return DRAGARC_OK;
+    case DRAGARC_DRAG_SPIN_TABLE:
+        if (d->npoints < 2 || d->ns < 2 || !d->interp)
+            return dragarc_error_set(err, DRAGARC_EINVAL, "cd", "needs a grid of at least 2 x 2 values");
         return DRAGARC_OK;
     }
     return dragarc_error_set(err, DRAGARC_EINVAL, "model", "unknown drag model %d", (int)d->model);

@@ -64,35 +64,35 @@ int dragarc_forces_eval(const dragarc_forces *f, const double y[DRAGARC_STATE_DI
     dragarc_wind_eval_toward(f->wind, y[2] - f->ground_elevation, f->prepared ? f->wind_toward : NULL, w);
     double rel[3] = {y[3] - w[0], y[4] - w[1], y[5] - w[2]};
     double speed = sqrt(rel[0] * rel[0] + rel[1] * rel[1] + rel[2] * rel[2]);
-    double dfac = dragarc_drag_factor(&p->drag, speed, &air, p->diameter, p->area);
     double inv_m = f->prepared ? f->inv_mass : 1.0 / p->mass;
+    /* The spin first: the spin factor S sets the lift and may set the drag (a spin_table). */
+    const double *a = f->spin_axis, spin = y[6];
+    double S = 0.0, cl = 0.0, lift_k = 0.0, c[3] = {0.0, 0.0, 0.0}, dspin = 0.0;
+    if ((a[0] != 0.0 || a[1] != 0.0 || a[2] != 0.0) && spin > 0.0) {
+        const double radius = 0.5 * p->diameter;
+        dspin = -spin * (f->spin_decay_rate + p->spin_decay_coefficient * speed / radius);
+        if (speed > 0.0) {
+            c[0] = a[1] * rel[2] - a[2] * rel[1], c[1] = a[2] * rel[0] - a[0] * rel[2], c[2] = a[0] * rel[1] - a[1] * rel[0];
+            double cn = sqrt(c[0] * c[0] + c[1] * c[1] + c[2] * c[2]);
+            if (cn > 1e-12 * speed) { /* no lift, and no S, when the spin axis lies along the relative velocity */
+                S = radius * spin * cn / (speed * speed); /* r w_perp / |v_rel|, w_perp = w |w^ x v_rel^| */
+                if (p->lift.model != DRAGARC_LIFT_NONE) {
+                    cl = dragarc_lift_coefficient(&p->lift, S);
+                    lift_k = 0.5 * air.density * cl * p->area * speed * speed * inv_m / cn;
+                }
+            }
+        }
+    }
+    double dfac = dragarc_drag_factor_spin(&p->drag, speed, &air, p->diameter, p->area, S);
     double dm = dfac * inv_m;
     double buoy = air.density * p->volume * f->gravity * inv_m;
     dydt[0] = y[3];
     dydt[1] = y[4];
     dydt[2] = y[5];
-    dydt[3] = -dm * rel[0];
-    dydt[4] = -dm * rel[1];
-    dydt[5] = -f->gravity + buoy - dm * rel[2];
-    dydt[6] = 0.0;
-    const double *a = f->spin_axis, spin = y[6];
-    double S = 0.0, cl = 0.0;
-    if ((a[0] != 0.0 || a[1] != 0.0 || a[2] != 0.0) && spin > 0.0) {
-        const double radius = 0.5 * p->diameter;
-        dydt[6] = -spin * (f->spin_decay_rate + p->spin_decay_coefficient * speed / radius);
-        if (p->lift.model != DRAGARC_LIFT_NONE && speed > 0.0) {
-            double c[3] = {a[1] * rel[2] - a[2] * rel[1], a[2] * rel[0] - a[0] * rel[2], a[0] * rel[1] - a[1] * rel[0]};
-            double cn = sqrt(c[0] * c[0] + c[1] * c[1] + c[2] * c[2]);
-            if (cn > 1e-12 * speed) { /* no lift when the spin axis lies along the relative velocity */
-                S = radius * spin * cn / (speed * speed); /* r w_perp / |v_rel|, w_perp = w |w^ x v_rel^| */
-                cl = dragarc_lift_coefficient(&p->lift, S);
-                double k = 0.5 * air.density * cl * p->area * speed * speed * inv_m / cn;
-                dydt[3] += k * c[0];
-                dydt[4] += k * c[1];
-                dydt[5] += k * c[2];
-            }
-        }
-    }
+    dydt[3] = -dm * rel[0] + lift_k * c[0];
+    dydt[4] = -dm * rel[1] + lift_k * c[1];
+    dydt[5] = -f->gravity + buoy - dm * rel[2] + lift_k * c[2];
+    dydt[6] = dspin;
     if (flow) {
         flow->air = air;
         flow->wind[0] = w[0], flow->wind[1] = w[1], flow->wind[2] = w[2];

@@ -41,6 +41,8 @@
 #   [Smits94] A. J. Smits, D. R. Smith, "A new aerodynamic model of a golf ball in flight", Science and
 #            Golf II (1994) 340: spin decay dw/dt = -k w v / r (recalled, as used by Penner 2001, Am. J.
 #            Phys. 69:563).
+#   [Bilinear] Bilinear interpolation on a rectangle reproduces a + b x + c y + d x y exactly (its defining
+#            property; e.g. Press et al., "Numerical Recipes", 3rd ed., 2007, section 3.6).
 #   [Newton] Drag D = 1/2 rho Cd A |v - w|^2 along -(v - w) (definition of the drag coefficient) and
 #            buoyancy rho V g upward (Archimedes); see e.g. F. M. White, "Fluid Mechanics", 7th ed.,
 #            McGraw-Hill, 2011, chapter 7 (definition of the drag coefficient; chapter from memory).
@@ -162,6 +164,12 @@ def log_wind(h, u_ref, h_ref, z0, from_deg):
     return np.array([-speed * math.sin(f), -speed * math.cos(f), 0.0])
 
 
+def spin_drag_form(u, S):
+    """Cd of scenario 6 as a function of u = ln Re and S: a + b u + c S + e u S, a form that bilinear
+    interpolation in (ln Re, S) reproduces exactly, so the grid written for dragarc holds it without error."""
+    return 0.62 - 0.025 * u + 0.9 * S - 0.04 * u * S
+
+
 def reference_flight(sc, rtol, atol, vacuum=False):
     """Integrate the scenario `sc` (the dict written for dragarc) with DOP853 [HNW93].
 
@@ -174,7 +182,8 @@ def reference_flight(sc, rtol, atol, vacuum=False):
     wind = env["wind"]
     m = pr["mass"]
     d = pr["diameter"]
-    cd = pr["drag"]["cd"]
+    drag = pr["drag"]
+    cd = drag.get("cd")
     area = pr.get("area", math.pi * d * d / 4.0)
     vol = pr.get("volume", math.pi * d ** 3 / 6.0)
     g = env["gravity"]
@@ -213,18 +222,23 @@ def reference_flight(sc, rtol, atol, vacuum=False):
             w = log_wind(s[2] - ground, u_ref, h_ref, z0, wfrom)
             rel = vel - w
             speed = math.sqrt(rel @ rel)
-            k = 0.5 * rho * cd * area * speed / m
-            acc = acc - k * rel
             acc[2] += rho * vol * g / m
+            S = 0.0
             if axis is not None and s[6] > 0:
                 if tau:
                     dw -= s[6] / tau
                 dw -= k_decay * s[6] * speed / (0.5 * d)  # [Smits94]
-                if lift:  # lift [Nathan08]; S from the spin across the relative velocity
-                    c = np.cross(axis, rel)
-                    cn = math.sqrt(c @ c)
-                    S = 0.5 * d * s[6] * cn / (speed * speed)
+                c = np.cross(axis, rel)
+                cn = math.sqrt(c @ c)
+                S = 0.5 * d * s[6] * cn / (speed * speed)  # S from the spin across the relative velocity
+                if lift:  # lift [Nathan08]
                     acc = acc + 0.5 * rho * lift_coefficient(S) * area * speed * speed / m * c / cn
+            if drag["model"] == "spin_table":  # the generating form of the grid, [Bilinear]
+                re = rho * speed * d / isa(site + s[2], dT)["mu"]
+                cdv = spin_drag_form(math.log(re), S)
+            else:
+                cdv = cd
+            acc = acc - 0.5 * rho * cdv * area * speed / m * rel
         return np.concatenate((vel, acc, [dw]))
 
     def hit_ground(t, s):
@@ -348,8 +362,19 @@ SCENARIO_SPIN_DECAY["name"] = "reference: ball with exponentially decaying tilte
 SCENARIO_SPIN_DECAY["projectile"]["lift"] = {"model": "sawicki2003"}
 SCENARIO_SPIN_DECAY["launch"]["spin"]["decay_time"] = 12.0
 
+# 6. The ball of scenario 4 with drag that rises with the spin factor, given as a spin_table grid over
+#    Re 1e3..1e6 and S 0..1 whose values come from spin_drag_form (invented numbers; the flight stays inside
+#    the grid, so nothing is clamped).
+SCENARIO_SPIN_DRAG = json.loads(json.dumps(SCENARIO_SPIN_FIT))
+SCENARIO_SPIN_DRAG["name"] = "reference: ball whose drag rises with the spin factor (spin_table)"
+_RE, _S = [1e3, 1e4, 1e5, 1e6], [0.0, 0.25, 1.0]
+SCENARIO_SPIN_DRAG["projectile"]["drag"] = {
+    "model": "spin_table", "reynolds": _RE, "spin_factor": _S,
+    "cd": [[spin_drag_form(math.log(r), sf) for sf in _S] for r in _RE]}
+
 SCENARIOS = [("ball", SCENARIO_BALL), ("fragment", SCENARIO_FRAGMENT), ("spinning ball", SCENARIO_SPIN),
-             ("spin vector with lift fit", SCENARIO_SPIN_FIT), ("decaying spin", SCENARIO_SPIN_DECAY)]
+             ("spin vector with lift fit", SCENARIO_SPIN_FIT), ("decaying spin", SCENARIO_SPIN_DECAY),
+             ("drag rising with spin", SCENARIO_SPIN_DRAG)]
 
 KEYS = ["range", "downrange", "crossrange", "time_of_flight", "apex_height", "impact_speed",
         "impact_angle"]

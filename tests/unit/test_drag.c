@@ -112,6 +112,51 @@ TEST(table_rejects_bad_points_and_names_them)
     CHECK(d.model == DRAGARC_DRAG_NONE);
 }
 
+TEST(spin_table_is_bilinear_in_log_re_and_spin_factor_and_clamps)
+{
+    /* Bilinear interpolation (GSL gsl_interp2d_bilinear) reproduces any function a + b u + c S + d u S,
+     * u = ln Re, exactly inside each cell: the corners are taken from such a function and points inside are
+     * checked against it (round-off tolerance). Outside the grid the edge values hold. */
+    const double re[] = {1e4, 1e5, 1e6}, sf[] = {0.0, 0.2, 0.5};
+    double cd[9];
+#define F(u, S) (0.30 - 0.01 * (u) + 0.4 * (S) + 0.02 * (u) * (S))
+    for (int i = 0; i < 3; i++)
+        for (int j = 0; j < 3; j++)
+            cd[i * 3 + j] = F(log(re[i]), sf[j]);
+    dragarc_drag d = {0};
+    dragarc_error e;
+    CHECK(dragarc_drag_spin_table_set(&d, re, 3, sf, 3, cd, &e) == DRAGARC_OK);
+    dragarc_air air = {.density = 1.2, .viscosity = 1.8e-5};
+    const double diam = 0.05, area = 0.25 * PI * diam * diam;
+    for (double lre = log(1e4); lre <= log(1e6); lre += 0.37)
+        for (double S = 0.0; S <= 0.5; S += 0.07) {
+            double v = exp(lre) * air.viscosity / (air.density * diam);
+            double want = 0.5 * air.density * F(lre, S) * area * v;
+            CHECK_REL(dragarc_drag_factor_spin(&d, v, &air, diam, area, S), want, 1e-13);
+        }
+    /* clamped: below the grid in Re and above it in S, the corner value */
+    double v = 1e3 * air.viscosity / (air.density * diam);
+    CHECK_REL(dragarc_drag_factor_spin(&d, v, &air, diam, area, 0.9), 0.5 * air.density * F(log(1e4), 0.5) * area * v,
+              1e-13);
+    CHECK_REL(dragarc_drag_cd(&d, 1e5, 0, 0), F(log(1e5), 0.0), 1e-13); /* S = 0 without spin */
+    dragarc_drag copy;
+    CHECK(dragarc_drag_copy(&copy, &d, &e) == DRAGARC_OK);
+    CHECK(copy.y != d.y && copy.s != d.s);
+    CHECK_REL(dragarc_drag_factor_spin(&copy, 7.0, &air, diam, area, 0.3),
+              dragarc_drag_factor_spin(&d, 7.0, &air, diam, area, 0.3), 0.0);
+    CHECK(dragarc_drag_check(&copy, &e) == DRAGARC_OK);
+    dragarc_drag_clear(&copy);
+    dragarc_drag_clear(&d);
+#undef F
+    /* bad grids name the value */
+    const double sbad[] = {0.0, 0.0, 0.5}, cbad[] = {0.4, 0.4, 0.4, 0.4, 0.0, 0.4, 0.4, 0.4, 0.4};
+    CHECK(dragarc_drag_spin_table_set(&d, re, 3, sbad, 3, cd, &e) == DRAGARC_EINVAL &&
+          strcmp(e.field, "spin_factor[1]") == 0);
+    CHECK(dragarc_drag_spin_table_set(&d, re, 3, sf, 3, cbad, &e) == DRAGARC_EINVAL && strcmp(e.field, "cd[1][1]") == 0);
+    CHECK(dragarc_drag_spin_table_set(&d, re, 1, sf, 3, cd, &e) == DRAGARC_EINVAL && strcmp(e.field, "reynolds") == 0);
+    CHECK(d.model == DRAGARC_DRAG_NONE);
+}
+
 int main(void)
 {
     dragarc_init();
@@ -123,5 +168,6 @@ int main(void)
     RUN(reynolds_table_interpolates_monotonically_in_log_re_and_clamps);
     RUN(two_point_table_is_linear_in_mach);
     RUN(table_rejects_bad_points_and_names_them);
+    RUN(spin_table_is_bilinear_in_log_re_and_spin_factor_and_clamps);
     return check_summary();
 }
