@@ -30,6 +30,7 @@ typedef struct dragarc_flight_point {
     double spin_factor; /* S = r w_perp / |v_rel| (0 without spin) */
     double lift_coefficient; /* C_L (0 without lift) */
     double drag_coefficient; /* C_D = 2 D / (rho A |v_rel|); NaN at rest or in vacuum */
+    double diameter;    /* m: the projectile's, or an evaporating drop's at this moment */
 } dragarc_flight_point;
 
 /* Observations about a flight that the cautions speak of (bit flags). */
@@ -70,7 +71,11 @@ typedef struct dragarc_flight {
     double launch_energy;  /* J */
     double terminal_speed; /* m/s in still air at the launch height; NaN when there is none */
     double vacuum_range;   /* m, same launch without air to the same ground; NaN if it never lands */
-    double impact[7];      /* state at (first) impact: position (m), velocity (m/s), spin rate (rad/s) */
+    double impact[8];      /* state at (first) impact: position (m), velocity (m/s), spin rate (rad/s), and mass
+                            * as a fraction of the launch mass */
+    int evaporated;        /* 1: an evaporating drop shrank away (below DRAGARC_EVAPORATED_DIAMETER) before landing;
+                            * then impact[] and time_of_flight are where and when, in the air */
+    double wet_bulb;       /* K, the wet-bulb temperature an evaporating drop sits at (0 otherwise) */
     /* after the first impact (ground.surface): bounces and roll-out. Without a surface the ball stops where
      * it lands: bounces 0, total_distance = range, rest_position = the impact point, rest_time = time_of_flight */
     int bounces;              /* impacts after the first that ended in another flight */

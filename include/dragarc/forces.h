@@ -2,10 +2,12 @@
  *
  * Copyright (C) 2026 the dragarc developers. SPDX-License-Identifier: GPL-3.0-or-later
  *
- * State y = (x, y, z, vx, vy, vz, w), local frame x east, y north, z up (m, m/s), and the spin rate w (rad/s)
- * about an axis w^ fixed in space:
+ * State y = (x, y, z, vx, vy, vz, w, m), local frame x east, y north, z up (m, m/s), the spin rate w (rad/s)
+ * about an axis w^ fixed in space, and the mass of an evaporating drop as a fraction of its launch mass, m / m0
+ * (evaporation.h; a fraction, so that the error control sees it at the scale of the other values):
  *   m dv/dt = -m g z^ + rho_f V g z^ - D(|v_rel|) v_rel + F_L,   v_rel = v - u(z - z_ground)
  *   dw/dt   = -w / tau  (launch.spin.decay_time)  or  -k w |v_rel| / r  (projectile.spin_decay_coefficient)
+ *   dm/dt   = -pi d D_v Sh drho  while any water is left (projectile.evaporation); d, area and volume follow m
  * gravity, buoyancy (Archimedes), drag (D is the drag factor of drag.h, u the wind) and, for a spinning body
  * with a lift model, the lift F_L = 1/2 rho C_L(S) A |v_rel|^2 (w^ x v_rel) / |w^ x v_rel| (Magnus; lift.h).
  */
@@ -20,8 +22,8 @@
 extern "C" {
 #endif
 
-/* Values in a state: position (3), velocity (3), spin rate. */
-#define DRAGARC_STATE_DIM 7
+/* Values in a state: position (3), velocity (3), spin rate, mass fraction. */
+#define DRAGARC_STATE_DIM 8
 
 /* What the right-hand side needs; borrows every pointer. Set it up with dragarc_forces_init, or set the
  * fields and leave `prepared` zero (then what init works out once is worked out on every call). */
@@ -36,6 +38,9 @@ typedef struct dragarc_forces {
     double inv_mass;         /* 1/kg */
     double spin_axis[3];     /* unit vector of the spin (east, north, up); zero when there is no spin */
     double spin_decay_rate;  /* 1/s: 1 / launch.spin.decay_time, or 0 */
+    int evaporating;         /* the body is a water drop whose mass is the state's eighth value */
+    double residue_volume;   /* m^3: what stays when the water is gone */
+    double vapour_excess;    /* kg/m^3: water-vapour density at the drop's surface less the air's */
 } dragarc_forces;
 
 /* What the right-hand side saw at one state, for diagnostics and output. */
@@ -49,6 +54,7 @@ typedef struct dragarc_flow {
     double drag_coefficient; /* C_D = 2 D / (rho A |v_rel|); NaN where undefined (no air, at rest) */
     double spin_factor;      /* S = r w_perp / |v_rel|; 0 without spin */
     double lift_coefficient; /* C_L(S); 0 without spin or lift model */
+    double diameter;         /* m: the projectile's, or an evaporating drop's at this moment */
 } dragarc_flow;
 
 /* Borrow the parts and work out once what every evaluation would repeat; call again after changing any. */
@@ -64,9 +70,14 @@ void dragarc_spin_axis(double tilt, double azimuth, double axis[3]);
  * e-folding time decay_time (s; 0: not so). The rate itself is the state's seventh value. */
 void dragarc_forces_spin(dragarc_forces *f, const double axis[3], double decay_time);
 
+/* An evaporating water drop (projectile.evaporation): the vapour density excess at its surface, from the wet-bulb
+ * temperature of the air at the launch height (held for the flight), and its residue. */
+void dragarc_forces_evaporation(dragarc_forces *f, double vapour_excess);
+
 /* dy/dt at state y (DRAGARC_STATE_DIM values) into dydt (as many); fills *flow if not NULL. Returns
  * DRAGARC_OK, or the atmosphere's error (e.g. DRAGARC_ERANGE above 86 km) with err filled. Pure: no I/O, no
- * state. Without spin, y[6] is ignored and dydt[6] = 0. */
+ * state. Without spin, y[6] is ignored and dydt[6] = 0; unless the drop evaporates, y[7] is ignored and
+ * dydt[7] = 0. */
 int dragarc_forces_eval(const dragarc_forces *f, const double y[DRAGARC_STATE_DIM], double dydt[DRAGARC_STATE_DIM],
                         dragarc_flow *flow, dragarc_error *err);
 

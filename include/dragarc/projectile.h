@@ -7,6 +7,7 @@
 
 #include "dragarc/drag.h"
 #include "dragarc/dragarc.h"
+#include "dragarc/evaporation.h"
 #include "dragarc/lift.h"
 
 #ifdef __cplusplus
@@ -28,6 +29,7 @@ typedef struct dragarc_projectile {
     dragarc_lift lift;  /* none by default; owned (tables) */
     double spin_decay_coefficient; /* k in dw/dt = -k w |v_rel| / r (Smits & Smith 1994); 0: none */
     double inertia_factor;         /* a in I = a m r^2: 0.4 solid sphere, 2/3 thin shell; 0: not given */
+    dragarc_evaporation evaporation; /* a water drop that evaporates in flight (off by default) */
 } dragarc_projectile;
 
 /* Check mass, diameter, area, volume, drag, lift and spin decay; err->field relative to the projectile object. */

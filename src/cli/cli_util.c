@@ -178,6 +178,21 @@ void cli_print_flight(FILE *fp, const char *label, const dragarc_scenario *s, co
             SHOW("impact_speed", DRAGARC_Q_SPEED, f->impact_speed), UNIT("impact_speed", DRAGARC_Q_SPEED),
             SHOW("impact_angle", DRAGARC_Q_ANGLE, f->impact_angle * DEG), strcmp(iangle, "degree") == 0 ? "deg" : iangle,
             SHOW("impact_energy", DRAGARC_Q_ENERGY, f->impact_energy), UNIT("impact_energy", DRAGARC_Q_ENERGY));
+    if (p->evaporation.enabled) {
+        double v_end = fmax(f->impact[7] * p->volume, p->evaporation.nonvolatile_fraction * p->volume), v_res = p->evaporation.nonvolatile_fraction * p->volume;
+        fprintf(fp, "  droplet         %.4g %s at launch, %.4g %s %s; %.1f %% of its water evaporated (wet bulb %.1f %s)\n",
+                SHOW("diameter", DRAGARC_Q_LENGTH, p->diameter), UNIT("diameter", DRAGARC_Q_LENGTH),
+                SHOW("diameter", DRAGARC_Q_LENGTH, cbrt(6.0 / 3.14159265358979323846 * v_end)),
+                UNIT("diameter", DRAGARC_Q_LENGTH), f->evaporated ? "when it vanished" : "at landing",
+                100.0 * (p->volume - v_end) / (p->volume - v_res),
+                SHOW("wet_bulb_temperature", DRAGARC_Q_TEMPERATURE, f->wet_bulb),
+                UNIT("wet_bulb_temperature", DRAGARC_Q_TEMPERATURE));
+        if (f->evaporated)
+            fprintf(fp, "  evaporated      before landing, %.2f %s above the ground: the impact lines give where it "
+                    "vanished\n",
+                    SHOW("apex_height", DRAGARC_Q_LENGTH, f->impact[2] - s->ground_elevation),
+                    UNIT("apex_height", DRAGARC_Q_LENGTH));
+    }
     if (s->ground_surface_given) {
         double rest_cross = f->rest_position[0] * cos(s->launch.azimuth) - f->rest_position[1] * sin(s->launch.azimuth);
         double shown = SHOW("crossrange", DRAGARC_Q_LENGTH, rest_cross);

@@ -36,9 +36,9 @@ int dragarc_flight_write_csv(FILE *fp, const dragarc_flight *f, const dragarc_di
     dragarc_unit_column_suffix(ul->symbol, sl, sizeof sl);
     dragarc_unit_column_suffix(uv->symbol, sv, sizeof sv);
     dragarc_unit_column_suffix(uw->symbol, sw, sizeof sw);
-    fprintf(fp, "t_%s,x_%s,y_%s,z_%s,vx_%s,vy_%s,vz_%s,speed_%s,mach,reynolds,spin_%s,spin_factor,cl,cd\n", st, sl, sl,
-            sl, sv, sv, sv, sv, sw);
-    enum { NCOL = 14 };
+    fprintf(fp, "t_%s,x_%s,y_%s,z_%s,vx_%s,vy_%s,vz_%s,speed_%s,mach,reynolds,spin_%s,spin_factor,cl,cd,diameter_%s\n", st,
+            sl, sl, sl, sv, sv, sv, sv, sw, sl);
+    enum { NCOL = 15 };
     for (size_t i = 0; i < f->npoints; i++) {
         const dragarc_flight_point *p = &f->points[i];
         double v[NCOL] = {dragarc_display_value(ut, p->t),      dragarc_display_value(ul, p->pos[0]),
@@ -48,7 +48,7 @@ int dragarc_flight_write_csv(FILE *fp, const dragarc_flight *f, const dragarc_di
                           p->mach,                              p->reynolds,
                           dragarc_display_value(uw, p->spin * 60.0 / (2.0 * DRAGARC_PI)),
                           p->spin_factor,                       p->lift_coefficient,
-                          p->drag_coefficient};
+                          p->drag_coefficient,                  dragarc_display_value(ul, p->diameter)};
         for (int k = 0; k < NCOL; k++) {
             if (k)
                 fputc(',', fp);

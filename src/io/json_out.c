@@ -97,6 +97,14 @@ char *dragarc_flight_json(const dragarc_scenario *s, const dragarc_flight *f, co
     cJSON_AddItemToObject(sum, "impact_position", vec3_shown(un, d, "impact_position", DRAGARC_Q_LENGTH, f->impact));
     cJSON_AddItemToObject(sum, "impact_velocity",
                           vec3_shown(un, d, "impact_velocity", DRAGARC_Q_SPEED, f->impact + 3));
+    if (s->projectile.evaporation.enabled) {
+        const dragarc_projectile *p = &s->projectile;
+        double v_end = fmax(f->impact[7] * p->volume, p->evaporation.nonvolatile_fraction * p->volume), v_res = p->evaporation.nonvolatile_fraction * p->volume;
+        cJSON_AddBoolToObject(sum, "evaporated", f->evaporated);
+        add_shown(sum, un, d, "final_diameter", DRAGARC_Q_LENGTH, cbrt(6.0 / DRAGARC_PI * v_end));
+        add_num(sum, "water_evaporated", (p->volume - v_end) / (p->volume - v_res));
+        add_shown(sum, un, d, "wet_bulb_temperature", DRAGARC_Q_TEMPERATURE, f->wet_bulb);
+    }
     if (s->ground_surface_given) {
         cJSON_AddNumberToObject(sum, "bounces", f->bounces);
         add_shown(sum, un, d, "total_distance", DRAGARC_Q_LENGTH, f->total_distance);

@@ -207,6 +207,7 @@ static const struct {
     {"projectile.lift.cl", DRAGARC_Q_NUMBER},
     {"projectile.spin_decay_coefficient", DRAGARC_Q_NUMBER},
     {"projectile.inertia_factor", DRAGARC_Q_NUMBER},
+    {"projectile.evaporation.nonvolatile_fraction", DRAGARC_Q_NUMBER},
     {"environment.gravity", DRAGARC_Q_ACCELERATION},
     {"environment.atmosphere.site_elevation", DRAGARC_Q_LENGTH},
     {"environment.atmosphere.temperature_offset", DRAGARC_Q_TEMPERATURE_DIFFERENCE},
@@ -545,7 +546,7 @@ static int read_projectile_object(const cJSON *j, const char *path, dragarc_proj
 {
     static const char *const keys[] = {"name", "description", "source", "mass", "density", "diameter",
                                        "area", "volume", "drag", "lift", "spin_decay_coefficient",
-                                       "inertia_factor", NULL};
+                                       "inertia_factor", "evaporation", NULL};
     TRY(want_object(j, path, err));
     TRY(check_keys(j, path, keys, err));
     TRY(check_source(j, path, err));
@@ -594,6 +595,26 @@ static int read_projectile_object(const cJSON *j, const char *path, dragarc_proj
     if (lj) {
         join(field, sizeof field, path, "lift");
         TRY(read_lift(lj, field, &p->lift, err));
+    }
+    const cJSON *ej = cJSON_GetObjectItemCaseSensitive(j, "evaporation");
+    if (ej) {
+        static const char *const ekeys[] = {"liquid", "nonvolatile_fraction", "source", NULL};
+        join(field, sizeof field, path, "evaporation");
+        TRY(want_object(ej, field, err));
+        TRY(check_keys(ej, field, ekeys, err));
+        TRY(check_source(ej, field, err));
+        const char *liquid = "water";
+        TRY(get_string(ej, field, "liquid", 0, &liquid, err));
+        if (strcmp(liquid, "water") != 0) {
+            char lf[PATH_MAX_LEN];
+            join(lf, sizeof lf, field, "liquid");
+            return dragarc_error_set(err, DRAGARC_EINVAL, lf,
+                                     "only \"water\" evaporates in this model (got \"%s\"); put other non-volatile "
+                                     "ingredients in nonvolatile_fraction",
+                                     liquid);
+        }
+        p->evaporation.enabled = 1;
+        TRY(get_number(ej, field, "nonvolatile_fraction", 0, &p->evaporation.nonvolatile_fraction, NULL, err));
     }
     TRY(get_number(j, path, "spin_decay_coefficient", 0, &p->spin_decay_coefficient, NULL, err));
     TRY(get_number(j, path, "inertia_factor", 0, &p->inertia_factor, NULL, err));

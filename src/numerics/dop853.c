@@ -86,18 +86,18 @@ static const double BHH1 = 0.244094488188976377952755905512, BHH9 = 0.7338466882
 #define FAC_MIN (1.0 / 6.0) /* 1 / FAC2: the step grows at most sixfold */
 #define FAC_MAX 3.0         /* 1 / FAC1: and shrinks at most threefold per attempt */
 
-/* y0 + h sum_j a_ij k_j over the row's non-zero entries (seven accumulators: N is fixed at 7) */
+/* y0 + h sum_j a_ij k_j over the row's non-zero entries (eight accumulators: N is fixed at 8) */
 static inline void stage_state(const double y0[N], double (*k)[N], int i, double h, double out[N])
 {
     const stage_row *r = &A[i];
-    double a0 = 0.0, a1 = 0.0, a2 = 0.0, a3 = 0.0, a4 = 0.0, a5 = 0.0, a6 = 0.0;
+    double a0 = 0.0, a1 = 0.0, a2 = 0.0, a3 = 0.0, a4 = 0.0, a5 = 0.0, a6 = 0.0, a7 = 0.0;
     for (int m = 0; m < r->n; m++) {
         const double c = r->a[m], *kj = k[r->j[m]];
-        a0 += c * kj[0], a1 += c * kj[1], a2 += c * kj[2];
-        a3 += c * kj[3], a4 += c * kj[4], a5 += c * kj[5], a6 += c * kj[6];
+        a0 += c * kj[0], a1 += c * kj[1], a2 += c * kj[2], a3 += c * kj[3];
+        a4 += c * kj[4], a5 += c * kj[5], a6 += c * kj[6], a7 += c * kj[7];
     }
-    out[0] = y0[0] + h * a0, out[1] = y0[1] + h * a1, out[2] = y0[2] + h * a2;
-    out[3] = y0[3] + h * a3, out[4] = y0[4] + h * a4, out[5] = y0[5] + h * a5, out[6] = y0[6] + h * a6;
+    out[0] = y0[0] + h * a0, out[1] = y0[1] + h * a1, out[2] = y0[2] + h * a2, out[3] = y0[3] + h * a3;
+    out[4] = y0[4] + h * a4, out[5] = y0[5] + h * a5, out[6] = y0[6] + h * a6, out[7] = y0[7] + h * a7;
 }
 
 static double weight(const dop853 *s, double a, double b) { return s->atol + s->rtol * fmax(fabs(a), fabs(b)); }

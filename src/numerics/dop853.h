@@ -10,7 +10,7 @@
 #ifndef DRAGARC_DOP853_H
 #define DRAGARC_DOP853_H
 
-#define DOP853_N 7 /* position, velocity, spin rate */
+#define DOP853_N 8 /* position, velocity, spin rate, mass */
 
 /* Right-hand side f(t, y) -> dydt; returns 0, or non-zero when y cannot be evaluated (the stepper then
  * retries with a shorter step, and gives up after DOP853_MAX_RETRIES in a row). */

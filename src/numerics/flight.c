@@ -35,6 +35,7 @@
 
 #include "core/constants.h"
 #include "dragarc/flight.h"
+#include "dragarc/evaporation.h"
 #include "dragarc/forces.h"
 #include "numerics/dop853.h"
 
@@ -52,8 +53,10 @@
 
 typedef struct flight_ctx {
     dragarc_forces forces;
-    int n;                 /* components integrated: 6, or 7 when the spin rate is part of the state */
+    int n;                 /* components integrated: 6; 7 with the spin rate; 8 with the mass of an evaporating drop */
     double spin0;          /* rad/s, the launch spin rate: the spin throughout when n = 6 */
+    double mass_stop;      /* an evaporating drop that shrinks to this fraction of its launch mass has evaporated
+                            * (0: never) */
     double ceiling;        /* m, local height where the atmosphere model ends (INFINITY if it does not) */
     dragarc_error rhs_err; /* first failure seen inside the right-hand side */
     int rhs_failed;
@@ -63,6 +66,11 @@ typedef struct flight_ctx {
     double *breaks;        /* m above the datum: heights where the equations of motion are not smooth */
     size_t nbreaks;
 } flight_ctx;
+
+/* The state y of c->n values as NS values (the launch spin and mass where they are not integrated), with the height
+ * held at the top of the atmosphere model: trial states of a step may poke above it, and see the air at the top
+ * (continuous, and all but vacuum there), while the events stop a flight that really climbs past it. */
+static void full_state(const struct flight_ctx *c, const double *y, double ys[NS]);
 
 static int rhs(sunrealtype t, N_Vector y, N_Vector ydot, void *user)
 {
@@ -74,7 +82,8 @@ static int rhs(sunrealtype t, N_Vector y, N_Vector ydot, void *user)
     /* Trial states of a step may poke above the top of the atmosphere model; they see the air at the
      * top (continuous, and all but vacuum there), while the root function g2 stops a flight that
      * really climbs past it. */
-    double ys[NS] = {yv[0], yv[1], fmin(yv[2], c->ceiling), yv[3], yv[4], yv[5], c->n > 6 ? yv[6] : c->spin0}, d[NS];
+    double ys[NS], d[NS];
+    full_state(c, yv, ys);
     int rc = dragarc_forces_eval(&c->forces, ys, d, NULL, &e);
     memcpy(dv, d, (size_t)c->n * sizeof *dv);
     if (rc != DRAGARC_OK) {
@@ -103,6 +112,7 @@ static int roots(sunrealtype t, N_Vector y, sunrealtype *g, void *user)
     g[0] = yv[2] - c->forces.ground_elevation;
     g[1] = yv[5];
     g[2] = isfinite(c->ceiling) ? yv[2] - c->ceiling : -1.0;
+    g[3] = c->n == NS && c->mass_stop > 0.0 ? yv[7] - c->mass_stop : 1.0;
     return 0;
 }
 
@@ -144,6 +154,7 @@ static void launch_state(const dragarc_scenario *s, double y[NS])
     y[4] = l->speed * ch * cos(l->azimuth);
     y[5] = l->speed * sin(l->elevation);
     y[6] = l->spin_rate;
+    y[7] = 1.0;
 }
 
 /* Time to fall from the launch to the ground in vacuum; NaN if it never gets there. */
@@ -185,8 +196,10 @@ static int push_point(dragarc_flight *f, size_t *cap, const flight_ctx *c, doubl
     p->speed = sqrt(y[3] * y[3] + y[4] * y[4] + y[5] * y[5]);
     double ys[NS];
     memcpy(ys, y, sizeof ys);
-    if (c->n < NS)
+    if (c->n < 7)
         ys[6] = c->spin0;
+    if (c->n < 8)
+        ys[7] = 1.0;
     p->spin = ys[6];
     if (dragarc_forces_eval(&c->forces, ys, d, &flow, NULL) == DRAGARC_OK) {
         p->mach = flow.mach;
@@ -194,8 +207,9 @@ static int push_point(dragarc_flight *f, size_t *cap, const flight_ctx *c, doubl
         p->spin_factor = flow.spin_factor;
         p->lift_coefficient = flow.lift_coefficient;
         p->drag_coefficient = flow.drag_coefficient;
+        p->diameter = flow.diameter;
     } else {
-        p->mach = p->reynolds = p->spin_factor = p->lift_coefficient = p->drag_coefficient = NAN;
+        p->mach = p->reynolds = p->spin_factor = p->lift_coefficient = p->drag_coefficient = p->diameter = NAN;
     }
     return DRAGARC_OK;
 }
@@ -230,8 +244,10 @@ static void observe(dragarc_flight *f, const flight_ctx *c, const double *y)
 {
     double d[NS], ys[NS];
     memcpy(ys, y, sizeof ys);
-    if (c->n < NS)
+    if (c->n < 7)
         ys[6] = c->spin0;
+    if (c->n < 8)
+        ys[7] = 1.0;
     dragarc_flow flow;
     if (dragarc_forces_eval(&c->forces, ys, d, &flow, NULL) == DRAGARC_OK)
         observe_flow(f, c, flow);
@@ -290,12 +306,19 @@ static int err_no_impact(dragarc_error *err, const dragarc_scenario *s, double z
                              s->solver.max_time, z, z - s->ground_elevation);
 }
 
-/* A state of cx->n values as NS values (the launch spin rate when it is not integrated); returns out. */
+/* A state of cx->n values as NS values (the launch spin rate and mass where they are not integrated). */
 static double *widen(const flight_ctx *cx, const double *y, double out[NS])
 {
     for (int i = 0; i < NS; i++)
-        out[i] = i < cx->n ? y[i] : cx->spin0;
+        out[i] = i < cx->n ? y[i] : i == 6 ? cx->spin0 : 1.0;
     return out;
+}
+
+static void full_state(const flight_ctx *c, const double *y, double ys[NS])
+{
+    widen(c, y, ys);
+    if (!(ys[2] < c->ceiling))
+        ys[2] = c->ceiling;
 }
 
 /* Integrate with CVODE from y0 to impact, filling samples, apex, notes and steps; impact state in out->impact,
@@ -337,8 +360,8 @@ static int integrate_cvode(const dragarc_scenario *s, flight_ctx *cx, dragarc_me
     if (flag == CV_SUCCESS)
         flag = CVodeSetMaxNumSteps(mem, s->solver.max_steps);
     if (flag == CV_SUCCESS)
-        flag = CVodeRootInit(mem, 3, roots);
-    int dirs[3] = {-1, -1, +1};
+        flag = CVodeRootInit(mem, 4, roots);
+    int dirs[4] = {-1, -1, +1, -1};
     if (flag == CV_SUCCESS)
         flag = CVodeSetRootDirection(mem, dirs);
     if (flag == CV_SUCCESS)
@@ -402,7 +425,7 @@ static int integrate_cvode(const dragarc_scenario *s, flight_ctx *cx, dragarc_me
         }
         observe(out, cx, widen(cx, yv, yw));
         if (flag == CV_ROOT_RETURN) {
-            int found[3] = {0, 0, 0};
+            int found[4] = {0, 0, 0, 0};
             CVodeGetRootInfo(mem, found);
             if (found[2]) {
                 rc = err_left_atmosphere(cx, err, t);
@@ -416,7 +439,9 @@ static int integrate_cvode(const dragarc_scenario *s, flight_ctx *cx, dragarc_me
                 rc = err_peaks_below(err, yv[2], s->ground_elevation);
                 goto done;
             }
-            if (found[0])
+            if (found[3])
+                out->evaporated = 1;
+            if (found[0] || found[3])
                 landed = 1;
         } else if (flag == CV_TSTOP_RETURN || t >= s->solver.max_time) {
             rc = err_no_impact(err, s, yv[2]);
@@ -429,7 +454,10 @@ static int integrate_cvode(const dragarc_scenario *s, flight_ctx *cx, dragarc_me
     }
 
     widen(cx, N_VGetArrayPointer(y), out->impact);
-    out->impact[2] = s->ground_elevation; /* the root finder leaves |z - z_g| at round-off level */
+    if (out->evaporated)
+        out->impact[7] = cx->mass_stop; /* the root finder leaves it at round-off level */
+    else
+        out->impact[2] = s->ground_elevation; /* the root finder leaves |z - z_g| at round-off level */
     if ((rc = push_point(out, cap_, cx, t, out->impact)) != DRAGARC_OK)
         goto nomem;
     CVodeGetNumSteps(mem, &out->steps);
@@ -463,7 +491,8 @@ done:
  * component carries into the sum that is tested. */
 static int eval_checked(flight_ctx *c, const double *y, double *dydt, dragarc_flow *flow)
 {
-    double ys[NS] = {y[0], y[1], y[2] < c->ceiling ? y[2] : c->ceiling, y[3], y[4], y[5], c->n > 6 ? y[6] : c->spin0}, d[NS];
+    double ys[NS], d[NS];
+    full_state(c, y, ys);
     dragarc_error e;
     int rc = dragarc_forces_eval(&c->forces, ys, d, flow, &e);
     memcpy(dydt, d, (size_t)c->n * sizeof *dydt);
@@ -627,6 +656,17 @@ static int integrate_rk(const dragarc_scenario *s, flight_ctx *cx, double dt, co
                 rk_locate(part, &sys, tprev, yprev, ta, ya, t, y, 2, zg, 1.0, &t_hit, y_hit) != 0)
                 goto partial_failed;
         }
+        /* An evaporating drop that shrinks away before it lands ends the flight there. */
+        if (cx->n == NS && cx->mass_stop > 0.0 && y[7] <= cx->mass_stop && yprev[7] > cx->mass_stop) {
+            double t_van, y_van[NS];
+            if (rk_locate(part, &sys, tprev, yprev, tprev, yprev, t, y, 7, cx->mass_stop, 1.0, &t_van, y_van) != 0)
+                goto partial_failed;
+            if (t_van < t_hit) {
+                t_hit = t_van;
+                memcpy(y_hit, y_van, sizeof y_hit);
+                out->evaporated = 1;
+            }
+        }
         double t_stop = fmin(t, fmin(t_hit, t_top));
         while (dt > 0.0 && k * dt < t_stop) {
             if (out->npoints >= MAX_SAMPLES) {
@@ -659,7 +699,10 @@ static int integrate_rk(const dragarc_scenario *s, flight_ctx *cx, double dt, co
         if (isfinite(t_hit)) {
             observe(out, cx, y_hit);
             memcpy(out->impact, y_hit, sizeof out->impact);
-            out->impact[2] = s->ground_elevation; /* the crossing is located to round-off */
+            if (out->evaporated)
+                out->impact[7] = cx->mass_stop;
+            else
+                out->impact[2] = s->ground_elevation; /* the crossing is located to round-off */
             if ((rc = push_point(out, cap, cx, t_hit, out->impact)) != DRAGARC_OK)
                 goto done;
             *t_end = t_hit;
@@ -699,7 +742,8 @@ static int dop_rhs(double t, const double y[NS], double dydt[NS], void *user)
 {
     (void)t;
     flight_ctx *c = user;
-    dydt[6] = 0.0; /* the spin rate stays constant when it is not integrated */
+    for (int i = c->n; i < NS; i++)
+        dydt[i] = 0.0; /* what is not integrated stays constant */
     return eval_checked(c, y, dydt, c->stepper && c->stepper->at_step_end ? &c->flow : NULL);
 }
 
@@ -839,6 +883,15 @@ static int dop_step_events(const dragarc_scenario *s, flight_ctx *cx, dop853 *st
                 return dop_failure(cx, DOP853_ERHS, t_hit, err);
         }
     }
+    /* An evaporating drop that shrinks away before it lands ends the flight there. */
+    if (cx->n == NS && cx->mass_stop > 0.0 && y[7] <= cx->mass_stop && yp[7] > cx->mass_stop) {
+        double t_van = dense_locate(st, st->t_old, 7, cx->mass_stop, 1.0);
+        if (t_van < t_hit) {
+            t_hit = t_van;
+            dop853_dense_eval(st, t_hit, y_hit);
+            out->evaporated = 1;
+        }
+    }
     double t_stop = fmin(st->t, fmin(t_hit, t_top));
     while (dt > 0.0 && *k * dt < t_stop) {
         if (out->npoints >= MAX_SAMPLES)
@@ -865,7 +918,10 @@ static int dop_step_events(const dragarc_scenario *s, flight_ctx *cx, dop853 *st
     if (isfinite(t_hit)) {
         observe(out, cx, y_hit);
         memcpy(out->impact, y_hit, sizeof out->impact);
-        out->impact[2] = zg; /* the crossing is located to round-off */
+        if (out->evaporated)
+            out->impact[7] = cx->mass_stop;
+        else
+            out->impact[2] = zg; /* the crossing is located to round-off */
         if ((rc = push_point(out, cap, cx, t_hit, out->impact)) != DRAGARC_OK)
             return rc;
         *t_end = t_hit;
@@ -884,12 +940,16 @@ static int integrate_dop853(const dragarc_scenario *s, flight_ctx *cx, double dt
     cx->stepper = &st; /* for dop_rhs: which evaluation ends a step */
     double ys0[NS];
     memcpy(ys0, y0, sizeof ys0);
-    if (cx->n < NS)
-        ys0[6] = 0.0; /* not integrated: kept out of the starting-step estimate (eval_checked uses spin0) */
+    for (int i = cx->n; i < NS; i++)
+        ys0[i] = 0.0; /* not integrated: kept out of the starting-step estimate (eval_checked uses spin0, the launch mass) */
+    if (cx->n == NS && !(cx->spin0 > 0.0))
+        ys0[6] = 0.0;
     int rc, ds = dop853_init(&st, dop_rhs, cx, s->solver.rtol, s->solver.atol, 0.0, ys0, s->solver.max_time);
     if (ds != DOP853_OK)
         return dop_failure(cx, ds, 0.0, err);
-    st.n_err = cx->n; /* a constant spin rate does not dilute the error norm */
+    /* components that stay exactly zero (a spin rate not integrated, no spin on an evaporating drop) do not
+     * dilute the error norm */
+    st.n_err = cx->n == NS && !(cx->spin0 > 0.0) ? NS - 1 : cx->n;
     if (gather_breaks(s, cx) != DRAGARC_OK)
         return dragarc_error_set(err, DRAGARC_ENOMEM, "", "could not allocate the integrator");
     if (cx->nbreaks)
@@ -922,7 +982,8 @@ static int integrate_dop853(const dragarc_scenario *s, flight_ctx *cx, double dt
         int apex = yp[5] > 0.0 && y[5] <= 0.0;
         int may_land = fmax(yp[2], y[2]) > zg || apex;
         int sample = dt > 0.0 && k * dt < st.t;
-        if (crosses_top || apex || (may_land && y[2] <= zg) || sample) {
+        int vanishes = cx->n == NS && cx->mass_stop > 0.0 && y[7] <= cx->mass_stop;
+        if (crosses_top || apex || (may_land && y[2] <= zg) || sample || vanishes) {
             int landed = 0;
             rc = dop_step_events(s, cx, &st, dt, &k, crosses_top, apex, out, cap, &landed, t_end, err);
             if (rc != DRAGARC_OK || landed)
@@ -946,7 +1007,7 @@ static void set_spin(const dragarc_scenario *s, flight_ctx *c, const double axis
     int spin_matters = rate > 0.0 && (s->projectile.lift.model != DRAGARC_LIFT_NONE || s->launch.spin_decay_time > 0.0 ||
                                       s->projectile.spin_decay_coefficient > 0.0 ||
                                       s->projectile.drag.model == DRAGARC_DRAG_SPIN_TABLE);
-    c->n = spin_matters ? NS : 6;
+    c->n = s->projectile.evaporation.enabled ? 8 : spin_matters ? 7 : 6;
     c->spin0 = rate;
 }
 
@@ -965,8 +1026,10 @@ static int integrate(const dragarc_scenario *s, flight_ctx *c, dragarc_method me
     } else {
         rc = integrate_cvode(s, c, method, dt, y0, out, cap, t, err);
     }
-    if (rc == DRAGARC_OK && c->n < NS)
+    if (rc == DRAGARC_OK && c->n < 7)
         out->impact[6] = c->spin0;
+    if (rc == DRAGARC_OK && c->n < 8)
+        out->impact[7] = 1.0;
     return rc;
 }
 
@@ -1090,6 +1153,21 @@ int dragarc_flight_run(const dragarc_scenario *s, double dt, dragarc_flight *out
     flight_ctx c;
     memset(&c, 0, sizeof c);
     dragarc_forces_init(&c.forces, &s->projectile, &s->atmosphere, &s->wind, s->gravity, s->ground_elevation);
+    if (s->projectile.evaporation.enabled) {
+        /* The wet bulb of the air at the launch height, held for the flight (docs/models.md). */
+        dragarc_air a0;
+        double tw;
+        if ((rc = dragarc_atmosphere_eval(&s->atmosphere, s->launch.height, &a0, err)) != DRAGARC_OK ||
+            (rc = dragarc_wet_bulb_temperature(a0.temperature, a0.pressure, s->atmosphere.relative_humidity, &tw, err)) !=
+                DRAGARC_OK)
+            return rc;
+        dragarc_forces_evaporation(&c.forces, dragarc_vapour_density_excess(tw, a0.temperature,
+                                                                            s->atmosphere.relative_humidity));
+        const double dstop = DRAGARC_EVAPORATED_DIAMETER;
+        double vstop = DRAGARC_PI / 6.0 * dstop * dstop * dstop;
+        c.mass_stop = c.forces.residue_volume < vstop ? vstop / s->projectile.volume : 0.0;
+        out->wet_bulb = tw;
+    }
     if (s->launch.spin_rate > 0.0) {
         double axis[3];
         if (s->launch.spin_axis_given)
@@ -1148,6 +1226,8 @@ int dragarc_flight_run(const dragarc_scenario *s, double dt, dragarc_flight *out
     out->total_distance = out->range;
     out->rest_position[0] = ex, out->rest_position[1] = ny;
     out->rest_time = t;
+    if (out->evaporated)
+        return DRAGARC_OK; /* it never lands: no impact energy, no bounce */
     if (out->impact_energy >= 15.0)
         out->notes |= DRAGARC_NOTE_HIGH_ENERGY;
     if (s->launch.spin_rate > 0.0 || s->ground_surface_given)

@@ -9,10 +9,11 @@
 #include <math.h>
 
 #include <gsl/gsl_errno.h>
-#include <gsl/gsl_roots.h>
 
 #include "dragarc/flight.h"
 #include "dragarc/forces.h"
+#include "dragarc/evaporation.h"
+#include "numerics/roots.h"
 
 typedef struct balance {
     const dragarc_projectile *p;
@@ -58,27 +59,38 @@ int dragarc_terminal_speed(const dragarc_scenario *s, double z, double *vt, drag
         if (lo <= 1e-12)
             lo = 0.0;
     }
-    gsl_function fn = {imbalance, &b};
-    gsl_root_fsolver *solver = gsl_root_fsolver_alloc(gsl_root_fsolver_brent);
-    if (!solver)
+    int status = dragarc_brent_root(imbalance, &b, lo, hi, 1e-13, vt);
+    if (status == GSL_ENOMEM)
         return dragarc_error_set(err, DRAGARC_ENOMEM, "", "could not allocate a root finder");
-    int status = gsl_root_fsolver_set(solver, &fn, lo, hi);
-    for (int iter = 0; status == GSL_SUCCESS && iter < 200; iter++) {
-        status = gsl_root_fsolver_iterate(solver);
-        if (status != GSL_SUCCESS)
-            break;
-        double a = gsl_root_fsolver_x_lower(solver), c = gsl_root_fsolver_x_upper(solver);
-        status = gsl_root_test_interval(a, c, 0.0, 1e-13);
-        if (status == GSL_SUCCESS) {
-            *vt = gsl_root_fsolver_root(solver);
-            break;
-        }
-        if (status == GSL_CONTINUE)
-            status = GSL_SUCCESS;
-    }
-    gsl_root_fsolver_free(solver);
     if (!isfinite(*vt))
         return dragarc_error_set(err, DRAGARC_ESOLVER, "", "terminal speed: Brent's method did not converge (%s)",
                                  gsl_strerror(status));
+    return DRAGARC_OK;
+}
+
+typedef struct air_state {
+    double temperature, pressure, humidity;
+} air_state;
+
+static double psychrometer(double tw, void *user)
+{
+    const air_state *a = user;
+    return dragarc_psychrometer_residual(tw, a->temperature, a->pressure, a->humidity);
+}
+
+int dragarc_wet_bulb_temperature(double temperature, double pressure, double relative_humidity, double *tw,
+                                 dragarc_error *err)
+{
+    air_state a = {temperature, pressure, relative_humidity};
+    /* The residual is negative 60 K below the air (no vapour pressure there to speak of) and not negative at the
+     * air's own temperature (saturated air: zero), so the wet bulb lies between. */
+    if (relative_humidity >= 1.0) {
+        *tw = temperature;
+        return DRAGARC_OK;
+    }
+    int status = dragarc_brent_root(psychrometer, &a, temperature - 60.0, temperature, 1e-12, tw);
+    if (status != GSL_SUCCESS)
+        return dragarc_error_set(err, DRAGARC_ESOLVER, "environment.atmosphere",
+                                 "wet-bulb temperature: Brent's method did not converge (%s)", gsl_strerror(status));
     return DRAGARC_OK;
 }

@@ -18,6 +18,7 @@
  */
 #include <math.h>
 
+#include "core/constants.h"
 #include "dragarc/forces.h"
 
 void dragarc_forces_init(dragarc_forces *f, const dragarc_projectile *projectile, const dragarc_atmosphere *atmosphere,
@@ -52,6 +53,14 @@ void dragarc_forces_spin(dragarc_forces *f, const double axis[3], double decay_t
     f->spin_decay_rate = decay_time > 0.0 ? 1.0 / decay_time : 0.0;
 }
 
+void dragarc_forces_evaporation(dragarc_forces *f, double vapour_excess)
+{
+    const dragarc_projectile *p = f->projectile;
+    f->evaporating = 1;
+    f->vapour_excess = vapour_excess;
+    f->residue_volume = p->evaporation.nonvolatile_fraction * p->volume;
+}
+
 int dragarc_forces_eval(const dragarc_forces *f, const double y[DRAGARC_STATE_DIM], double dydt[DRAGARC_STATE_DIM],
                         dragarc_flow *flow, dragarc_error *err)
 {
@@ -65,11 +74,26 @@ int dragarc_forces_eval(const dragarc_forces *f, const double y[DRAGARC_STATE_DI
     double rel[3] = {y[3] - w[0], y[4] - w[1], y[5] - w[2]};
     double speed = sqrt(rel[0] * rel[0] + rel[1] * rel[1] + rel[2] * rel[2]);
     double inv_m = f->prepared ? f->inv_mass : 1.0 / p->mass;
+    double diameter = p->diameter, area = p->area, volume = p->volume, dmass = 0.0;
+    if (f->evaporating) {
+        /* The drop keeps its density (water and residue alike): its size follows its mass. */
+        /* y[7]: the mass as a fraction of the launch mass. The step that ends the evaporation (where dm/dt drops to
+         * 0) may leave it below the residue by about the integration tolerance; the drop is never smaller. */
+        volume = fmax(y[7] * p->volume, f->residue_volume);
+        diameter = cbrt(6.0 / DRAGARC_PI * volume);
+        area = 0.25 * DRAGARC_PI * diameter * diameter;
+        inv_m = 1.0 / (volume * p->density);
+        if (volume > f->residue_volume) {
+            double re = air.density * speed * diameter / air.viscosity;
+            dmass = dragarc_evaporation_rate(diameter, re, air.density, air.viscosity,
+                                             dragarc_vapour_diffusivity(air.temperature, air.pressure), f->vapour_excess);
+        }
+    }
     /* The spin first: the spin factor S sets the lift and may set the drag (a spin_table). */
     const double *a = f->spin_axis, spin = y[6];
     double S = 0.0, cl = 0.0, lift_k = 0.0, c[3] = {0.0, 0.0, 0.0}, dspin = 0.0;
     if ((a[0] != 0.0 || a[1] != 0.0 || a[2] != 0.0) && spin > 0.0) {
-        const double radius = 0.5 * p->diameter;
+        const double radius = 0.5 * diameter;
         dspin = -spin * (f->spin_decay_rate + p->spin_decay_coefficient * speed / radius);
         if (speed > 0.0) {
             c[0] = a[1] * rel[2] - a[2] * rel[1], c[1] = a[2] * rel[0] - a[0] * rel[2], c[2] = a[0] * rel[1] - a[1] * rel[0];
@@ -78,14 +102,14 @@ int dragarc_forces_eval(const dragarc_forces *f, const double y[DRAGARC_STATE_DI
                 S = radius * spin * cn / (speed * speed); /* r w_perp / |v_rel|, w_perp = w |w^ x v_rel^| */
                 if (p->lift.model != DRAGARC_LIFT_NONE) {
                     cl = dragarc_lift_coefficient(&p->lift, S);
-                    lift_k = 0.5 * air.density * cl * p->area * speed * speed * inv_m / cn;
+                    lift_k = 0.5 * air.density * cl * area * speed * speed * inv_m / cn;
                 }
             }
         }
     }
-    double dfac = dragarc_drag_factor_spin(&p->drag, speed, &air, p->diameter, p->area, S);
+    double dfac = dragarc_drag_factor_spin(&p->drag, speed, &air, diameter, area, S);
     double dm = dfac * inv_m;
-    double buoy = air.density * p->volume * f->gravity * inv_m;
+    double buoy = air.density * volume * f->gravity * inv_m;
     dydt[0] = y[3];
     dydt[1] = y[4];
     dydt[2] = y[5];
@@ -93,14 +117,16 @@ int dragarc_forces_eval(const dragarc_forces *f, const double y[DRAGARC_STATE_DI
     dydt[4] = -dm * rel[1] + lift_k * c[1];
     dydt[5] = -f->gravity + buoy - dm * rel[2] + lift_k * c[2];
     dydt[6] = dspin;
+    dydt[7] = dmass / p->mass;
     if (flow) {
         flow->air = air;
         flow->wind[0] = w[0], flow->wind[1] = w[1], flow->wind[2] = w[2];
         flow->airspeed = speed;
         flow->mach = speed / air.speed_of_sound;
-        flow->reynolds = air.density * speed * p->diameter / air.viscosity;
+        flow->reynolds = air.density * speed * diameter / air.viscosity;
         flow->drag_factor = dfac;
-        flow->drag_coefficient = air.density > 0.0 && speed > 0.0 ? 2.0 * dfac / (air.density * p->area * speed) : NAN;
+        flow->drag_coefficient = air.density > 0.0 && speed > 0.0 ? 2.0 * dfac / (air.density * area * speed) : NAN;
+        flow->diameter = diameter;
         flow->spin_factor = S;
         flow->lift_coefficient = cl;
     }

@@ -25,7 +25,16 @@ int dragarc_projectile_check(const dragarc_projectile *p, dragarc_error *err)
     if (!(p->inertia_factor == 0.0 || (p->inertia_factor > 0.0 && p->inertia_factor <= DRAGARC_INERTIA_FACTOR_MAX)))
         return dragarc_error_set(err, DRAGARC_EINVAL, "inertia_factor",
                                  "must be above 0 and at most 0.667 (2/3, a thin shell) (got %g)", p->inertia_factor);
-    int rc = dragarc_lift_check(&p->lift, err);
+    int rc = dragarc_evaporation_check(&p->evaporation, err);
+    if (rc != DRAGARC_OK) {
+        dragarc_error_prefix(err, "evaporation");
+        return rc;
+    }
+    if (p->evaporation.enabled && !(p->density > 0.0))
+        return dragarc_error_set(err, DRAGARC_EINVAL, "evaporation",
+                                 "needs the drop's density (projectile.density) rather than a mass: the mass follows "
+                                 "the shrinking volume");
+    rc = dragarc_lift_check(&p->lift, err);
     if (rc != DRAGARC_OK) {
         dragarc_error_prefix(err, "lift");
         return rc;

@@ -55,6 +55,10 @@ int dragarc_scenario_check(const dragarc_scenario *s, dragarc_error *err)
     if (l->spin_decay_time > 0.0 && s->projectile.spin_decay_coefficient > 0.0)
         return dragarc_error_set(err, DRAGARC_EINVAL, "launch.spin.decay_time",
                                  "give either this or projectile.spin_decay_coefficient, not both");
+    if (s->projectile.evaporation.enabled && s->atmosphere.model != DRAGARC_ATMOSPHERE_LOCAL)
+        return dragarc_error_set(err, DRAGARC_EINVAL, "projectile.evaporation",
+                                 "needs environment.atmosphere.model \"local\": the air's temperature and relative "
+                                 "humidity drive the evaporation");
     if (s->ground_surface_given) {
         if ((rc = dragarc_surface_check(&s->surface, err)) != DRAGARC_OK) {
             dragarc_error_prefix(err, "ground.surface");

@@ -88,7 +88,7 @@ printf '%s\n' '"range": "yd",' '"downrange": "ft",' '"impact_speed": "mph",' '"i
 check "fly --units us --unit range=yd --json: the units object names each value's unit"
 "$bin" fly "$data/ball-in-wind.json" --units us --trajectory "$root/t.csv" 2>"$root/err" >/dev/null
 head -1 "$root/t.csv" >"$root/a"
-echo "t_s,x_ft,y_ft,z_ft,vx_mph,vy_mph,vz_mph,speed_mph,mach,reynolds,spin_rpm,spin_factor,cl,cd" >"$root/b"
+echo "t_s,x_ft,y_ft,z_ft,vx_mph,vy_mph,vz_mph,speed_mph,mach,reynolds,spin_rpm,spin_factor,cl,cd,diameter_ft" >"$root/b"
 check "fly --units us --trajectory: the column names carry the units"
 
 # atmosphere --units us: each column of the SI table times its exact factor, to the 5 or 6 digits printed
