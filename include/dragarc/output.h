@@ -97,6 +97,20 @@ int dragarc_aim_table_write(FILE *fp, dragarc_table_format format, const char *s
 /* The `atmosphere --json` document for atmosphere atm (isa: its temperature offset, n geometric altitudes in
  * m; local: the site's weather, n heights above the site in m) and the states there, in the units of
  * display d (NULL: SI) named in "units". Borrows everything; caller frees the text with free(). */
+/* A sprinkler's result as one JSON document (SI units): the nozzle, the classes flown and where each landed (its
+ * mean distance and time over the directions), the radial profile, the wetted radius, the shares of the flow
+ * deposited and evaporated, and the cautions. Caller frees with free(); NULL when out of memory. */
+struct dragarc_sprinkler_spec;
+struct dragarc_sprinkler_result;
+struct dragarc_spectrum_class;
+char *dragarc_sprinkler_json(const struct dragarc_sprinkler_spec *spec, const struct dragarc_spectrum_class *classes,
+                             const struct dragarc_sprinkler_result *r);
+
+/* The radial profile (r_inner_m,r_outer_m,rate_mm_h) and the grid (x_m,y_m,rate_mm_h at cell centres) as CSV. */
+int dragarc_sprinkler_write_profile_csv(FILE *fp, const struct dragarc_sprinkler_result *r, double ring_width,
+                                        dragarc_error *err);
+int dragarc_sprinkler_write_grid_csv(FILE *fp, const struct dragarc_sprinkler_result *r, dragarc_error *err);
+
 char *dragarc_atmosphere_json(const dragarc_atmosphere *atm, const double *altitudes, const dragarc_air *levels,
                               size_t n, const dragarc_display *d);
 

@@ -16,6 +16,7 @@
 
 #include "dragarc/nozzle.h"
 #include "dragarc/scenario.h"
+#include "dragarc/spectrum.h"
 
 #ifdef __cplusplus
 extern "C" {
@@ -74,6 +75,31 @@ int dragarc_sprinkler_run(const dragarc_scenario *base, const dragarc_sprinkler_
                           dragarc_sprinkler_result *out, dragarc_error *err);
 
 void dragarc_sprinkler_clear(dragarc_sprinkler_result *r);
+
+/* A sprinkler scenario file as read (src/io/scenario_json.c): the nozzle and its drops, and the air, wind, ground
+ * and solver as in any scenario. */
+typedef struct dragarc_sprinkler_spec {
+    dragarc_scenario base;         /* owned: the drop (water, sphere drag, evaporating in a local atmosphere), the
+                                    * nozzle's height and elevation, the air, wind, ground and solver */
+    dragarc_nozzle nozzle;
+    double arc_from, arc_to;       /* rad */
+    size_t ndirections;
+    dragarc_spectrum spectrum;     /* owned */
+    size_t nclasses;
+    dragarc_spectrum_spacing spacing;
+    double ring_width, cell;       /* m */
+} dragarc_sprinkler_spec;
+
+/* Read a sprinkler scenario file (docs/sprinkler.md). Fills *out (caller frees with dragarc_sprinkler_spec_clear,
+ * also after failure); errors name the field ("sprinkler.nozzle.pressure: ..."). */
+int dragarc_sprinkler_spec_read(const char *path, dragarc_sprinkler_spec *out, dragarc_error *err);
+int dragarc_sprinkler_spec_parse(const char *json, dragarc_sprinkler_spec *out, dragarc_error *err);
+void dragarc_sprinkler_spec_clear(dragarc_sprinkler_spec *spec);
+
+/* Discretise spec's spectrum and fly it: dragarc_sprinkler_run with the spec's request. The classes are written to
+ * classes (caller's array of spec->nclasses). */
+int dragarc_sprinkler_spec_run(const dragarc_sprinkler_spec *spec, dragarc_spectrum_class *classes,
+                               dragarc_sprinkler_result *out, dragarc_error *err);
 
 #ifdef __cplusplus
 }

@@ -18,6 +18,7 @@ static const char USAGE[] =
     "                        fly it for every combination of varied values; text, CSV, JSON, Markdown\n"
     "  atmosphere ALT...     U.S. Standard Atmosphere 1976 at geometric altitudes in metres, or the\n"
     "                        day's weather at a site (--temperature, --pressure, --relative-humidity)\n"
+    "  sprinkler SCENARIO    a sprinkler's drops: where each size lands, the application-rate pattern (mm/h)\n"
     "  demo                  fly built-in example scenarios and explain what they show\n"
     "\n"
     "options:\n"
@@ -68,6 +69,8 @@ static int run(int argc, char **argv)
         return cmd_atmosphere(argc - 1, argv + 1);
     if (strcmp(cmd, "demo") == 0)
         return cmd_demo(argc - 1, argv + 1);
+    if (strcmp(cmd, "sprinkler") == 0)
+        return cmd_sprinkler(argc - 1, argv + 1);
     fprintf(stderr, "dragarc: unknown command '%s' (see 'dragarc --help')\n", cmd);
     return EXIT_BAD_INPUT;
 }

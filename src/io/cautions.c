@@ -26,6 +26,10 @@ static const char SPECTATORS[] =
     "A struck or thrown ball can injure spectators, players and passers-by where it lands or bounces: netting, "
     "fencing, stands and venue layouts follow local codes and the sport's own safety guidance, not this "
     "estimate; real balls scatter more than one modelled flight.";
+static const char IRRIGATION[] =
+    "Sprinkler layouts, application rates and watering schedules follow local codes and water-use rules; the "
+    "pattern is modelled for one sprinkler on flat ground, and catch-can tests under the applicable test standard "
+    "decide what a sprinkler actually lays down.";
 static const char DENSE[] =
     "The fluid's density is more than 1 % of the body's: buoyancy is included, but added mass and unsteady "
     "(history) forces are not, so the acceleration phase is only approximate.";
@@ -54,6 +58,8 @@ size_t dragarc_cautions_notes(unsigned notes, const char **out, size_t max)
         all[n++] = DENSE;
     if (notes & DRAGARC_NOTE_BALL)
         all[n++] = SPECTATORS;
+    if (notes & DRAGARC_NOTE_IRRIGATION)
+        all[n++] = IRRIGATION;
     size_t k = n < max ? n : max;
     for (size_t i = 0; i < k; i++)
         out[i] = all[i];

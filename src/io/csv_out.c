@@ -7,6 +7,7 @@
 
 #include "core/constants.h"
 #include "dragarc/output.h"
+#include "dragarc/sprinkler.h"
 
 void dragarc_unit_column_suffix(const char *symbol, char *out, size_t n)
 {
@@ -60,3 +61,43 @@ int dragarc_flight_write_csv(FILE *fp, const dragarc_flight *f, const dragarc_di
         return dragarc_error_set(err, DRAGARC_EIO, "", "write failed: %s", strerror(errno));
     return DRAGARC_OK;
 }
+
+static int csv_done(FILE *fp, dragarc_error *err)
+{
+    if (ferror(fp))
+        return dragarc_error_set(err, DRAGARC_EIO, "", "write failed: %s", strerror(errno));
+    return DRAGARC_OK;
+}
+
+static void csv_row(FILE *fp, const double *v, int n)
+{
+    for (int k = 0; k < n; k++) {
+        if (k)
+            fputc(',', fp);
+        dragarc_number_write(fp, v[k]);
+    }
+    fputc('\n', fp);
+}
+
+int dragarc_sprinkler_write_profile_csv(FILE *fp, const dragarc_sprinkler_result *r, double ring_width,
+                                        dragarc_error *err)
+{
+    fputs("r_inner_m,r_outer_m,rate_mm_h\n", fp);
+    for (size_t k = 0; k < r->nrings; k++) {
+        double v[3] = {k * ring_width, (k + 1) * ring_width, r->ring_rate[k]};
+        csv_row(fp, v, 3);
+    }
+    return csv_done(fp, err);
+}
+
+int dragarc_sprinkler_write_grid_csv(FILE *fp, const dragarc_sprinkler_result *r, dragarc_error *err)
+{
+    fputs("x_m,y_m,rate_mm_h\n", fp);
+    for (size_t j = 0; j < r->ny; j++)
+        for (size_t i = 0; i < r->nx; i++) {
+            double v[3] = {r->x0 + (i + 0.5) * r->cell, r->y0 + (j + 0.5) * r->cell, r->grid_rate[j * r->nx + i]};
+            csv_row(fp, v, 3);
+        }
+    return csv_done(fp, err);
+}
+

@@ -13,6 +13,7 @@
 #include "core/constants.h"
 #include "dragarc/aim.h"
 #include "dragarc/cautions.h"
+#include "dragarc/sprinkler.h"
 #include "dragarc/output.h"
 #include "dragarc/units.h"
 
@@ -244,3 +245,63 @@ char *dragarc_atmosphere_json(const dragarc_atmosphere *atm, const double *altit
     cJSON_AddItemToObject(doc, "units", un);
     return finish(doc);
 }
+
+char *dragarc_sprinkler_json(const dragarc_sprinkler_spec *spec, const dragarc_spectrum_class *classes,
+                             const dragarc_sprinkler_result *r)
+{
+    cJSON *doc = cJSON_CreateObject();
+    if (!doc)
+        return NULL;
+    cJSON_AddStringToObject(doc, "scenario", spec->base.name);
+    cJSON_AddStringToObject(doc, "dragarc_version", DRAGARC_VERSION_STRING);
+    cJSON *nz = cJSON_AddObjectToObject(doc, "nozzle");
+    add_num(nz, "exit_speed", r->exit_speed);
+    add_num(nz, "flow", r->flow);
+    add_num(nz, "height", spec->base.launch.height);
+    add_num(nz, "elevation", spec->base.launch.elevation / DRAGARC_DEG);
+    cJSON *sum = cJSON_AddObjectToObject(doc, "summary");
+    add_num(sum, "wetted_radius", r->wetted_radius);
+    add_num(sum, "deposited_fraction", r->deposited_fraction);
+    add_num(sum, "evaporated_fraction", r->evaporated_fraction);
+    cJSON_AddNumberToObject(sum, "failed_flights", (double)r->nfailed);
+    cJSON *cl = cJSON_AddArrayToObject(doc, "classes");
+    for (size_t i = 0; i < r->nclasses; i++) {
+        double dist = 0.0, time = 0.0, left = 0.0, dmin = INFINITY, dmax = 0.0;
+        size_t ok = 0;
+        for (size_t j = 0; j < r->ndirections; j++) {
+            const dragarc_sprinkler_drop *dr = &r->drops[i * r->ndirections + j];
+            if (dr->status != DRAGARC_OK)
+                continue;
+            ok++;
+            dist += dr->distance, time += dr->time, left += dr->water_left;
+            dmin = fmin(dmin, dr->distance), dmax = fmax(dmax, dr->distance);
+        }
+        cJSON *o = cJSON_CreateObject();
+        add_num(o, "diameter", classes[i].diameter);
+        add_num(o, "fraction", classes[i].fraction);
+        add_num(o, "distance", ok ? dist / ok : NAN);
+        add_num(o, "distance_min", ok ? dmin : NAN);
+        add_num(o, "distance_max", ok ? dmax : NAN);
+        add_num(o, "time", ok ? time / ok : NAN);
+        add_num(o, "water_left", ok ? left / ok : NAN);
+        cJSON_AddItemToArray(cl, o);
+    }
+    cJSON *prof = cJSON_AddArrayToObject(doc, "radial_profile");
+    for (size_t k = 0; k < r->nrings; k++) {
+        cJSON *o = cJSON_CreateObject();
+        add_num(o, "r_inner", k * spec->ring_width);
+        add_num(o, "r_outer", (k + 1) * spec->ring_width);
+        add_num(o, "rate", r->ring_rate[k]);
+        cJSON_AddItemToArray(prof, o);
+    }
+    cJSON *un = cJSON_AddObjectToObject(doc, "units");
+    static const char *const U[][2] = {{"exit_speed", "m/s"}, {"flow", "m3/s"}, {"height", "m"},
+                                       {"elevation", "degree"}, {"wetted_radius", "m"}, {"diameter", "m"},
+                                       {"distance", "m"}, {"time", "s"}, {"r_inner", "m"}, {"r_outer", "m"},
+                                       {"rate", "mm/h"}};
+    for (size_t k = 0; k < sizeof U / sizeof U[0]; k++)
+        cJSON_AddStringToObject(un, U[k][0], U[k][1]);
+    add_cautions(doc, r->notes | DRAGARC_NOTE_IRRIGATION);
+    return finish(doc);
+}
+

@@ -15,6 +15,7 @@
 
 #include "core/constants.h"
 #include "dragarc/scenario.h"
+#include "dragarc/sprinkler.h"
 #include "dragarc/output.h"
 #include "dragarc/units.h"
 
@@ -229,6 +230,15 @@ static const struct {
     {"ground.elevation", DRAGARC_Q_LENGTH},
     {"ground.bounce.min_height", DRAGARC_Q_LENGTH},
     {"solver.max_time", DRAGARC_Q_TIME},
+    {"sprinkler.nozzle.diameter", DRAGARC_Q_LENGTH},
+    {"sprinkler.nozzle.pressure", DRAGARC_Q_PRESSURE},
+    {"sprinkler.height", DRAGARC_Q_LENGTH},
+    {"sprinkler.elevation", DRAGARC_Q_ANGLE},
+    {"sprinkler.liquid_density", DRAGARC_Q_DENSITY},
+    {"sprinkler.spectrum.dv50", DRAGARC_Q_LENGTH},
+    {"sprinkler.spectrum.scale", DRAGARC_Q_LENGTH},
+    {"sprinkler.ring_width", DRAGARC_Q_LENGTH},
+    {"sprinkler.cell", DRAGARC_Q_LENGTH},
 };
 
 typedef struct unit_pass {
@@ -1125,3 +1135,216 @@ int dragarc_scenario_read(const char *path, const char *profile_path, dragarc_sc
     free(text);
     return rc;
 }
+
+/* ---- sprinkler scenarios ---------------------------------------------------------------------------------- */
+
+/* sprinkler.spectrum: {"form": "rosin_rammler" | "log_normal" | "table", "dv50" or "scale", "spread" | "sigma" or
+ * "span", "points": [[d, fraction], ...], "classes", "spacing"}. */
+static int read_spectrum(const cJSON *j, const char *path, dragarc_sprinkler_spec *sp, dragarc_error *err)
+{
+    static const char *const keys[] = {"form", "dv50", "scale", "spread", "sigma", "span", "points", "classes",
+                                       "spacing", "source", NULL};
+    TRY(want_object(j, path, err));
+    TRY(check_keys(j, path, keys, err));
+    TRY(check_source(j, path, err));
+    const char *form = NULL, *spacing = "geometric";
+    TRY(get_string(j, path, "form", 1, &form, err));
+    TRY(get_string(j, path, "spacing", 0, &spacing, err));
+    char field[PATH_MAX_LEN];
+    dragarc_spectrum_form f;
+    if (dragarc_spectrum_form_from_name(form, &f) != DRAGARC_OK || f == DRAGARC_SPECTRUM_NONE) {
+        join(field, sizeof field, path, "form");
+        return dragarc_error_set(err, DRAGARC_EINVAL, field, "unknown spectrum form \"%s\" (rosin_rammler, log_normal, "
+                                 "table)", form);
+    }
+    if (dragarc_spectrum_spacing_from_name(spacing, &sp->spacing) != DRAGARC_OK) {
+        join(field, sizeof field, path, "spacing");
+        return dragarc_error_set(err, DRAGARC_EINVAL, field, "unknown spacing \"%s\" (geometric, equal_volume)",
+                                 spacing);
+    }
+    double classes = 40.0, dv50 = NAN, scale = NAN, spread = NAN, sigma = NAN, span = NAN;
+    TRY(get_number(j, path, "classes", 0, &classes, NULL, err));
+    if (!(classes >= 1.0 && classes <= DRAGARC_SPECTRUM_MAX_CLASSES && classes == floor(classes))) {
+        join(field, sizeof field, path, "classes");
+        return dragarc_error_set(err, DRAGARC_EINVAL, field, "must be a whole number from 1 to %d (got %g)",
+                                 DRAGARC_SPECTRUM_MAX_CLASSES, classes);
+    }
+    sp->nclasses = (size_t)classes;
+    TRY(get_number(j, path, "dv50", 0, &dv50, NULL, err));
+    TRY(get_number(j, path, "scale", 0, &scale, NULL, err));
+    TRY(get_number(j, path, "spread", 0, &spread, NULL, err));
+    TRY(get_number(j, path, "sigma", 0, &sigma, NULL, err));
+    TRY(get_number(j, path, "span", 0, &span, NULL, err));
+    int rc = DRAGARC_OK;
+    if (f == DRAGARC_SPECTRUM_ROSIN_RAMMLER) {
+        if (isnan(dv50) == isnan(scale) || isnan(spread))
+            return dragarc_error_set(err, DRAGARC_EINVAL, path, "rosin_rammler needs dv50 (or scale) and spread");
+        rc = !isnan(dv50) ? dragarc_spectrum_rosin_rammler(&sp->spectrum, dv50, spread, err)
+                          : dragarc_spectrum_rosin_rammler_scale(&sp->spectrum, scale, spread, err);
+    } else if (f == DRAGARC_SPECTRUM_LOG_NORMAL) {
+        if (isnan(dv50) || isnan(sigma) == isnan(span))
+            return dragarc_error_set(err, DRAGARC_EINVAL, path, "log_normal needs dv50 and one of sigma or span");
+        rc = !isnan(sigma) ? dragarc_spectrum_log_normal(&sp->spectrum, dv50, sigma, err)
+                           : dragarc_spectrum_log_normal_span(&sp->spectrum, dv50, span, err);
+    } else {
+        double *x = NULL, *y = NULL;
+        int n = 0;
+        join(field, sizeof field, path, "points");
+        rc = read_pairs(cJSON_GetObjectItemCaseSensitive(j, "points"), field, "[diameter, fraction]", &x, &y, &n, err);
+        if (rc == DRAGARC_OK)
+            rc = dragarc_spectrum_table_set(&sp->spectrum, x, y, (size_t)n, err);
+        free(x), free(y);
+    }
+    if (rc != DRAGARC_OK && err && strncmp(err->field, path, strlen(path)) != 0)
+        dragarc_error_prefix(err, path);
+    return rc;
+}
+
+/* The sprinkler object: the nozzle, its height and elevation, its arc, the drops, and the pattern's resolution. */
+static int read_sprinkler(const cJSON *j, dragarc_sprinkler_spec *sp, dragarc_error *err)
+{
+    static const char *const keys[] = {"nozzle", "height", "elevation", "arc", "directions", "spectrum",
+                                       "liquid_density", "nonvolatile_fraction", "ring_width", "cell", NULL};
+    static const char *const nkeys[] = {"diameter", "pressure", "velocity_coefficient", "discharge_coefficient",
+                                        "source", NULL};
+    const char *path = "sprinkler";
+    TRY(want_object(j, path, err));
+    TRY(check_keys(j, path, keys, err));
+    const cJSON *n = cJSON_GetObjectItemCaseSensitive(j, "nozzle");
+    if (!n)
+        return dragarc_error_set(err, DRAGARC_EINVAL, "sprinkler.nozzle", "is required");
+    TRY(want_object(n, "sprinkler.nozzle", err));
+    TRY(check_keys(n, "sprinkler.nozzle", nkeys, err));
+    TRY(check_source(n, "sprinkler.nozzle", err));
+    dragarc_nozzle *nz = &sp->nozzle;
+    nz->liquid_density = 998.2;
+    TRY(get_number(j, path, "liquid_density", 0, &nz->liquid_density, NULL, err));
+    TRY(get_number(n, "sprinkler.nozzle", "diameter", 1, &nz->diameter, NULL, err));
+    TRY(get_number(n, "sprinkler.nozzle", "pressure", 1, &nz->pressure, NULL, err));
+    TRY(get_number(n, "sprinkler.nozzle", "velocity_coefficient", 1, &nz->velocity_coefficient, NULL, err));
+    TRY(get_number(n, "sprinkler.nozzle", "discharge_coefficient", 1, &nz->discharge_coefficient, NULL, err));
+    int rc = dragarc_nozzle_check(nz, err);
+    if (rc != DRAGARC_OK) {
+        dragarc_error_prefix(err, strcmp(err->field, "liquid_density") == 0 ? "sprinkler" : "sprinkler.nozzle");
+        return rc;
+    }
+    double elev = 0.0, dirs = 72.0, phi = 0.0;
+    dragarc_launch *l = &sp->base.launch;
+    TRY(get_number(j, path, "height", 1, &l->height, NULL, err));
+    TRY(get_number(j, path, "elevation", 1, &elev, NULL, err));
+    if (!(elev >= -90.0 && elev <= 90.0))
+        return dragarc_error_set(err, DRAGARC_EINVAL, "sprinkler.elevation", "must be between -90 and 90 degrees (got %g)",
+                                 elev);
+    l->elevation = elev * DRAGARC_DEG;
+    l->speed = dragarc_nozzle_exit_speed(nz);
+    sp->arc_from = 0.0, sp->arc_to = 2.0 * DRAGARC_PI;
+    const cJSON *arc = cJSON_GetObjectItemCaseSensitive(j, "arc");
+    if (arc) {
+        if (!cJSON_IsArray(arc) || cJSON_GetArraySize(arc) != 2 || !cJSON_IsNumber(arc->child) ||
+            !cJSON_IsNumber(arc->child->next))
+            return dragarc_error_set(err, DRAGARC_EINVAL, "sprinkler.arc",
+                                     "must be [from, to] in degrees clockwise from north, e.g. [0, 180]");
+        double a = arc->child->valuedouble, b = arc->child->next->valuedouble;
+        if (!(a >= -360.0 && a <= 360.0 && b > a && b - a <= 360.0))
+            return dragarc_error_set(err, DRAGARC_EINVAL, "sprinkler.arc",
+                                     "must turn clockwise through more than 0 and at most 360 degrees (got [%g, %g])",
+                                     a, b);
+        sp->arc_from = a * DRAGARC_DEG, sp->arc_to = b * DRAGARC_DEG;
+    }
+    TRY(get_number(j, path, "directions", 0, &dirs, NULL, err));
+    if (!(dirs >= 1.0 && dirs <= 3600.0 && dirs == floor(dirs)))
+        return dragarc_error_set(err, DRAGARC_EINVAL, "sprinkler.directions",
+                                 "must be a whole number from 1 to 3600 (got %g)", dirs);
+    sp->ndirections = (size_t)dirs;
+    sp->ring_width = 0.25, sp->cell = 0.5;
+    TRY(get_number(j, path, "ring_width", 0, &sp->ring_width, NULL, err));
+    TRY(get_number(j, path, "cell", 0, &sp->cell, NULL, err));
+    if (!(sp->ring_width >= 0.01 && sp->ring_width <= 100.0))
+        return dragarc_error_set(err, DRAGARC_EINVAL, "sprinkler.ring_width", "must be 0.01 to 100 m (got %g)",
+                                 sp->ring_width);
+    if (!(sp->cell >= 0.01 && sp->cell <= 100.0))
+        return dragarc_error_set(err, DRAGARC_EINVAL, "sprinkler.cell", "must be 0.01 to 100 m (got %g)", sp->cell);
+    TRY(get_number(j, path, "nonvolatile_fraction", 0, &phi, NULL, err));
+    const cJSON *spec = cJSON_GetObjectItemCaseSensitive(j, "spectrum");
+    if (!spec)
+        return dragarc_error_set(err, DRAGARC_EINVAL, "sprinkler.spectrum", "is required");
+    TRY(read_spectrum(spec, "sprinkler.spectrum", sp, err));
+    /* The drop: water of the liquid's density with sphere drag; evaporating in the day's air (local model). */
+    dragarc_projectile *p = &sp->base.projectile;
+    p->density = nz->liquid_density;
+    p->diameter = 1e-3; /* each class sets its own */
+    p->area = 0.25 * DRAGARC_PI * p->diameter * p->diameter;
+    p->volume = DRAGARC_PI / 6.0 * p->diameter * p->diameter * p->diameter;
+    p->mass = p->density * p->volume;
+    p->drag.model = DRAGARC_DRAG_SPHERE;
+    p->evaporation.nonvolatile_fraction = phi;
+    snprintf(p->name, sizeof p->name, "water drop");
+    return DRAGARC_OK;
+}
+
+static int read_sprinkler_root(const cJSON *root, dragarc_sprinkler_spec *sp, dragarc_error *err)
+{
+    static const char *const keys[] = {"name", "description", "sprinkler", "environment", "ground", "solver", NULL};
+    dragarc_scenario *s = &sp->base;
+    if (!cJSON_IsObject(root))
+        return dragarc_error_set(err, DRAGARC_EINVAL, "", "a scenario must be a JSON object, not %s", type_name(root));
+    TRY(check_keys(root, "", keys, err));
+    const char *name = NULL, *desc = NULL;
+    TRY(get_string(root, "", "name", 0, &name, err));
+    TRY(get_string(root, "", "description", 0, &desc, err));
+    if (name)
+        snprintf(s->name, sizeof s->name, "%s", name);
+    const cJSON *j = cJSON_GetObjectItemCaseSensitive(root, "sprinkler");
+    if (!j)
+        return dragarc_error_set(err, DRAGARC_EINVAL, "sprinkler", "is required");
+    TRY(read_sprinkler(j, sp, err));
+    const cJSON *e = cJSON_GetObjectItemCaseSensitive(root, "environment");
+    if (e)
+        TRY(read_environment(e, s, err));
+    const cJSON *g = cJSON_GetObjectItemCaseSensitive(root, "ground");
+    if (g)
+        TRY(read_ground(g, s, err));
+    const cJSON *so = cJSON_GetObjectItemCaseSensitive(root, "solver");
+    if (so)
+        TRY(read_solver(so, &s->solver, err));
+    /* evaporation needs the air's humidity: on with the local atmosphere, off otherwise (docs/sprinkler.md) */
+    s->projectile.evaporation.enabled = s->atmosphere.model == DRAGARC_ATMOSPHERE_LOCAL;
+    if (s->ground_surface_given)
+        return dragarc_error_set(err, DRAGARC_EINVAL, "ground.surface", "drops do not bounce: leave it out");
+    dragarc_error ce;
+    int rc = dragarc_scenario_check(s, &ce);
+    if (rc != DRAGARC_OK) /* the launch is the sprinkler's */
+        return dragarc_error_set(err, rc, strncmp(ce.field, "launch.", 7) == 0 ? "sprinkler" : ce.field, "%s",
+                                 ce.message);
+    return rc;
+}
+
+int dragarc_sprinkler_spec_parse(const char *json, dragarc_sprinkler_spec *out, dragarc_error *err)
+{
+    memset(out, 0, sizeof *out);
+    dragarc_scenario_default(&out->base);
+    cJSON *root = NULL;
+    int rc = parse_text(json, "the scenario", &root, err);
+    if (rc != DRAGARC_OK)
+        return rc;
+    rc = with_units(root, "", err);
+    if (rc == DRAGARC_OK)
+        rc = read_sprinkler_root(root, out, err);
+    cJSON_Delete(root);
+    if (rc != DRAGARC_OK)
+        dragarc_sprinkler_spec_clear(out);
+    return rc;
+}
+
+int dragarc_sprinkler_spec_read(const char *path, dragarc_sprinkler_spec *out, dragarc_error *err)
+{
+    memset(out, 0, sizeof *out);
+    char *text = NULL;
+    int rc = dragarc_text_file_read(path, 16u << 20, &text, err);
+    if (rc != DRAGARC_OK)
+        return rc;
+    rc = dragarc_sprinkler_spec_parse(text, out, err);
+    free(text);
+    return rc;
+}
+

@@ -226,3 +226,37 @@ int dragarc_sprinkler_run(const dragarc_scenario *base, const dragarc_sprinkler_
     }
     return DRAGARC_OK;
 }
+
+void dragarc_sprinkler_spec_clear(dragarc_sprinkler_spec *spec)
+{
+    if (!spec)
+        return;
+    dragarc_scenario_clear(&spec->base);
+    dragarc_spectrum_clear(&spec->spectrum);
+    memset(spec, 0, sizeof *spec);
+}
+
+int dragarc_sprinkler_spec_run(const dragarc_sprinkler_spec *spec, dragarc_spectrum_class *classes,
+                               dragarc_sprinkler_result *out, dragarc_error *err)
+{
+    memset(out, 0, sizeof *out);
+    int rc = dragarc_spectrum_discretise(&spec->spectrum, spec->nclasses, spec->spacing, classes, err);
+    if (rc != DRAGARC_OK) {
+        dragarc_error_prefix(err, "sprinkler.spectrum");
+        return rc;
+    }
+    double *d = malloc(spec->nclasses * sizeof *d), *f = malloc(spec->nclasses * sizeof *f);
+    if (!d || !f) {
+        free(d), free(f);
+        return dragarc_error_set(err, DRAGARC_ENOMEM, "", "out of memory for %zu classes", spec->nclasses);
+    }
+    for (size_t i = 0; i < spec->nclasses; i++)
+        d[i] = classes[i].diameter, f[i] = classes[i].fraction;
+    dragarc_sprinkler_request q = {spec->nozzle, spec->arc_from, spec->arc_to, spec->ndirections, spec->nclasses,
+                                   d, f, spec->ring_width, spec->cell};
+    rc = dragarc_sprinkler_run(&spec->base, &q, out, err);
+    if (rc != DRAGARC_OK)
+        dragarc_error_prefix(err, "sprinkler");
+    free(d), free(f);
+    return rc;
+}

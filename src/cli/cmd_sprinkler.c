@@ -1,0 +1,175 @@
+/* cmd_sprinkler.c: `dragarc sprinkler SCENARIO [--json] [--csv FILE] [--grid FILE]`: where a sprinkler's drops land
+ * and the water they lay down.
+ * SPDX-License-Identifier: GPL-3.0-or-later
+ */
+#include <math.h>
+#include <stdio.h>
+#include <stdlib.h>
+#include <string.h>
+
+#include "cli/cli.h"
+#include "dragarc/cautions.h"
+#include "dragarc/output.h"
+#include "dragarc/sprinkler.h"
+
+static const char HELP[] =
+    "usage: dragarc sprinkler SCENARIO [--json] [--csv FILE] [--grid FILE]\n"
+    "\n"
+    "Fly every drop size of a sprinkler (its nozzle, pressure, height, elevation, arc and drop-size spectrum, in\n"
+    "the scenario's air and wind; see docs/sprinkler.md) in every direction of its arc, and print the jet, where\n"
+    "each size class lands, the radial application-rate profile (mm/h), the wetted radius, and the shares of the\n"
+    "flow that land and that evaporate, with cautions. SI units.\n"
+    "\n"
+    "  --json        print one JSON object instead of the summary\n"
+    "  --csv FILE    write the radial profile (r_inner_m,r_outer_m,rate_mm_h); written whole or not at all\n"
+    "  --grid FILE   write the application rate on the grid of cells (x_m,y_m,rate_mm_h at cell centres)\n"
+    "  -h, --help    this help\n";
+
+typedef int (*csv_writer)(FILE *fp, const dragarc_sprinkler_result *r, const dragarc_sprinkler_spec *spec,
+                          dragarc_error *err);
+
+static int write_profile(FILE *fp, const dragarc_sprinkler_result *r, const dragarc_sprinkler_spec *spec,
+                         dragarc_error *err)
+{
+    return dragarc_sprinkler_write_profile_csv(fp, r, spec->ring_width, err);
+}
+
+static int write_grid(FILE *fp, const dragarc_sprinkler_result *r, const dragarc_sprinkler_spec *spec,
+                      dragarc_error *err)
+{
+    (void)spec;
+    return dragarc_sprinkler_write_grid_csv(fp, r, err);
+}
+
+/* Write one output file whole or not at all. */
+static int write_file(const char *option, const char *path, csv_writer w, const dragarc_sprinkler_result *r,
+                      const dragarc_sprinkler_spec *spec)
+{
+    dragarc_output out;
+    dragarc_error err;
+    int rc = dragarc_output_open(&out, path, &err);
+    if (rc == DRAGARC_OK) {
+        rc = w(out.fp, r, spec, &err);
+        if (rc == DRAGARC_OK)
+            rc = dragarc_output_commit(&out, &err);
+        else
+            dragarc_output_abort(&out);
+    }
+    if (rc != DRAGARC_OK) {
+        err.field[0] = '\0';
+        return cli_report(option, &err);
+    }
+    return EXIT_OK;
+}
+
+static void print_summary(const dragarc_sprinkler_spec *sp, const dragarc_spectrum_class *cl,
+                          const dragarc_sprinkler_result *r)
+{
+    const double deg = 180.0 / 3.14159265358979323846;
+    printf("dragarc sprinkler%s%s\n", sp->base.name[0] ? ": " : "", sp->base.name);
+    printf("  nozzle          %.4g mm at %.4g kPa: jet %.3f m/s, flow %.3f L/min (%.4g m3/h), from %.3g m at %.3g deg\n",
+           sp->nozzle.diameter * 1e3, sp->nozzle.pressure * 1e-3, r->exit_speed, r->flow * 6e4, r->flow * 3600.0,
+           sp->base.launch.height, sp->base.launch.elevation * deg);
+    printf("  arc             %.4g to %.4g deg, %zu directions; %zu drop classes (%s)\n", sp->arc_from * deg,
+           sp->arc_to * deg, r->ndirections, r->nclasses, dragarc_spectrum_spacing_name(sp->spacing));
+    puts("  class  diameter   volume   throw (min-max)         time   water landing");
+    for (size_t i = 0; i < r->nclasses; i++) {
+        double dist = 0.0, time = 0.0, left = 0.0, dmin = INFINITY, dmax = 0.0;
+        size_t ok = 0;
+        for (size_t j = 0; j < r->ndirections; j++) {
+            const dragarc_sprinkler_drop *dr = &r->drops[i * r->ndirections + j];
+            if (dr->status != DRAGARC_OK)
+                continue;
+            ok++;
+            dist += dr->distance, time += dr->time, left += dr->water_left;
+            dmin = fmin(dmin, dr->distance), dmax = fmax(dmax, dr->distance);
+        }
+        if (!ok) {
+            printf("  %5zu  %6.3f mm  %5.2f %%  (every flight failed)\n", i + 1, cl[i].diameter * 1e3,
+                   100.0 * cl[i].fraction);
+            continue;
+        }
+        printf("  %5zu  %6.3f mm  %5.2f %%  %6.2f m (%6.2f-%6.2f)  %6.2f s  %6.2f %%\n", i + 1, cl[i].diameter * 1e3,
+               100.0 * cl[i].fraction, dist / ok, dmin, dmax, time / ok, 100.0 * left / ok);
+    }
+    /* the profile in steps of about a metre, as the rings' mean */
+    size_t step = (size_t)fmax(1.0, floor(1.0 / sp->ring_width + 0.5));
+    puts("  application rate by distance (mm/h, averaged round the arc; the whole pattern in still air):");
+    for (size_t k = 0; k < r->nrings; k += step) {
+        double a = 0.0, w = 0.0;
+        for (size_t m = k; m < k + step && m < r->nrings; m++) {
+            double area = (2.0 * m + 1.0);
+            a += r->ring_rate[m] * area, w += area;
+        }
+        printf("    %6.2f-%6.2f m  %8.3f\n", k * sp->ring_width, fmin(k + step, r->nrings) * sp->ring_width, a / w);
+    }
+    printf("  wetted radius   %.2f m (to the last ring at %.2f mm/h or more)\n", r->wetted_radius, DRAGARC_WETTED_RATE);
+    printf("  water           %.3f %% lands, %.3f %% evaporates in the air%s\n", 100.0 * r->deposited_fraction,
+           100.0 * r->evaporated_fraction,
+           sp->base.projectile.evaporation.enabled ? "" : " (no evaporation: the atmosphere is not the local model)");
+    if (r->nfailed)
+        printf("  failed flights  %zu of %zu (their water is not counted as landed)\n", r->nfailed,
+               r->nclasses * r->ndirections);
+    dragarc_cautions_print(stdout, r->notes | DRAGARC_NOTE_IRRIGATION, 100);
+}
+
+int cmd_sprinkler(int argc, char **argv)
+{
+    const char *path = NULL, *csv = NULL, *grid = NULL;
+    int json = 0;
+    for (int i = 1; i < argc; i++) {
+        const char *a = argv[i];
+        if (strcmp(a, "-h") == 0 || strcmp(a, "--help") == 0) {
+            fputs(HELP, stdout);
+            return EXIT_OK;
+        } else if (strcmp(a, "--json") == 0) {
+            json = 1;
+        } else if (strcmp(a, "--csv") == 0 || strcmp(a, "--grid") == 0) {
+            if (++i >= argc)
+                return cli_usage_error("sprinkler", "%s needs a file name", a);
+            *(a[2] == 'c' ? &csv : &grid) = argv[i];
+        } else if (a[0] == '-' && a[1]) {
+            return cli_usage_error("sprinkler", "unknown option '%s'", a);
+        } else if (path) {
+            return cli_usage_error("sprinkler", "only one scenario file, got '%s' and '%s'", path, a);
+        } else {
+            path = a;
+        }
+    }
+    if (!path)
+        return cli_usage_error("sprinkler", "needs a scenario file");
+    dragarc_sprinkler_spec spec;
+    dragarc_error err;
+    if (dragarc_sprinkler_spec_read(path, &spec, &err) != DRAGARC_OK)
+        return cli_report(path, &err);
+    dragarc_spectrum_class *classes = calloc(spec.nclasses, sizeof *classes);
+    dragarc_sprinkler_result r;
+    memset(&r, 0, sizeof r);
+    int status = EXIT_OK;
+    if (!classes) {
+        dragarc_error_set(&err, DRAGARC_ENOMEM, "", "out of memory");
+        status = cli_report(path, &err);
+    } else if (dragarc_sprinkler_spec_run(&spec, classes, &r, &err) != DRAGARC_OK) {
+        status = cli_report(path, &err);
+    }
+    if (status == EXIT_OK && csv)
+        status = write_file("--csv", csv, write_profile, &r, &spec);
+    if (status == EXIT_OK && grid)
+        status = write_file("--grid", grid, write_grid, &r, &spec);
+    if (status == EXIT_OK && json) {
+        char *text = dragarc_sprinkler_json(&spec, classes, &r);
+        if (text) {
+            puts(text);
+            free(text);
+        } else {
+            dragarc_error_set(&err, DRAGARC_ENOMEM, "", "out of memory writing JSON");
+            status = cli_report(path, &err);
+        }
+    } else if (status == EXIT_OK) {
+        print_summary(&spec, classes, &r);
+    }
+    dragarc_sprinkler_clear(&r);
+    free(classes);
+    dragarc_sprinkler_spec_clear(&spec);
+    return status;
+}
