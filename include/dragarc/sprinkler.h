@@ -76,6 +76,14 @@ int dragarc_sprinkler_run(const dragarc_scenario *base, const dragarc_sprinkler_
 
 void dragarc_sprinkler_clear(dragarc_sprinkler_result *r);
 
+/* One class over the directions that flew: how many, the mean, least and greatest distance (m), the mean time
+ * aloft (s) and the mean share of its water that landed. NaN (and flown 0) when none flew. */
+typedef struct dragarc_sprinkler_class_stats {
+    size_t flown;
+    double distance, distance_min, distance_max, time, water_left;
+} dragarc_sprinkler_class_stats;
+void dragarc_sprinkler_class_summary(const dragarc_sprinkler_result *r, size_t i, dragarc_sprinkler_class_stats *out);
+
 /* A sprinkler scenario file as read (src/io/scenario_json.c): the nozzle and its drops, and the air, wind, ground
  * and solver as in any scenario. */
 typedef struct dragarc_sprinkler_spec {

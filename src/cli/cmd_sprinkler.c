@@ -74,23 +74,15 @@ static void print_summary(const dragarc_sprinkler_spec *sp, const dragarc_spectr
            sp->arc_to * deg, r->ndirections, r->nclasses, dragarc_spectrum_spacing_name(sp->spacing));
     puts("  class  diameter   volume   throw (min-max)         time   water landing");
     for (size_t i = 0; i < r->nclasses; i++) {
-        double dist = 0.0, time = 0.0, left = 0.0, dmin = INFINITY, dmax = 0.0;
-        size_t ok = 0;
-        for (size_t j = 0; j < r->ndirections; j++) {
-            const dragarc_sprinkler_drop *dr = &r->drops[i * r->ndirections + j];
-            if (dr->status != DRAGARC_OK)
-                continue;
-            ok++;
-            dist += dr->distance, time += dr->time, left += dr->water_left;
-            dmin = fmin(dmin, dr->distance), dmax = fmax(dmax, dr->distance);
-        }
-        if (!ok) {
+        dragarc_sprinkler_class_stats st;
+        dragarc_sprinkler_class_summary(r, i, &st);
+        if (!st.flown) {
             printf("  %5zu  %6.3f mm  %5.2f %%  (every flight failed)\n", i + 1, cl[i].diameter * 1e3,
                    100.0 * cl[i].fraction);
             continue;
         }
         printf("  %5zu  %6.3f mm  %5.2f %%  %6.2f m (%6.2f-%6.2f)  %6.2f s  %6.2f %%\n", i + 1, cl[i].diameter * 1e3,
-               100.0 * cl[i].fraction, dist / ok, dmin, dmax, time / ok, 100.0 * left / ok);
+               100.0 * cl[i].fraction, st.distance, st.distance_min, st.distance_max, st.time, 100.0 * st.water_left);
     }
     /* the profile in steps of about a metre, as the rings' mean */
     size_t step = (size_t)fmax(1.0, floor(1.0 / sp->ring_width + 0.5));

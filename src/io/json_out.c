@@ -266,24 +266,16 @@ char *dragarc_sprinkler_json(const dragarc_sprinkler_spec *spec, const dragarc_s
     cJSON_AddNumberToObject(sum, "failed_flights", (double)r->nfailed);
     cJSON *cl = cJSON_AddArrayToObject(doc, "classes");
     for (size_t i = 0; i < r->nclasses; i++) {
-        double dist = 0.0, time = 0.0, left = 0.0, dmin = INFINITY, dmax = 0.0;
-        size_t ok = 0;
-        for (size_t j = 0; j < r->ndirections; j++) {
-            const dragarc_sprinkler_drop *dr = &r->drops[i * r->ndirections + j];
-            if (dr->status != DRAGARC_OK)
-                continue;
-            ok++;
-            dist += dr->distance, time += dr->time, left += dr->water_left;
-            dmin = fmin(dmin, dr->distance), dmax = fmax(dmax, dr->distance);
-        }
+        dragarc_sprinkler_class_stats st;
+        dragarc_sprinkler_class_summary(r, i, &st);
         cJSON *o = cJSON_CreateObject();
         add_num(o, "diameter", classes[i].diameter);
         add_num(o, "fraction", classes[i].fraction);
-        add_num(o, "distance", ok ? dist / ok : NAN);
-        add_num(o, "distance_min", ok ? dmin : NAN);
-        add_num(o, "distance_max", ok ? dmax : NAN);
-        add_num(o, "time", ok ? time / ok : NAN);
-        add_num(o, "water_left", ok ? left / ok : NAN);
+        add_num(o, "distance", st.distance);
+        add_num(o, "distance_min", st.distance_min);
+        add_num(o, "distance_max", st.distance_max);
+        add_num(o, "time", st.time);
+        add_num(o, "water_left", st.water_left);
         cJSON_AddItemToArray(cl, o);
     }
     cJSON *prof = cJSON_AddArrayToObject(doc, "radial_profile");

@@ -32,6 +32,26 @@ void dragarc_sprinkler_clear(dragarc_sprinkler_result *r)
     memset(r, 0, sizeof *r);
 }
 
+void dragarc_sprinkler_class_summary(const dragarc_sprinkler_result *r, size_t i, dragarc_sprinkler_class_stats *o)
+{
+    double dist = 0.0, time = 0.0, left = 0.0, dmin = INFINITY, dmax = 0.0;
+    size_t ok = 0;
+    for (size_t j = 0; j < r->ndirections; j++) {
+        const dragarc_sprinkler_drop *dr = &r->drops[i * r->ndirections + j];
+        if (dr->status != DRAGARC_OK)
+            continue;
+        ok++;
+        dist += dr->distance, time += dr->time, left += dr->water_left;
+        dmin = fmin(dmin, dr->distance), dmax = fmax(dmax, dr->distance);
+    }
+    o->flown = ok;
+    o->distance = ok ? dist / ok : NAN;
+    o->distance_min = ok ? dmin : NAN;
+    o->distance_max = ok ? dmax : NAN;
+    o->time = ok ? time / ok : NAN;
+    o->water_left = ok ? left / ok : NAN;
+}
+
 static int check_request(const dragarc_sprinkler_request *q, dragarc_error *err)
 {
     int rc = dragarc_nozzle_check(&q->nozzle, err);
