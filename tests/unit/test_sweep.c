@@ -462,6 +462,12 @@ TEST(spin_parameters_need_a_spin_that_can_change_the_flight)
     CHECK(dragarc_scenario_set(&s, "spin_tilt", 361.0, &e) == DRAGARC_EINVAL && strstr(e.message, "-360 and 360"));
     CHECK(dragarc_scenario_set(&s, "spin_tilt", 270.0, NULL) == DRAGARC_OK);
     CHECK(dragarc_scenario_check(&s, &e) == DRAGARC_EINVAL && strcmp(e.field, "launch.spin.tilt") == 0);
+    /* the documented largest spin rate, 60000 rpm, is itself accepted; a little more is not */
+    s.launch.spin_tilt = 0.0;
+    CHECK(dragarc_scenario_set(&s, "spin_rate", 60000.0, NULL) == DRAGARC_OK);
+    CHECK(dragarc_scenario_check(&s, &e) == DRAGARC_OK);
+    CHECK(dragarc_scenario_set(&s, "spin_rate", 60000.001, NULL) == DRAGARC_OK);
+    CHECK(dragarc_scenario_check(&s, &e) == DRAGARC_EINVAL && strcmp(e.field, "launch.spin.rate") == 0);
     dragarc_scenario_clear(&s);
 }
 
