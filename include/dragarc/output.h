@@ -58,6 +58,8 @@ void dragarc_text_wrap(FILE *fp, const char *prefix, int indent, int width, cons
 
 /* Print "Cautions:" and the cautions for these DRAGARC_NOTE_* flags as wrapped "  - " items. */
 void dragarc_cautions_print(FILE *fp, unsigned notes, int width);
+/* The same for a list of n cautions (dragarc_cautions_*). */
+void dragarc_cautions_print_list(FILE *fp, const char *const *cautions, size_t n, int width);
 
 /* Write the flight's sampled points as CSV with a header row whose names carry the units of display d
  * (NULL: SI): t_s,x_m,y_m,z_m,vx_m_s,vy_m_s,vz_m_s,speed_m_s,mach,reynolds. */
@@ -134,6 +136,12 @@ double dragarc_sweep_column_value(const dragarc_sweep_row *row, dragarc_sweep_co
 /* The same in the units of display d (NULL: SI), and that unit. */
 double dragarc_sweep_shown(const dragarc_display *d, const dragarc_sweep_row *row, dragarc_sweep_column c);
 const char *dragarc_sweep_column_unit(const dragarc_display *d, dragarc_sweep_column c);
+
+/* A value of parameter p (in its own units: degrees, rpm, SI) in the units of display d (NULL: as it is),
+ * to 15 significant digits when as_given (a value the user typed: dragarc_display_value_as_given); and that
+ * unit ("" for a pure number). */
+double dragarc_scenario_param_shown(const dragarc_display *d, const dragarc_scenario_param *p, double v, int as_given);
+const char *dragarc_scenario_param_unit(const dragarc_display *d, const dragarc_scenario_param *p);
 
 /* A value of a varied parameter (in its SI unit, degrees for angles) in the units of display d, and that
  * unit ("" for a pure number). */

@@ -60,11 +60,16 @@ size_t dragarc_cautions_notes(unsigned notes, const char **out, size_t max)
     return k;
 }
 
+void dragarc_cautions_print_list(FILE *fp, const char *const *cautions, size_t n, int width)
+{
+    fputs("Cautions:\n", fp);
+    for (size_t i = 0; i < n; i++)
+        dragarc_text_wrap(fp, "  - ", 4, width, cautions[i]);
+}
+
 void dragarc_cautions_print(FILE *fp, unsigned notes, int width)
 {
     const char *cautions[DRAGARC_CAUTIONS_MAX];
     size_t nc = dragarc_cautions_notes(notes, cautions, DRAGARC_CAUTIONS_MAX);
-    fputs("Cautions:\n", fp);
-    for (size_t i = 0; i < nc; i++)
-        dragarc_text_wrap(fp, "  - ", 4, width, cautions[i]);
+    dragarc_cautions_print_list(fp, cautions, nc, width);
 }

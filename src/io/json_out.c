@@ -40,13 +40,38 @@ static char *finish(cJSON *doc)
     return text;
 }
 
+static void add_caution_list(cJSON *doc, const char *const *cautions, size_t n)
+{
+    cJSON *ca = cJSON_AddArrayToObject(doc, "cautions");
+    for (size_t i = 0; i < n; i++)
+        cJSON_AddItemToArray(ca, cJSON_CreateString(cautions[i]));
+}
+
 static void add_cautions(cJSON *doc, unsigned notes)
 {
     const char *cautions[DRAGARC_CAUTIONS_MAX];
-    size_t nc = dragarc_cautions_notes(notes, cautions, DRAGARC_CAUTIONS_MAX);
-    cJSON *ca = cJSON_AddArrayToObject(doc, "cautions");
-    for (size_t i = 0; i < nc; i++)
-        cJSON_AddItemToArray(ca, cJSON_CreateString(cautions[i]));
+    add_caution_list(doc, cautions, dragarc_cautions_notes(notes, cautions, DRAGARC_CAUTIONS_MAX));
+}
+
+/* A new document for scenario s ("scenario" and "dragarc_version" first; none for NULL) and its units object
+ * *un, to be added to it; *d becomes SI (held in *si) when NULL. NULL when out of memory. */
+static cJSON *begin(const dragarc_scenario *s, const dragarc_display **d, dragarc_display *si, cJSON **un)
+{
+    if (!*d) {
+        dragarc_display_si(si);
+        *d = si;
+    }
+    cJSON *doc = cJSON_CreateObject();
+    *un = doc ? cJSON_CreateObject() : NULL;
+    if (!*un) {
+        cJSON_Delete(doc);
+        return NULL;
+    }
+    if (s) {
+        cJSON_AddStringToObject(doc, "scenario", s->name);
+        cJSON_AddStringToObject(doc, "dragarc_version", DRAGARC_VERSION_STRING);
+    }
+    return doc;
 }
 
 /* A summary value in its display unit, with its unit recorded in `units`. */
@@ -66,21 +91,12 @@ static cJSON *vec3_shown(cJSON *units, const dragarc_display *d, const char *key
     return vec3(w);
 }
 
-char *dragarc_flight_json(const dragarc_scenario *s, const dragarc_flight *f, const dragarc_display *d)
+/* The flight's "summary" and "solver" objects in doc, their units in un. */
+static void add_flight(cJSON *doc, cJSON *un, const dragarc_scenario *s, const dragarc_flight *f,
+                       const dragarc_display *d)
 {
-    dragarc_display si;
-    if (!d) {
-        dragarc_display_si(&si);
-        d = &si;
-    }
-    cJSON *doc = cJSON_CreateObject();
-    if (!doc)
-        return NULL;
-    cJSON_AddStringToObject(doc, "scenario", s->name);
-    cJSON_AddStringToObject(doc, "dragarc_version", DRAGARC_VERSION_STRING);
     cJSON *sum = cJSON_AddObjectToObject(doc, "summary");
     cJSON *sol = cJSON_AddObjectToObject(doc, "solver");
-    cJSON *un = cJSON_CreateObject();
     add_shown(sum, un, d, "range", DRAGARC_Q_LENGTH, f->range);
     add_shown(sum, un, d, "downrange", DRAGARC_Q_LENGTH, f->downrange);
     add_shown(sum, un, d, "crossrange", DRAGARC_Q_LENGTH, f->crossrange);
@@ -105,6 +121,15 @@ char *dragarc_flight_json(const dragarc_scenario *s, const dragarc_flight *f, co
     cJSON_AddNumberToObject(sol, "rtol", s->solver.rtol);
     cJSON_AddNumberToObject(sol, "atol", s->solver.atol);
     add_shown(sol, un, d, "relaxation_time", DRAGARC_Q_TIME, f->relaxation_time);
+}
+
+char *dragarc_flight_json(const dragarc_scenario *s, const dragarc_flight *f, const dragarc_display *d)
+{
+    dragarc_display si;
+    cJSON *un, *doc = begin(s, &d, &si, &un);
+    if (!doc)
+        return NULL;
+    add_flight(doc, un, s, f, d);
     cJSON_AddItemToObject(doc, "units", un);
     add_cautions(doc, f->notes);
     return finish(doc);
@@ -114,16 +139,9 @@ char *dragarc_aim_json(const dragarc_scenario *s, const dragarc_aim_request *req
                        const dragarc_display *d)
 {
     dragarc_display si;
-    if (!d) {
-        dragarc_display_si(&si);
-        d = &si;
-    }
-    cJSON *doc = cJSON_CreateObject();
+    cJSON *un, *doc = begin(s, &d, &si, &un);
     if (!doc)
         return NULL;
-    cJSON *un = cJSON_CreateObject();
-    cJSON_AddStringToObject(doc, "scenario", s->name);
-    cJSON_AddStringToObject(doc, "dragarc_version", DRAGARC_VERSION_STRING);
     cJSON *t = cJSON_AddObjectToObject(doc, "target");
     add_shown(t, un, d, "range", DRAGARC_Q_LENGTH, req->range);
     add_shown(t, un, d, "crossrange", DRAGARC_Q_LENGTH, req->crossrange);
@@ -174,14 +192,9 @@ char *dragarc_atmosphere_json(const double *altitudes, const dragarc_air *levels
                               const dragarc_display *d)
 {
     dragarc_display si;
-    if (!d) {
-        dragarc_display_si(&si);
-        d = &si;
-    }
-    cJSON *doc = cJSON_CreateObject();
+    cJSON *un, *doc = begin(NULL, &d, &si, &un);
     if (!doc)
         return NULL;
-    cJSON *un = cJSON_CreateObject();
     cJSON_AddStringToObject(doc, "model", "U.S. Standard Atmosphere 1976");
     add_shown(doc, un, d, "temperature_offset", DRAGARC_Q_TEMPERATURE_DIFFERENCE, temperature_offset);
     cJSON *arr = cJSON_AddArrayToObject(doc, "levels");
