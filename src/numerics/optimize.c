@@ -483,7 +483,8 @@ static int check_request(const dragarc_scenario *s, const dragarc_optimize_reque
                 return dragarc_error_set(err, DRAGARC_EINVAL, v->param->path, "varied twice: give each parameter once");
         if (!(isfinite(v->lo) && isfinite(v->hi) && v->lo < v->hi))
             return dragarc_error_set(err, DRAGARC_EINVAL, v->param->path,
-                                     "the bounds must be finite with the lower (%g) below the upper (%g)", v->lo, v->hi);
+                                     "the bounds must be finite with the lower (%g) below the upper (%g)", v->lo,
+                                     v->hi);
         params[i] = v->param;
     }
     int rc = dragarc_scenario_check(s, err);

@@ -399,7 +399,8 @@ int dragarc_scenario_params_check(const dragarc_scenario *base, const dragarc_sc
     unsigned varied = 0; /* bit i: PARAMS[i] */
     for (size_t k = 0; k < n; k++) {
         if (!params[k] || !known(params[k]))
-            return dragarc_error_set(err, DRAGARC_EINVAL, "", "parameter %zu is not one of dragarc_scenario_params", k + 1);
+            return dragarc_error_set(err, DRAGARC_EINVAL, "", "parameter %zu is not one of dragarc_scenario_params",
+                                     k + 1);
         param_id id = id_of(params[k]);
         int rc = applicable(base, id, err);
         if (rc != DRAGARC_OK)

@@ -52,7 +52,8 @@ static int spinning_ball(dragarc_scenario *s, double rpm)
 {
     char text[640];
     snprintf(text, sizeof text,
-             "{\"projectile\": {\"mass\": 0.145, \"diameter\": 0.074, \"drag\": {\"model\": \"constant\", \"cd\": 0.35},"
+             "{\"projectile\": {\"mass\": 0.145, \"diameter\": 0.074,"
+             " \"drag\": {\"model\": \"constant\", \"cd\": 0.35},"
              " \"lift\": {\"model\": \"sawicki2003\"}},"
              " \"launch\": {\"speed\": 45, \"elevation\": 25, \"height\": 1, \"spin\": {\"rate\": %.17g}},"
              " \"solver\": {\"rtol\": 1e-10, \"atol\": 1e-10}}",

@@ -266,7 +266,8 @@ TEST(unknown_names_are_refused_with_the_accepted_ones)
     CHECK(e.field[0] == '\0');
     CHECK(strstr(e.message, "unknown parameter 'spede'") != NULL);
     CHECK(strstr(e.message, "speed, elevation, azimuth, height, wind_speed, wind_from, mass, diameter, cd, "
-                            "site_elevation, temperature_offset, ground_elevation, gravity, spin_rate, spin_tilt") != NULL);
+                            "site_elevation, temperature_offset, ground_elevation, gravity, spin_rate, "
+                            "spin_tilt") != NULL);
     double v;
     CHECK(dragarc_scenario_get(&s, "launch.sped", &v, &e) == DRAGARC_EINVAL);
     dragarc_sweep_axis a;
@@ -370,9 +371,11 @@ static int spinning_ball(dragarc_scenario *s, double rpm, double tilt)
 {
     char text[512];
     snprintf(text, sizeof text,
-             "{\"projectile\": {\"mass\": 0.145, \"diameter\": 0.074, \"drag\": {\"model\": \"constant\", \"cd\": 0.35},"
+             "{\"projectile\": {\"mass\": 0.145, \"diameter\": 0.074,"
+             " \"drag\": {\"model\": \"constant\", \"cd\": 0.35},"
              " \"lift\": {\"model\": \"sawicki2003\"}},"
-             " \"launch\": {\"speed\": 40, \"elevation\": 25, \"height\": 1, \"spin\": {\"rate\": %.17g, \"tilt\": %.17g}},"
+             " \"launch\": {\"speed\": 40, \"elevation\": 25, \"height\": 1,"
+             " \"spin\": {\"rate\": %.17g, \"tilt\": %.17g}},"
              " \"solver\": {\"rtol\": 1e-9, \"atol\": 1e-9}}",
              rpm, tilt);
     dragarc_error e;
