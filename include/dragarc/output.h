@@ -14,6 +14,7 @@
 #include "dragarc/atmosphere.h"
 #include "dragarc/dragarc.h"
 #include "dragarc/flight.h"
+#include "dragarc/optimize.h"
 #include "dragarc/scenario.h"
 #include "dragarc/sweep.h"
 #include "dragarc/units.h"
@@ -80,6 +81,26 @@ struct dragarc_aim_request;
 struct dragarc_aim_result;
 char *dragarc_aim_json(const dragarc_scenario *s, const struct dragarc_aim_request *req,
                        const struct dragarc_aim_result *r, const dragarc_display *d);
+
+/* ---- optima (optimize.h; the output is documented in docs/optimize.md) ---- */
+
+/* The unit the objective of an optimisation is shown in: the "range" field's for the carry, the length
+ * unit's for the total distance. */
+const dragarc_unit_out *dragarc_optimize_objective_unit(const dragarc_display *d, dragarc_optimize_objective o);
+
+/* A derivative of the objective with respect to parameter p, given in m per unit of p to the power `order`
+ * (1: the slope, 2: the curvature), in the units of display d (NULL: SI); its unit goes to unit[n] as
+ * "m/degree^2" ("deg" for "degree" when abbrev; the objective's unit alone for a pure number). */
+double dragarc_optimize_derivative_shown(const dragarc_display *d, dragarc_optimize_objective o,
+                                         const dragarc_scenario_param *p, double value, int order, int abbrev,
+                                         char *unit, size_t n);
+
+/* The `optimize --json` document: {"scenario", "dragarc_version", "maximize", "objective", "varied": [...],
+ * "search": {...}, "summary": {...}, "solver": {...}, "units", "cautions"} for the optimum r of req, s being
+ * the scenario with the optimum applied; values in the units of display d (NULL: SI, degrees for angles).
+ * Caller frees with free(); NULL when out of memory. */
+char *dragarc_optimize_json(const dragarc_scenario *s, const dragarc_optimize_request *req,
+                            const dragarc_optimize_result *r, const dragarc_display *d);
 
 /* Output forms of the tables. */
 typedef enum dragarc_table_format {

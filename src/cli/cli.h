@@ -87,5 +87,6 @@ int cmd_aim(int argc, char **argv);
 int cmd_atmosphere(int argc, char **argv);
 int cmd_demo(int argc, char **argv);
 int cmd_table(int argc, char **argv);
+int cmd_optimize(int argc, char **argv);
 
 #endif

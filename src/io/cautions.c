@@ -30,6 +30,11 @@ static const char DENSE[] =
     "The fluid's density is more than 1 % of the body's: buoyancy is included, but added mass and unsteady "
     "(history) forces are not, so the acceleration phase is only approximate.";
 
+static const char OPTIMUM[] =
+    "The optimum is that of one modelled flight in the scenario's conditions: real launches scatter around it, and "
+    "another ball, wind or air moves it. Where the curvature is small the distance changes little near the optimum, "
+    "so its value matters more than its exact position.";
+
 size_t dragarc_cautions_flight(const dragarc_scenario *s, const dragarc_flight *f, const char **out, size_t max)
 {
     (void)s;
@@ -58,6 +63,14 @@ size_t dragarc_cautions_notes(unsigned notes, const char **out, size_t max)
     for (size_t i = 0; i < k; i++)
         out[i] = all[i];
     return k;
+}
+
+size_t dragarc_cautions_optimum(unsigned notes, const char **out, size_t max)
+{
+    size_t n = dragarc_cautions_notes(notes, out, max);
+    if (n < max)
+        out[n++] = OPTIMUM;
+    return n;
 }
 
 void dragarc_cautions_print_list(FILE *fp, const char *const *cautions, size_t n, int width)

@@ -13,6 +13,7 @@
 #include "core/constants.h"
 #include "dragarc/aim.h"
 #include "dragarc/cautions.h"
+#include "dragarc/optimize.h"
 #include "dragarc/output.h"
 #include "dragarc/units.h"
 
@@ -132,6 +133,64 @@ char *dragarc_flight_json(const dragarc_scenario *s, const dragarc_flight *f, co
     add_flight(doc, un, s, f, d);
     cJSON_AddItemToObject(doc, "units", un);
     add_cautions(doc, f->notes);
+    return finish(doc);
+}
+
+char *dragarc_optimize_json(const dragarc_scenario *s, const dragarc_optimize_request *req,
+                            const dragarc_optimize_result *r, const dragarc_display *d)
+{
+    dragarc_display si;
+    cJSON *un, *doc = begin(s, &d, &si, &un);
+    if (!doc)
+        return NULL;
+    cJSON_AddStringToObject(doc, "maximize", dragarc_optimize_objective_name(req->objective));
+    const dragarc_unit_out *ul = dragarc_optimize_objective_unit(d, req->objective);
+    add_num(doc, "objective", dragarc_display_value(ul, r->objective));
+    cJSON_AddStringToObject(un, "objective", ul->symbol);
+    cJSON *arr = cJSON_AddArrayToObject(doc, "varied");
+    for (size_t i = 0; i < req->nvars; i++) {
+        const dragarc_scenario_param *p = req->vars[i].param;
+        char slope_unit[64], curvature_unit[64];
+        double slope = dragarc_optimize_derivative_shown(d, req->objective, p, r->slope[i], 1, 0, slope_unit,
+                                                         sizeof slope_unit);
+        double curvature = dragarc_optimize_derivative_shown(d, req->objective, p, r->curvature[i], 2, 0,
+                                                             curvature_unit, sizeof curvature_unit);
+        cJSON *o = cJSON_CreateObject();
+        cJSON_AddStringToObject(o, "name", p->alias);
+        cJSON_AddStringToObject(o, "path", p->path);
+        add_num(o, "lower", dragarc_scenario_param_shown(d, p, req->vars[i].lo, 1));
+        add_num(o, "upper", dragarc_scenario_param_shown(d, p, req->vars[i].hi, 1));
+        add_num(o, "optimum", dragarc_scenario_param_shown(d, p, r->x[i], 0));
+        if (r->bound[i])
+            cJSON_AddStringToObject(o, "on_bound", r->bound[i] < 0 ? "lower" : "upper");
+        else
+            cJSON_AddNullToObject(o, "on_bound");
+        add_num(o, "slope", slope);
+        add_num(o, "curvature", curvature);
+        /* a difference: no zero-point offset */
+        add_num(o, "step",
+                dragarc_scenario_param_shown(d, p, r->step[i], 0) - dragarc_scenario_param_shown(d, p, 0.0, 0));
+        cJSON *vu = cJSON_AddObjectToObject(o, "units");
+        cJSON_AddStringToObject(vu, "value", dragarc_scenario_param_unit(d, p));
+        cJSON_AddStringToObject(vu, "slope", slope_unit);
+        cJSON_AddStringToObject(vu, "curvature", curvature_unit);
+        cJSON_AddItemToArray(arr, o);
+    }
+    cJSON *search = cJSON_AddObjectToObject(doc, "search");
+    cJSON_AddStringToObject(search, "method", r->method ? r->method : "");
+    cJSON_AddNumberToObject(search, "grid", (double)r->grid);
+    cJSON_AddNumberToObject(search, "starts", (double)r->starts);
+    cJSON_AddNumberToObject(search, "iterations", r->iterations);
+    cJSON_AddBoolToObject(search, "converged", r->converged);
+    add_num(search, "size", r->size);
+    cJSON_AddNumberToObject(search, "size_tolerance", req->size_tolerance);
+    cJSON_AddStringToObject(search, "note", r->note);
+    cJSON_AddNumberToObject(search, "flights", (double)r->flights);
+    cJSON_AddNumberToObject(search, "failed_flights", (double)r->failed);
+    add_flight(doc, un, s, &r->flight, d);
+    cJSON_AddItemToObject(doc, "units", un);
+    const char *cautions[DRAGARC_CAUTIONS_MAX];
+    add_caution_list(doc, cautions, dragarc_cautions_optimum(r->flight.notes, cautions, DRAGARC_CAUTIONS_MAX));
     return finish(doc);
 }
 
