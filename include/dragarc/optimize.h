@@ -43,7 +43,8 @@ typedef struct dragarc_optimize_request {
     double size_tolerance; /* stop when Brent's interval, as a fraction of the bound width, or the simplex size
                               in the mapped variables (radians of the map, see optimize.c) is below it */
     int max_iterations;    /* of the minimiser, per start */
-    double fd_step;        /* finite-difference step, as a fraction of each bound width */
+    double fd_step;        /* the slope's finite-difference step, as a fraction of each bound width (the
+                              curvature's is 10 times it), above 0 and at most 0.025 */
 } dragarc_optimize_request;
 
 /* Defaults: carry, no variables yet, size tolerance 1e-7, 500 iterations, finite-difference step 1e-3. */
@@ -68,7 +69,8 @@ typedef struct dragarc_optimize_result {
     double slope[DRAGARC_OPTIMIZE_MAX_VARS];     /* d objective / d x, m per unit of the variable; NaN when a
                                                     difference flight failed */
     double curvature[DRAGARC_OPTIMIZE_MAX_VARS]; /* d2 objective / d x2, m per unit squared; NaN likewise */
-    double step[DRAGARC_OPTIMIZE_MAX_VARS];      /* the finite-difference step used, in the variable's units */
+    double step[DRAGARC_OPTIMIZE_MAX_VARS];      /* the slope's finite-difference step, in the variable's units */
+    double curvature_step[DRAGARC_OPTIMIZE_MAX_VARS]; /* the curvature's: 10 step */
     double objective;       /* m, the carry or total distance at the optimum */
     dragarc_flight flight;  /* the flight at the optimum; owned: dragarc_optimize_clear */
     const char *method;     /* "brent" or "nmsimplex2"; static storage */

@@ -129,16 +129,18 @@ static void print_human(const dragarc_scenario *at, const dragarc_optimize_reque
                   "                  optimum may be the edge of the launches that land, not a maximum)\n",
                   stdout);
     }
+    const char *done = r->converged ? "converged" : "not converged";
     if (strcmp(r->method, "brent") != 0)
-        printf("  search          GSL Nelder-Mead simplex (nmsimplex2), %zu start%s from a grid of %zu points: ",
-               r->starts, r->starts == 1 ? "" : "s", r->grid);
+        printf("  search          Nelder-Mead simplex (GSL nmsimplex2) from %zu point%s of a %zu-point grid\n"
+               "                  %d iterations, %s\n",
+               r->starts, r->starts == 1 ? "" : "s", r->grid, r->iterations, done);
     else if (r->iterations == 0 && r->converged)
-        printf("  search          a scan of %zu points, whose best is on a bound with a worse launch just inside: ",
+        printf("  search          a %zu-point scan: its best is on a bound, and a launch just inside is worse\n",
                r->grid);
     else
-        printf("  search          GSL Brent minimiser after a scan of %zu points: ", r->grid);
-    printf("%d iterations, ", r->iterations);
-    printf("%s; %ld flights, %ld failed\n", r->converged ? "converged" : "not converged", r->flights, r->failed);
+        printf("  search          Brent minimiser (GSL) after a %zu-point scan: %d iterations, %s\n", r->grid,
+               r->iterations, done);
+    printf("  flights flown   %ld (%ld failed)\n", r->flights, r->failed);
     if (!r->converged)
         printf("  note            %s\n", r->note);
     cli_print_flight(stdout, "flight at the optimum", at, &r->flight, d, 0);

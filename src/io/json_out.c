@@ -167,9 +167,10 @@ char *dragarc_optimize_json(const dragarc_scenario *s, const dragarc_optimize_re
             cJSON_AddNullToObject(o, "on_bound");
         add_num(o, "slope", slope);
         add_num(o, "curvature", curvature);
-        /* a difference: no zero-point offset */
-        add_num(o, "step",
-                dragarc_scenario_param_shown(d, p, r->step[i], 0) - dragarc_scenario_param_shown(d, p, 0.0, 0));
+        /* differences: no zero-point offset */
+        double zero = dragarc_scenario_param_shown(d, p, 0.0, 0);
+        add_num(o, "slope_step", dragarc_scenario_param_shown(d, p, r->step[i], 0) - zero);
+        add_num(o, "curvature_step", dragarc_scenario_param_shown(d, p, r->curvature_step[i], 0) - zero);
         cJSON *vu = cJSON_AddObjectToObject(o, "units");
         cJSON_AddStringToObject(vu, "value", dragarc_scenario_param_unit(d, p));
         cJSON_AddStringToObject(vu, "slope", slope_unit);

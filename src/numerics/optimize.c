@@ -26,10 +26,11 @@
  * by at most (hi - lo) / 2 times it). The best of the runs is the optimum; a coordinate within 1e-6 of the
  * width of a bound is moved onto it when that is no worse.
  *
- * Sensitivities at the optimum x*, step h = fd_step (hi - lo) per variable (Nocedal, J. & Wright, S. J.
- * 2006, Numerical Optimization, 2nd ed., sec. 8.1; recalled): inside, central differences
+ * Sensitivities at the optimum x*, the slope with step h = fd_step (hi - lo) and the curvature with 10 h (the
+ * second difference divides the flights' own error by the step squared), per variable (Nocedal, J. & Wright,
+ * S. J. 2006, Numerical Optimization, 2nd ed., sec. 8.1; recalled): inside, central differences
  *   F' = (F(x+h) - F(x-h)) / 2h,  F'' = (F(x+h) - 2 F(x) + F(x-h)) / h^2   (errors O(h^2));
- * within h of a bound, one-sided ones that stay inside the bounds (s = +1 forward, -1 backward):
+ * within the step of a bound, one-sided ones that stay inside the bounds (s = +1 forward, -1 backward):
  *   F' = s (-3 F(x) + 4 F(x+sh) - F(x+2sh)) / 2h (O(h^2)),  F'' = (F(x) - 2 F(x+sh) + F(x+2sh)) / h^2 (O(h)).
  */
 #include <math.h>
@@ -469,8 +470,8 @@ static int check_request(const dragarc_scenario *s, const dragarc_optimize_reque
     if (req->max_iterations < 1)
         return dragarc_error_set(err, DRAGARC_EINVAL, "max_iterations", "must be at least 1 (got %d)",
                                  req->max_iterations);
-    if (!(req->fd_step > 0.0 && req->fd_step <= 0.25))
-        return dragarc_error_set(err, DRAGARC_EINVAL, "fd_step", "must be above 0 and at most 0.25 (got %g)",
+    if (!(req->fd_step > 0.0 && req->fd_step <= 0.025))
+        return dragarc_error_set(err, DRAGARC_EINVAL, "fd_step", "must be above 0 and at most 0.025 (got %g)",
                                  req->fd_step);
     const dragarc_scenario_param *params[DRAGARC_OPTIMIZE_MAX_VARS];
     for (size_t i = 0; i < req->nvars; i++) {
@@ -531,31 +532,44 @@ static void snap_to_bounds(opt_ctx *c, double *t)
     }
 }
 
+/* Slope and curvature of F along variable i at xs (F(xs) = f0) with step h: central inside the bounds,
+ * one-sided within h of one. NaN when a flight failed. */
+static void differences(opt_ctx *c, const double *xs, double f0, size_t i, double h, double *slope, double *curv)
+{
+    const dragarc_optimize_var *v = &c->req->vars[i];
+    double x[DRAGARC_OPTIMIZE_MAX_VARS];
+    memcpy(x, xs, c->req->nvars * sizeof *x);
+    if (xs[i] - h >= v->lo && xs[i] + h <= v->hi) {
+        x[i] = xs[i] + h;
+        double fp = objective(c, x, NULL);
+        x[i] = xs[i] - h;
+        double fm = objective(c, x, NULL);
+        *slope = (fp - fm) / (2.0 * h);
+        *curv = (fp - 2.0 * f0 + fm) / (h * h);
+    } else {
+        double s = xs[i] + h > v->hi ? -1.0 : 1.0;
+        x[i] = xs[i] + s * h;
+        double f1 = objective(c, x, NULL);
+        x[i] = xs[i] + 2.0 * s * h;
+        double f2 = objective(c, x, NULL);
+        *slope = s * (-3.0 * f0 + 4.0 * f1 - f2) / (2.0 * h);
+        *curv = (f0 - 2.0 * f1 + f2) / (h * h);
+    }
+    if (!isfinite(*slope) || !isfinite(*curv))
+        *slope = *curv = NAN; /* a difference flight failed */
+}
+
+/* The slope with step h = fd_step x width; the curvature with 10 h, because the second difference divides
+ * the flights' own error by the step squared (1e-6 m over (0.08 deg)^2 would be 2e-4 m/deg^2). */
 static void sensitivities(opt_ctx *c, const double *xs, double f0, dragarc_optimize_result *out)
 {
     for (size_t i = 0; i < c->req->nvars; i++) {
         const dragarc_optimize_var *v = &c->req->vars[i];
-        double h = c->req->fd_step * (v->hi - v->lo), x[DRAGARC_OPTIMIZE_MAX_VARS];
-        memcpy(x, xs, c->req->nvars * sizeof *x);
-        out->step[i] = h;
-        if (xs[i] - h >= v->lo && xs[i] + h <= v->hi) {
-            x[i] = xs[i] + h;
-            double fp = objective(c, x, NULL);
-            x[i] = xs[i] - h;
-            double fm = objective(c, x, NULL);
-            out->slope[i] = (fp - fm) / (2.0 * h);
-            out->curvature[i] = (fp - 2.0 * f0 + fm) / (h * h);
-        } else {
-            double s = xs[i] + h > v->hi ? -1.0 : 1.0;
-            x[i] = xs[i] + s * h;
-            double f1 = objective(c, x, NULL);
-            x[i] = xs[i] + 2.0 * s * h;
-            double f2 = objective(c, x, NULL);
-            out->slope[i] = s * (-3.0 * f0 + 4.0 * f1 - f2) / (2.0 * h);
-            out->curvature[i] = (f0 - 2.0 * f1 + f2) / (h * h);
-        }
-        if (!isfinite(out->slope[i]) || !isfinite(out->curvature[i]))
-            out->slope[i] = out->curvature[i] = NAN; /* a difference flight failed */
+        double unused;
+        out->step[i] = c->req->fd_step * (v->hi - v->lo);
+        out->curvature_step[i] = 10.0 * out->step[i];
+        differences(c, xs, f0, i, out->step[i], &out->slope[i], &unused);
+        differences(c, xs, f0, i, out->curvature_step[i], &unused, &out->curvature[i]);
     }
 }
 

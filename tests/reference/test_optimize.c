@@ -110,13 +110,17 @@ TEST(vacuum_from_the_ground_carries_farthest_at_45_degrees)
     CHECK(r.objective == r.flight.range && r.bound[0] == 0 && r.converged && strcmp(r.method, "brent") == 0);
     /* The launch at 0 deg from the ground cannot start: it counts as a failed trial, not an error. */
     CHECK(r.failed >= 1 && r.flights > r.failed);
-    /* Curvature: R'' = -4 v^2 / g per rad^2. The central difference with h = 0.08 deg is off by R'''' h^2 / 12,
-     * 5e-7 relative, and the rounding of the ranges adds 2e-8 m / h^2, 3e-6 m/deg^2 at the most: 1e-5 relative
-     * is asked. The slope is zero at the maximum; the difference's own error is R''' h^2 / 6 (R''' = 0 at
-     * 45 deg) plus the rounding 1e-12 m / h, and the arg-max error 1e-8 rad costs R'' x 6e-7 deg: 1e-6 m/deg. */
-    CHECK_REL(r.curvature[0], -4.0 * v * v / G * DEG * DEG, 1e-5);
+    /* Curvature: R'' = -4 v^2 / g per rad^2, and the central second difference of sin 2 theta with step H
+     * (here 0.8 deg) is exactly R'' (sin H / H)^2, 6.5e-5 below it. The flights' rounding (1e-13 of 92 m)
+     * over H^2 adds 2e-11 m/deg^2, and the arg-max error (1e-8 rad) changes R'' by a second-order amount
+     * (R''' = 0 at 45 deg): 1e-6 relative is asked of the difference's closed form. The slope is zero at the
+     * maximum; its difference (h = 0.08 deg) is off by R''' h^2 / 6 = 0 plus the rounding 1e-11 m / h, and
+     * the arg-max error 1e-8 rad costs R'' x 6e-7 deg = 7e-8 m/deg: 1e-6 m/deg is asked. */
+    const double H = r.curvature_step[0] * DEG;
+    CHECK_REL(r.curvature[0], -4.0 * v * v / G * DEG * DEG * (sin(H) / H) * (sin(H) / H), 1e-6);
+    CHECK_REL(r.curvature[0], -4.0 * v * v / G * DEG * DEG, 1e-4);
     CHECK_ABS(r.slope[0], 0.0, 1e-6);
-    CHECK(r.step[0] == 1e-3 * 80.0);
+    CHECK(r.step[0] == 1e-3 * 80.0 && r.curvature_step[0] == 10.0 * r.step[0]);
     dragarc_optimize_clear(&r);
     CHECK(r.flight.points == NULL);
     dragarc_optimize_clear(&r); /* twice is harmless */
@@ -279,6 +283,34 @@ TEST(several_variables_in_vacuum_go_to_their_bounds_and_the_elevation_to_lichten
     dragarc_optimize_clear(&r);
 }
 
+TEST(slopes_and_curvatures_hold_at_the_default_flight_tolerances)
+{
+    /* The same optimum flown at the default tolerances (rtol 1e-8, atol 1e-6) and at 1e-11. The flights'
+     * error, about rtol x 140 m = 1.4e-6 m, enters the curvature as 4 x 1.4e-6 / H^2: 9e-6 m/deg^2 for the
+     * elevation (H = 0.8 deg; 7e-5 of it) and 9e-9 m/rpm^2 for the spin (H = 25 rpm; 1 % of it), and the
+     * one-sided slope on the spin bound as 4 x 1.4e-6 / h (h = 2.5 rpm): 2.2e-6 m/rpm, 4e-4 of it. Asked:
+     * 1e-3, 2e-2 and 1e-3 relative. */
+    dragarc_optimize_result r[2];
+    for (int k = 0; k < 2; k++) {
+        dragarc_scenario s;
+        CHECK(spinning_ball(&s, 2000.0) == DRAGARC_OK);
+        s.solver.rtol = k ? 1e-11 : 1e-8;
+        s.solver.atol = k ? 1e-11 : 1e-6;
+        dragarc_optimize_request q;
+        dragarc_optimize_request_default(&q);
+        add(&q, "elevation", 0.0, 80.0);
+        add(&q, "spin_rate", 0.0, 2500.0);
+        CHECK(solve(&s, &q, &r[k]) == DRAGARC_OK);
+        dragarc_scenario_clear(&s);
+    }
+    CHECK(r[0].bound[1] == 1 && r[1].bound[1] == 1);
+    CHECK_REL(r[0].curvature[0], r[1].curvature[0], 1e-3);
+    CHECK_REL(r[0].curvature[1], r[1].curvature[1], 2e-2);
+    CHECK_REL(r[0].slope[1], r[1].slope[1], 1e-3);
+    dragarc_optimize_clear(&r[0]);
+    dragarc_optimize_clear(&r[1]);
+}
+
 TEST(total_distance_is_the_carry_without_a_ground_surface)
 {
     /* dragarc_flight: without ground.surface the ball rests where it lands, total_distance = range. */
@@ -367,7 +399,7 @@ TEST(bad_requests_are_refused_before_any_flight)
     for (int i = 0; i < 5; i++)
         add(&q, five[i], 1.0, 2.0);
     CHECK(dragarc_optimize_add(&q, "gravity", 9.0, 10.0, &e) == DRAGARC_EINVAL && strstr(e.message, "at most 5"));
-    q.fd_step = 0.5;
+    q.fd_step = 0.03;
     CHECK(dragarc_optimize_solve(&s, &q, &r, &e) == DRAGARC_EINVAL && strcmp(e.field, "fd_step") == 0);
     dragarc_scenario_clear(&s);
 }
@@ -407,6 +439,7 @@ int main(void)
     RUN(the_elevation_optimum_is_the_best_of_a_fine_table_with_lift);
     RUN(a_spin_rate_capped_low_gives_a_constrained_optimum_on_its_bound);
     RUN(several_variables_in_vacuum_go_to_their_bounds_and_the_elevation_to_lichtenberg_and_wills);
+    RUN(slopes_and_curvatures_hold_at_the_default_flight_tolerances);
     RUN(total_distance_is_the_carry_without_a_ground_surface);
     RUN(failed_trials_count_as_worst_and_all_failed_is_no_solution);
     RUN(bad_requests_are_refused_before_any_flight);
