@@ -24,6 +24,10 @@ size_t dragarc_cautions_flight(const dragarc_scenario *s, const dragarc_flight *
 /* The same for a set of DRAGARC_NOTE_* flags, e.g. the union over the rows of a table. */
 size_t dragarc_cautions_notes(unsigned notes, const char **out, size_t max);
 
+/* The cautions of an optimum (dragarc_optimize_solve) whose flight has these notes: those of the flight, then
+ * that the optimum is that of one modelled flight. */
+size_t dragarc_cautions_optimum(unsigned notes, const char **out, size_t max);
+
 #ifdef __cplusplus
 }
 #endif

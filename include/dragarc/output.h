@@ -14,6 +14,7 @@
 #include "dragarc/atmosphere.h"
 #include "dragarc/dragarc.h"
 #include "dragarc/flight.h"
+#include "dragarc/optimize.h"
 #include "dragarc/scenario.h"
 #include "dragarc/sweep.h"
 #include "dragarc/units.h"
@@ -58,6 +59,8 @@ void dragarc_text_wrap(FILE *fp, const char *prefix, int indent, int width, cons
 
 /* Print "Cautions:" and the cautions for these DRAGARC_NOTE_* flags as wrapped "  - " items. */
 void dragarc_cautions_print(FILE *fp, unsigned notes, int width);
+/* The same for a list of n cautions (dragarc_cautions_*). */
+void dragarc_cautions_print_list(FILE *fp, const char *const *cautions, size_t n, int width);
 
 /* Write the flight's sampled points as CSV with a header row whose names carry the units of display d
  * (NULL: SI): t_s,x_m,y_m,z_m,vx_m_s,vy_m_s,vz_m_s,speed_m_s,mach,reynolds. */
@@ -78,6 +81,26 @@ struct dragarc_aim_request;
 struct dragarc_aim_result;
 char *dragarc_aim_json(const dragarc_scenario *s, const struct dragarc_aim_request *req,
                        const struct dragarc_aim_result *r, const dragarc_display *d);
+
+/* ---- optima (optimize.h; the output is documented in docs/optimize.md) ---- */
+
+/* The unit the objective of an optimisation is shown in: the "range" field's for the carry, the length
+ * unit's for the total distance. */
+const dragarc_unit_out *dragarc_optimize_objective_unit(const dragarc_display *d, dragarc_optimize_objective o);
+
+/* A derivative of the objective with respect to parameter p, given in m per unit of p to the power `order`
+ * (1: the slope, 2: the curvature), in the units of display d (NULL: SI); its unit goes to unit[n] as
+ * "m/degree^2" ("deg" for "degree" when abbrev; the objective's unit alone for a pure number). */
+double dragarc_optimize_derivative_shown(const dragarc_display *d, dragarc_optimize_objective o,
+                                         const dragarc_scenario_param *p, double value, int order, int abbrev,
+                                         char *unit, size_t n);
+
+/* The `optimize --json` document: {"scenario", "dragarc_version", "maximize", "objective", "varied": [...],
+ * "search": {...}, "summary": {...}, "solver": {...}, "units", "cautions"} for the optimum r of req, s being
+ * the scenario with the optimum applied; values in the units of display d (NULL: SI, degrees for angles).
+ * Caller frees with free(); NULL when out of memory. */
+char *dragarc_optimize_json(const dragarc_scenario *s, const dragarc_optimize_request *req,
+                            const dragarc_optimize_result *r, const dragarc_display *d);
 
 /* Output forms of the tables. */
 typedef enum dragarc_table_format {
@@ -149,6 +172,12 @@ double dragarc_sweep_column_value(const dragarc_sweep_row *row, dragarc_sweep_co
 /* The same in the units of display d (NULL: SI), and that unit. */
 double dragarc_sweep_shown(const dragarc_display *d, const dragarc_sweep_row *row, dragarc_sweep_column c);
 const char *dragarc_sweep_column_unit(const dragarc_display *d, dragarc_sweep_column c);
+
+/* A value of parameter p (in its own units: degrees, rpm, SI) in the units of display d (NULL: as it is),
+ * to 15 significant digits when as_given (a value the user typed: dragarc_display_value_as_given); and that
+ * unit ("" for a pure number). */
+double dragarc_scenario_param_shown(const dragarc_display *d, const dragarc_scenario_param *p, double v, int as_given);
+const char *dragarc_scenario_param_unit(const dragarc_display *d, const dragarc_scenario_param *p);
 
 /* A value of a varied parameter (in its SI unit, degrees for angles) in the units of display d, and that
  * unit ("" for a pure number). */

@@ -42,15 +42,17 @@ const dragarc_scenario_param *dragarc_scenario_param_find(const char *name);
 /* The canonical key path for `name` ("wind_speed" -> "environment.wind.speed"), or NULL. */
 const char *dragarc_scenario_param_path(const char *name);
 
-/* Set parameter `name` of s to `value` (degrees for launch.elevation, launch.azimuth and
- * environment.wind.from, which are stored in radians; SI otherwise). Changes scalars only: never
+/* Set parameter `name` of s to `value` (degrees for launch.elevation, launch.azimuth, launch.spin.tilt and
+ * environment.wind.from, which are stored in radians; rpm for launch.spin.rate, stored in rad/s; SI
+ * otherwise). Changes scalars only: never
  * allocates or frees, so it is safe on a shallow copy that shares its drag table and wind layers.
  * Rules: a new diameter scales area by (d/d0)^2 and volume by (d/d0)^3 (geometric similarity; with no
  * positive d0 they become pi d^2/4 and pi d^3/6) and, when projectile.density > 0, sets
  * mass = density * volume; a new mass clears projectile.density. cd needs the constant drag model;
  * wind speed and direction need a constant, power or log wind (for power and log, the speed is the
  * one at ref_height); on a wind of model none either makes it a constant wind (speed 0 and from 0
- * until set). temperature_offset needs the isa atmosphere, site_elevation isa or exponential.
+ * until set). temperature_offset needs the isa atmosphere, site_elevation isa or exponential; spin_tilt
+ * needs a spin given by rate and tilt (not launch.spin.vector).
  * Values must be finite, and angles other than the elevation within -360..360 degrees; every other
  * range is left to dragarc_scenario_check. Errors: DRAGARC_EINVAL with err->field the key path (for an
  * unknown name, "" and a message listing the accepted names); s is unchanged on error. */
@@ -59,6 +61,13 @@ int dragarc_scenario_set(dragarc_scenario *s, const char *name, double value, dr
 /* Read parameter `name` of s in the same units as dragarc_scenario_set (a wind of model none reads
  * as speed 0). Errors as dragarc_scenario_set for unknown names and models without the parameter. */
 int dragarc_scenario_get(const dragarc_scenario *s, const char *name, double *value, dragarc_error *err);
+
+/* Check that the n parameters can be varied together in base: each one applies to its models (as
+ * dragarc_scenario_set), and varying them changes the flight: a wind direction over a scenario without wind
+ * needs the wind speed varied too, a spin rate or tilt needs a lift model, and a tilt alone needs a spin
+ * rate in the scenario. DRAGARC_EINVAL with err->field the key path concerned. */
+int dragarc_scenario_params_check(const dragarc_scenario *base, const dragarc_scenario_param *const *params, size_t n,
+                                  dragarc_error *err);
 
 /* One varied parameter: values start, start + step, ... up to stop, in the parameter's units. */
 typedef struct dragarc_sweep_axis {
@@ -120,8 +129,8 @@ typedef struct dragarc_sweep {
 int dragarc_sweep_axes_check(const dragarc_sweep_axis *axes, size_t naxes, size_t *nrows, dragarc_error *err);
 
 /* Check a planned table before flying it: the axes as dragarc_sweep_axes_check, a valid base
- * scenario, and every parameter settable in it (e.g. cd only with the constant drag model); varying
- * only the wind direction over a scenario without wind is refused. DRAGARC_EINVAL, err->field the
+ * scenario, and its parameters as dragarc_scenario_params_check (e.g. cd only with the constant drag
+ * model; not the wind direction alone over a scenario without wind). DRAGARC_EINVAL, err->field the
  * key path concerned. */
 int dragarc_sweep_check(const dragarc_scenario *base, const dragarc_sweep_axis *axes, size_t naxes,
                         size_t *nrows, dragarc_error *err);

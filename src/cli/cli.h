@@ -53,6 +53,26 @@ int cli_display_options(const char *cmd, const char *system, const char *const *
                         dragarc_display *d);
 
 
+/* What the scenario commands share on their command lines: the scenario file and the output units. */
+typedef struct cli_common {
+    const char *file;   /* NULL until given */
+    const char *system; /* --units, or NULL */
+    const char *specs[DRAGARC_DISPLAY_MAX_FIELDS + DRAGARC_Q_COUNT]; /* --unit KEY=UNIT */
+    size_t nspecs;
+} cli_common;
+
+/* Take argv[*i], which none of the command's own options matched: --units or --unit with its value
+ * (advancing *i), else an unknown option or the one scenario file. 0 when taken, else the exit status of the
+ * usage error printed. */
+int cli_common_argument(const char *cmd, int argc, char **argv, int *i, cli_common *c);
+
+/* The output units of c into *d, then the scenario file c->file into *s (caller clears it). 0 on success, else
+ * the exit status of the error printed (nothing to clear). */
+int cli_common_load(const char *cmd, const cli_common *c, dragarc_display *d, dragarc_scenario *s);
+
+/* Print the parameters that can be set by name, one a line: short name, key path, unit. */
+void cli_print_params(FILE *fp);
+
 /* Fly a scenario and write its outputs; shared by `fly` and `demo`. */
 typedef struct cli_fly_options {
     int json;
@@ -68,5 +88,6 @@ int cmd_atmosphere(int argc, char **argv);
 int cmd_demo(int argc, char **argv);
 int cmd_table(int argc, char **argv);
 int cmd_sprinkler(int argc, char **argv);
+int cmd_optimize(int argc, char **argv);
 
 #endif

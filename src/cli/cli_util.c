@@ -9,6 +9,7 @@
 #include "cli/cli.h"
 #include "dragarc/cautions.h"
 #include "dragarc/output.h"
+#include "dragarc/sweep.h"
 #include "dragarc/units.h"
 
 #ifndef DRAGARC_PROFILE_DIRS
@@ -267,6 +268,41 @@ int cli_display_options(const char *cmd, const char *system, const char *const *
             return cli_usage_error(cmd, "--unit %s: %s", specs[i], err.message);
     }
     return 0;
+}
+
+int cli_common_argument(const char *cmd, int argc, char **argv, int *i, cli_common *c)
+{
+    const char *a = argv[*i];
+    int st = cli_units_option(cmd, argc, argv, i, &c->system, c->specs, &c->nspecs,
+                              sizeof c->specs / sizeof c->specs[0]);
+    if (st >= 0)
+        return st;
+    if (a[0] == '-' && a[1] != '\0')
+        return cli_usage_error(cmd, "unknown option '%s'", a);
+    if (c->file)
+        return cli_usage_error(cmd, "only one scenario file, got '%s' and '%s'", c->file, a);
+    c->file = a;
+    return 0;
+}
+
+int cli_common_load(const char *cmd, const cli_common *c, dragarc_display *d, dragarc_scenario *s)
+{
+    int st = cli_display_options(cmd, c->system, c->specs, c->nspecs, d);
+    if (st != 0)
+        return st;
+    dragarc_error err;
+    if (dragarc_scenario_read(c->file, cli_profile_path(), s, &err) != DRAGARC_OK)
+        return cli_report(c->file, &err);
+    return 0;
+}
+
+void cli_print_params(FILE *fp)
+{
+    size_t n;
+    const dragarc_scenario_param *p = dragarc_scenario_params(&n);
+    for (size_t i = 0; i < n; i++)
+        fprintf(fp, "  %-20s %s%s%s%s\n", p[i].alias, p[i].path, p[i].unit[0] ? " (" : "", p[i].unit,
+                p[i].unit[0] ? ")" : "");
 }
 
 int cli_fly_scenario(const char *where, const dragarc_scenario *s, const cli_fly_options *o)

@@ -50,8 +50,7 @@ int cmd_aim(int argc, char **argv)
 {
     dragarc_aim_request req;
     dragarc_aim_request_default(&req);
-    const char *file = NULL, *system = NULL, *specs[DRAGARC_DISPLAY_MAX_FIELDS + DRAGARC_Q_COUNT];
-    size_t nspecs = 0;
+    cli_common c = {0};
     int st;
     int json = 0, have_range = 0;
     for (int i = 1; i < argc; i++) {
@@ -62,10 +61,6 @@ int cmd_aim(int argc, char **argv)
             return EXIT_OK;
         } else if (strcmp(a, "--json") == 0) {
             json = 1;
-        } else if ((st = cli_units_option("aim", argc, argv, &i, &system, specs, &nspecs,
-                                          sizeof specs / sizeof specs[0])) >= 0) {
-            if (st != 0)
-                return st;
         } else if (strcmp(a, "--keep-azimuth") == 0) {
             req.solve_azimuth = 0;
         } else if (strcmp(a, "--range") == 0) {
@@ -84,12 +79,8 @@ int cmd_aim(int argc, char **argv)
                 req.mode = DRAGARC_AIM_SPEED;
             else
                 return cli_usage_error("aim", "--solve needs 'elevation' or 'speed', not '%s'", argv[i]);
-        } else if (a[0] == '-' && a[1] != '\0') {
-            return cli_usage_error("aim", "unknown option '%s'", a);
-        } else if (!file) {
-            file = a;
-        } else {
-            return cli_usage_error("aim", "only one scenario file, got '%s' and '%s'", file, a);
+        } else if ((st = cli_common_argument("aim", argc, argv, &i, &c)) != 0) {
+            return st;
         }
         if (target) {
             char why[256];
@@ -100,20 +91,18 @@ int cmd_aim(int argc, char **argv)
                               : cli_usage_error("aim", "%s needs a number of metres", a);
         }
     }
-    if (!file || !*file)
+    if (!c.file || !*c.file)
         return cli_usage_error("aim", "needs a scenario file");
     if (!have_range)
         return cli_usage_error("aim", "needs --range METRES");
     if (!(req.range > 0.0))
         return cli_usage_error("aim", "--range must be positive (got %g)", req.range);
     dragarc_display d;
-    st = cli_display_options("aim", system, specs, nspecs, &d);
-    if (st != 0)
-        return st;
     dragarc_scenario s;
+    if ((st = cli_common_load("aim", &c, &d, &s)) != 0)
+        return st;
+    const char *file = c.file;
     dragarc_error err;
-    if (dragarc_scenario_read(file, cli_profile_path(), &s, &err) != DRAGARC_OK)
-        return cli_report(file, &err);
     dragarc_aim_result r;
     int rc = dragarc_aim_solve(&s, &req, &r, &err);
     if (rc != DRAGARC_OK) {

@@ -34,8 +34,7 @@ static const char HELP[] =
 int cmd_fly(int argc, char **argv)
 {
     cli_fly_options o = {.json = 0, .trajectory = NULL, .dt = 0.05};
-    const char *file = NULL, *system = NULL, *specs[DRAGARC_DISPLAY_MAX_FIELDS + DRAGARC_Q_COUNT];
-    size_t nspecs = 0;
+    cli_common c = {0};
     int st;
     int dt_given = 0;
     for (int i = 1; i < argc; i++) {
@@ -57,30 +56,18 @@ int cmd_fly(int argc, char **argv)
                 return why[0] ? cli_usage_error("fly", "--dt %s", why)
                               : cli_usage_error("fly", "--dt needs a positive number of seconds");
             dt_given = 1;
-        } else if ((st = cli_units_option("fly", argc, argv, &i, &system, specs, &nspecs,
-                                          sizeof specs / sizeof specs[0])) >= 0) {
-            if (st != 0)
-                return st;
-        } else if (a[0] == '-' && a[1] != '\0') {
-            return cli_usage_error("fly", "unknown option '%s'", a);
-        } else if (!file) {
-            file = a;
-        } else {
-            return cli_usage_error("fly", "only one scenario file, got '%s' and '%s'", file, a);
+        } else if ((st = cli_common_argument("fly", argc, argv, &i, &c)) != 0) {
+            return st;
         }
     }
-    if (!file || !*file)
+    if (!c.file || !*c.file)
         return cli_usage_error("fly", "needs a scenario file");
     if (dt_given && !o.trajectory)
         return cli_usage_error("fly", "--dt sets the --trajectory interval; give --trajectory FILE too");
-    st = cli_display_options("fly", system, specs, nspecs, &o.display);
-    if (st != 0)
-        return st;
     dragarc_scenario s;
-    dragarc_error err;
-    if (dragarc_scenario_read(file, cli_profile_path(), &s, &err) != DRAGARC_OK)
-        return cli_report(file, &err);
-    int status = cli_fly_scenario(file, &s, &o);
+    if ((st = cli_common_load("fly", &c, &o.display, &s)) != 0)
+        return st;
+    int status = cli_fly_scenario(c.file, &s, &o);
     dragarc_scenario_clear(&s);
     return status;
 }

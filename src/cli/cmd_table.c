@@ -55,11 +55,7 @@ static const char HELP_TAIL[] =
 static void print_help(void)
 {
     fputs(HELP_HEAD, stdout);
-    size_t n;
-    const dragarc_scenario_param *p = dragarc_scenario_params(&n);
-    for (size_t i = 0; i < n; i++)
-        printf("  %-20s %s%s%s%s\n", p[i].alias, p[i].path, p[i].unit[0] ? " (" : "", p[i].unit,
-               p[i].unit[0] ? ")" : "");
+    cli_print_params(stdout);
     fputs(HELP_TAIL, stdout);
 }
 
@@ -307,9 +303,8 @@ static int aim_table(const char *file, const char *spec, double height, table_fo
 
 int cmd_table(int argc, char **argv)
 {
-    const char *file = NULL, *output = NULL, *format_option = NULL, *ranges = NULL, *system = NULL;
-    const char *specs[DRAGARC_DISPLAY_MAX_FIELDS + DRAGARC_Q_COUNT];
-    size_t nspecs = 0;
+    const char *output = NULL, *format_option = NULL, *ranges = NULL;
+    cli_common c = {0};
     int st;
     double height = NAN;
     table_format format = FORMAT_TEXT;
@@ -331,10 +326,6 @@ int cmd_table(int argc, char **argv)
             if (st != 0)
                 return st;
             naxes++;
-        } else if ((st = cli_units_option("table", argc, argv, &i, &system, specs, &nspecs,
-                                          sizeof specs / sizeof specs[0])) >= 0) {
-            if (st != 0)
-                return st;
         } else if (strcmp(a, "--csv") == 0 || strcmp(a, "--json") == 0 || strcmp(a, "--markdown") == 0) {
             f = a[2] == 'c' ? FORMAT_CSV : a[2] == 'j' ? FORMAT_JSON : FORMAT_MARKDOWN;
             if (format_option && f != format)
@@ -356,14 +347,11 @@ int cmd_table(int argc, char **argv)
             if (output)
                 return cli_usage_error("table", "only one output file, got '%s' and '%s'", output, argv[i]);
             output = argv[i];
-        } else if (a[0] == '-' && a[1] != '\0') {
-            return cli_usage_error("table", "unknown option '%s'", a);
-        } else if (!file) {
-            file = a;
-        } else {
-            return cli_usage_error("table", "only one scenario file, got '%s' and '%s'", file, a);
+        } else if ((st = cli_common_argument("table", argc, argv, &i, &c)) != 0) {
+            return st;
         }
     }
+    const char *file = c.file;
     if (!file || !*file)
         return cli_usage_error("table", "needs a scenario file");
     if (ranges && naxes > 0)
@@ -371,9 +359,9 @@ int cmd_table(int argc, char **argv)
     if (!isnan(height) && !ranges)
         return cli_usage_error("table", "--height sets the aim table's target plane; give --ranges too");
     dragarc_display d;
-    if ((st = cli_display_options("table", system, specs, nspecs, &d)) != 0)
+    if ((st = cli_display_options("table", c.system, c.specs, c.nspecs, &d)) != 0)
         return st;
-    const dragarc_display *dp = system || nspecs ? &d : NULL; /* NULL: SI, as the library names it */
+    const dragarc_display *dp = c.system || c.nspecs ? &d : NULL; /* NULL: SI, as the library names it */
     if (ranges)
         return aim_table(file, ranges, height, format, output, dp);
     if (naxes == 0)

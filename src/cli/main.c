@@ -16,6 +16,8 @@ static const char USAGE[] =
     "  aim SCENARIO --range M  find the launch elevations (or speed) that land on a target\n"
     "  table SCENARIO --vary NAME=START:STOP:STEP ...\n"
     "                        fly it for every combination of varied values; text, CSV, JSON, Markdown\n"
+    "  optimize SCENARIO --maximize carry|total [--vary NAME[=LO:HI]] ...\n"
+    "                        the launch within bounds that carries farthest, with its sensitivities\n"
     "  atmosphere ALT...     U.S. Standard Atmosphere 1976 at geometric altitudes in metres, or the\n"
     "                        day's weather at a site (--temperature, --pressure, --relative-humidity)\n"
     "  sprinkler SCENARIO    a sprinkler's drops: where each size lands, the application-rate pattern (mm/h)\n"
@@ -25,8 +27,8 @@ static const char USAGE[] =
     "  -h, --help            this help; 'dragarc COMMAND --help' for a command's own\n"
     "  -V, --version         print the version\n"
     "\n"
-    "exit status: 0 success, 1 no solution (aim: target out of reach), 2 bad usage or input,\n"
-    "3 the computation (or a table row) failed.\n"
+    "exit status: 0 success, 1 no solution (aim: target out of reach; optimize: no launch lands),\n"
+    "2 bad usage or input, 3 the computation (or a table row) failed.\n"
     "Scenario files, models and sources: see docs/ in the source tree.\n";
 
 static int run(int argc, char **argv);
@@ -65,6 +67,8 @@ static int run(int argc, char **argv)
         return cmd_aim(argc - 1, argv + 1);
     if (strcmp(cmd, "table") == 0)
         return cmd_table(argc - 1, argv + 1);
+    if (strcmp(cmd, "optimize") == 0)
+        return cmd_optimize(argc - 1, argv + 1);
     if (strcmp(cmd, "atmosphere") == 0)
         return cmd_atmosphere(argc - 1, argv + 1);
     if (strcmp(cmd, "demo") == 0)

@@ -34,6 +34,11 @@ static const char DENSE[] =
     "The fluid's density is more than 1 % of the body's: buoyancy is included, but added mass and unsteady "
     "(history) forces are not, so the acceleration phase is only approximate.";
 
+static const char OPTIMUM[] =
+    "The optimum is that of one modelled flight in the scenario's conditions: real launches scatter around it, and "
+    "another ball, wind or air moves it. Where the curvature is small the distance changes little near the optimum, "
+    "so its value matters more than its exact position.";
+
 size_t dragarc_cautions_flight(const dragarc_scenario *s, const dragarc_flight *f, const char **out, size_t max)
 {
     (void)s;
@@ -66,11 +71,24 @@ size_t dragarc_cautions_notes(unsigned notes, const char **out, size_t max)
     return k;
 }
 
+size_t dragarc_cautions_optimum(unsigned notes, const char **out, size_t max)
+{
+    size_t n = dragarc_cautions_notes(notes, out, max);
+    if (n < max)
+        out[n++] = OPTIMUM;
+    return n;
+}
+
+void dragarc_cautions_print_list(FILE *fp, const char *const *cautions, size_t n, int width)
+{
+    fputs("Cautions:\n", fp);
+    for (size_t i = 0; i < n; i++)
+        dragarc_text_wrap(fp, "  - ", 4, width, cautions[i]);
+}
+
 void dragarc_cautions_print(FILE *fp, unsigned notes, int width)
 {
     const char *cautions[DRAGARC_CAUTIONS_MAX];
     size_t nc = dragarc_cautions_notes(notes, cautions, DRAGARC_CAUTIONS_MAX);
-    fputs("Cautions:\n", fp);
-    for (size_t i = 0; i < nc; i++)
-        dragarc_text_wrap(fp, "  - ", 4, width, cautions[i]);
+    dragarc_cautions_print_list(fp, cautions, nc, width);
 }

@@ -13,6 +13,7 @@
 #include "core/constants.h"
 #include "dragarc/aim.h"
 #include "dragarc/cautions.h"
+#include "dragarc/optimize.h"
 #include "dragarc/sprinkler.h"
 #include "dragarc/output.h"
 #include "dragarc/units.h"
@@ -41,13 +42,38 @@ static char *finish(cJSON *doc)
     return text;
 }
 
+static void add_caution_list(cJSON *doc, const char *const *cautions, size_t n)
+{
+    cJSON *ca = cJSON_AddArrayToObject(doc, "cautions");
+    for (size_t i = 0; i < n; i++)
+        cJSON_AddItemToArray(ca, cJSON_CreateString(cautions[i]));
+}
+
 static void add_cautions(cJSON *doc, unsigned notes)
 {
     const char *cautions[DRAGARC_CAUTIONS_MAX];
-    size_t nc = dragarc_cautions_notes(notes, cautions, DRAGARC_CAUTIONS_MAX);
-    cJSON *ca = cJSON_AddArrayToObject(doc, "cautions");
-    for (size_t i = 0; i < nc; i++)
-        cJSON_AddItemToArray(ca, cJSON_CreateString(cautions[i]));
+    add_caution_list(doc, cautions, dragarc_cautions_notes(notes, cautions, DRAGARC_CAUTIONS_MAX));
+}
+
+/* A new document for scenario s ("scenario" and "dragarc_version" first; none for NULL) and its units object
+ * *un, to be added to it; *d becomes SI (held in *si) when NULL. NULL when out of memory. */
+static cJSON *begin(const dragarc_scenario *s, const dragarc_display **d, dragarc_display *si, cJSON **un)
+{
+    if (!*d) {
+        dragarc_display_si(si);
+        *d = si;
+    }
+    cJSON *doc = cJSON_CreateObject();
+    *un = doc ? cJSON_CreateObject() : NULL;
+    if (!*un) {
+        cJSON_Delete(doc);
+        return NULL;
+    }
+    if (s) {
+        cJSON_AddStringToObject(doc, "scenario", s->name);
+        cJSON_AddStringToObject(doc, "dragarc_version", DRAGARC_VERSION_STRING);
+    }
+    return doc;
 }
 
 /* A summary value in its display unit, with its unit recorded in `units`. */
@@ -68,21 +94,12 @@ static cJSON *vec3_shown(cJSON *units, const dragarc_display *d, const char *key
     return vec3(w);
 }
 
-char *dragarc_flight_json(const dragarc_scenario *s, const dragarc_flight *f, const dragarc_display *d)
+/* The flight's "summary" and "solver" objects in doc, their units in un. */
+static void add_flight(cJSON *doc, cJSON *un, const dragarc_scenario *s, const dragarc_flight *f,
+                       const dragarc_display *d)
 {
-    dragarc_display si;
-    if (!d) {
-        dragarc_display_si(&si);
-        d = &si;
-    }
-    cJSON *doc = cJSON_CreateObject();
-    if (!doc)
-        return NULL;
-    cJSON_AddStringToObject(doc, "scenario", s->name);
-    cJSON_AddStringToObject(doc, "dragarc_version", DRAGARC_VERSION_STRING);
     cJSON *sum = cJSON_AddObjectToObject(doc, "summary");
     cJSON *sol = cJSON_AddObjectToObject(doc, "solver");
-    cJSON *un = cJSON_CreateObject();
     add_shown(sum, un, d, "range", DRAGARC_Q_LENGTH, f->range);
     add_shown(sum, un, d, "downrange", DRAGARC_Q_LENGTH, f->downrange);
     add_shown(sum, un, d, "crossrange", DRAGARC_Q_LENGTH, f->crossrange);
@@ -140,8 +157,76 @@ char *dragarc_flight_json(const dragarc_scenario *s, const dragarc_flight *f, co
     cJSON_AddNumberToObject(sol, "rtol", s->solver.rtol);
     cJSON_AddNumberToObject(sol, "atol", s->solver.atol);
     add_shown(sol, un, d, "relaxation_time", DRAGARC_Q_TIME, f->relaxation_time);
+}
+
+char *dragarc_flight_json(const dragarc_scenario *s, const dragarc_flight *f, const dragarc_display *d)
+{
+    dragarc_display si;
+    cJSON *un, *doc = begin(s, &d, &si, &un);
+    if (!doc)
+        return NULL;
+    add_flight(doc, un, s, f, d);
     cJSON_AddItemToObject(doc, "units", un);
     add_cautions(doc, f->notes);
+    return finish(doc);
+}
+
+char *dragarc_optimize_json(const dragarc_scenario *s, const dragarc_optimize_request *req,
+                            const dragarc_optimize_result *r, const dragarc_display *d)
+{
+    dragarc_display si;
+    cJSON *un, *doc = begin(s, &d, &si, &un);
+    if (!doc)
+        return NULL;
+    cJSON_AddStringToObject(doc, "maximize", dragarc_optimize_objective_name(req->objective));
+    const dragarc_unit_out *ul = dragarc_optimize_objective_unit(d, req->objective);
+    add_num(doc, "objective", dragarc_display_value(ul, r->objective));
+    cJSON_AddStringToObject(un, "objective", ul->symbol);
+    cJSON *arr = cJSON_AddArrayToObject(doc, "varied");
+    for (size_t i = 0; i < req->nvars; i++) {
+        const dragarc_scenario_param *p = req->vars[i].param;
+        char slope_unit[64], curvature_unit[64];
+        double slope = dragarc_optimize_derivative_shown(d, req->objective, p, r->slope[i], 1, 0, slope_unit,
+                                                         sizeof slope_unit);
+        double curvature = dragarc_optimize_derivative_shown(d, req->objective, p, r->curvature[i], 2, 0,
+                                                             curvature_unit, sizeof curvature_unit);
+        cJSON *o = cJSON_CreateObject();
+        cJSON_AddStringToObject(o, "name", p->alias);
+        cJSON_AddStringToObject(o, "path", p->path);
+        add_num(o, "lower", dragarc_scenario_param_shown(d, p, req->vars[i].lo, 1));
+        add_num(o, "upper", dragarc_scenario_param_shown(d, p, req->vars[i].hi, 1));
+        add_num(o, "optimum", dragarc_scenario_param_shown(d, p, r->x[i], 0));
+        if (r->bound[i])
+            cJSON_AddStringToObject(o, "on_bound", r->bound[i] < 0 ? "lower" : "upper");
+        else
+            cJSON_AddNullToObject(o, "on_bound");
+        add_num(o, "slope", slope);
+        add_num(o, "curvature", curvature);
+        /* differences: no zero-point offset */
+        double zero = dragarc_scenario_param_shown(d, p, 0.0, 0);
+        add_num(o, "slope_step", dragarc_scenario_param_shown(d, p, r->step[i], 0) - zero);
+        add_num(o, "curvature_step", dragarc_scenario_param_shown(d, p, r->curvature_step[i], 0) - zero);
+        cJSON *vu = cJSON_AddObjectToObject(o, "units");
+        cJSON_AddStringToObject(vu, "value", dragarc_scenario_param_unit(d, p));
+        cJSON_AddStringToObject(vu, "slope", slope_unit);
+        cJSON_AddStringToObject(vu, "curvature", curvature_unit);
+        cJSON_AddItemToArray(arr, o);
+    }
+    cJSON *search = cJSON_AddObjectToObject(doc, "search");
+    cJSON_AddStringToObject(search, "method", r->method ? r->method : "");
+    cJSON_AddNumberToObject(search, "grid", (double)r->grid);
+    cJSON_AddNumberToObject(search, "starts", (double)r->starts);
+    cJSON_AddNumberToObject(search, "iterations", r->iterations);
+    cJSON_AddBoolToObject(search, "converged", r->converged);
+    add_num(search, "size", r->size);
+    cJSON_AddNumberToObject(search, "size_tolerance", req->size_tolerance);
+    cJSON_AddStringToObject(search, "note", r->note);
+    cJSON_AddNumberToObject(search, "flights", (double)r->flights);
+    cJSON_AddNumberToObject(search, "failed_flights", (double)r->failed);
+    add_flight(doc, un, s, &r->flight, d);
+    cJSON_AddItemToObject(doc, "units", un);
+    const char *cautions[DRAGARC_CAUTIONS_MAX];
+    add_caution_list(doc, cautions, dragarc_cautions_optimum(r->flight.notes, cautions, DRAGARC_CAUTIONS_MAX));
     return finish(doc);
 }
 
@@ -149,16 +234,9 @@ char *dragarc_aim_json(const dragarc_scenario *s, const dragarc_aim_request *req
                        const dragarc_display *d)
 {
     dragarc_display si;
-    if (!d) {
-        dragarc_display_si(&si);
-        d = &si;
-    }
-    cJSON *doc = cJSON_CreateObject();
+    cJSON *un, *doc = begin(s, &d, &si, &un);
     if (!doc)
         return NULL;
-    cJSON *un = cJSON_CreateObject();
-    cJSON_AddStringToObject(doc, "scenario", s->name);
-    cJSON_AddStringToObject(doc, "dragarc_version", DRAGARC_VERSION_STRING);
     cJSON *t = cJSON_AddObjectToObject(doc, "target");
     add_shown(t, un, d, "range", DRAGARC_Q_LENGTH, req->range);
     add_shown(t, un, d, "crossrange", DRAGARC_Q_LENGTH, req->crossrange);
@@ -210,14 +288,9 @@ char *dragarc_atmosphere_json(const dragarc_atmosphere *atm, const double *altit
 {
     int local = atm->model == DRAGARC_ATMOSPHERE_LOCAL;
     dragarc_display si;
-    if (!d) {
-        dragarc_display_si(&si);
-        d = &si;
-    }
-    cJSON *doc = cJSON_CreateObject();
+    cJSON *un, *doc = begin(NULL, &d, &si, &un);
     if (!doc)
         return NULL;
-    cJSON *un = cJSON_CreateObject();
     if (local) {
         cJSON_AddStringToObject(doc, "model", "local");
         add_shown(doc, un, d, "temperature", DRAGARC_Q_TEMPERATURE, atm->temperature);

@@ -126,18 +126,29 @@ const char *dragarc_sweep_column_unit(const dragarc_display *d, dragarc_sweep_co
     return d ? dragarc_display_unit(d, COLUMNS[c].key, COLUMNS[c].quantity)->symbol : COLUMNS[c].unit;
 }
 
+double dragarc_scenario_param_shown(const dragarc_display *d, const dragarc_scenario_param *p, double v, int as_given)
+{
+    if (!d || p->quantity == DRAGARC_Q_NUMBER)
+        return v;
+    const dragarc_unit_out *u = dragarc_display_unit(d, NULL, p->quantity);
+    return as_given ? dragarc_display_value_as_given(u, v) : dragarc_display_value(u, v);
+}
+
+const char *dragarc_scenario_param_unit(const dragarc_display *d, const dragarc_scenario_param *p)
+{
+    if (!d || p->quantity == DRAGARC_Q_NUMBER)
+        return p->unit;
+    return dragarc_display_unit(d, NULL, p->quantity)->symbol;
+}
+
 double dragarc_sweep_axis_shown(const dragarc_display *d, const dragarc_sweep_axis *a, double v)
 {
-    if (!d || a->param->quantity == DRAGARC_Q_NUMBER)
-        return v;
-    return dragarc_display_value_as_given(dragarc_display_unit(d, NULL, a->param->quantity), v);
+    return dragarc_scenario_param_shown(d, a->param, v, 1);
 }
 
 const char *dragarc_sweep_axis_unit(const dragarc_display *d, const dragarc_sweep_axis *a)
 {
-    if (!d || a->param->quantity == DRAGARC_Q_NUMBER)
-        return a->param->unit;
-    return dragarc_display_unit(d, NULL, a->param->quantity)->symbol;
+    return dragarc_scenario_param_unit(d, a->param);
 }
 
 int dragarc_sweep_column_decimals(const dragarc_sweep *t, dragarc_sweep_column c, const dragarc_display *d)

@@ -35,6 +35,8 @@ typedef enum param_id {
     P_TEMPERATURE_OFFSET,
     P_GROUND_ELEVATION,
     P_GRAVITY,
+    P_SPIN_RATE,
+    P_SPIN_TILT,
     P_COUNT
 } param_id;
 
@@ -53,6 +55,8 @@ static const dragarc_scenario_param PARAMS[P_COUNT] = {
     {"environment.atmosphere.temperature_offset", "temperature_offset", "K", DRAGARC_Q_TEMPERATURE_DIFFERENCE},
     {"ground.elevation", "ground_elevation", "m", DRAGARC_Q_LENGTH},
     {"environment.gravity", "gravity", "m/s^2", DRAGARC_Q_ACCELERATION},
+    {"launch.spin.rate", "spin_rate", "rpm", DRAGARC_Q_ANGULAR_SPEED},
+    {"launch.spin.tilt", "spin_tilt", "degree", DRAGARC_Q_ANGLE},
 };
 
 const dragarc_scenario_param *dragarc_scenario_params(size_t *count)
@@ -146,6 +150,12 @@ static int applicable(const dragarc_scenario *s, param_id id, dragarc_error *err
                                      "have a site elevation",
                                      atmosphere_model_name(s->atmosphere.model));
         return DRAGARC_OK;
+    case P_SPIN_TILT:
+        if (s->launch.spin_axis_given)
+            return dragarc_error_set(err, DRAGARC_EINVAL, path,
+                                     "the spin is given as a vector (launch.spin.vector), which fixes its axis: there "
+                                     "is no tilt to set (give launch.spin.rate and tilt instead)");
+        return DRAGARC_OK;
     default: return DRAGARC_OK;
     }
 }
@@ -178,7 +188,7 @@ int dragarc_scenario_set(dragarc_scenario *s, const char *name, double value, dr
     const char *path = PARAMS[id].path;
     if (!isfinite(value))
         return dragarc_error_set(err, DRAGARC_EINVAL, path, "must be a finite number (got %g)", value);
-    if ((id == P_AZIMUTH || id == P_WIND_FROM) && !(value >= -360.0 && value <= 360.0))
+    if ((id == P_AZIMUTH || id == P_WIND_FROM || id == P_SPIN_TILT) && !(value >= -360.0 && value <= 360.0))
         return dragarc_error_set(err, DRAGARC_EINVAL, path, "must be between -360 and 360 degrees (got %g)", value);
     if (id == P_DIAMETER && !(value > 0.0))
         return dragarc_error_set(err, DRAGARC_EINVAL, path, "must be positive, in m (got %g)", value);
@@ -218,6 +228,8 @@ int dragarc_scenario_set(dragarc_scenario *s, const char *name, double value, dr
     case P_TEMPERATURE_OFFSET: s->atmosphere.temperature_offset = value; break;
     case P_GROUND_ELEVATION: s->ground_elevation = value; break;
     case P_GRAVITY: s->gravity = value; break;
+    case P_SPIN_RATE: s->launch.spin_rate = value * 2.0 * DRAGARC_PI / 60.0; break; /* rpm, as the reader does */
+    case P_SPIN_TILT: s->launch.spin_tilt = value * DRAGARC_DEG; break;
     case P_COUNT: break;
     }
     return DRAGARC_OK;
@@ -244,6 +256,8 @@ int dragarc_scenario_get(const dragarc_scenario *s, const char *name, double *va
     case P_TEMPERATURE_OFFSET: v = s->atmosphere.temperature_offset; break;
     case P_GROUND_ELEVATION: v = s->ground_elevation; break;
     case P_GRAVITY: v = s->gravity; break;
+    case P_SPIN_RATE: v = s->launch.spin_rate * 60.0 / (2.0 * DRAGARC_PI); break;
+    case P_SPIN_TILT: v = s->launch.spin_tilt / DRAGARC_DEG; break;
     case P_COUNT: break;
     }
     *value = v;
@@ -381,6 +395,38 @@ int dragarc_sweep_axes_check(const dragarc_sweep_axis *axes, size_t naxes, size_
     return DRAGARC_OK;
 }
 
+int dragarc_scenario_params_check(const dragarc_scenario *base, const dragarc_scenario_param *const *params, size_t n,
+                                  dragarc_error *err)
+{
+    unsigned varied = 0; /* bit i: PARAMS[i] */
+    for (size_t k = 0; k < n; k++) {
+        if (!params[k] || !known(params[k]))
+            return dragarc_error_set(err, DRAGARC_EINVAL, "", "parameter %zu is not one of dragarc_scenario_params",
+                                     k + 1);
+        param_id id = id_of(params[k]);
+        int rc = applicable(base, id, err);
+        if (rc != DRAGARC_OK)
+            return rc;
+        varied |= 1u << id;
+    }
+#define VARIED(id) ((varied >> (id)) & 1u)
+    if (VARIED(P_WIND_FROM) && !VARIED(P_WIND_SPEED) && base->wind.model == DRAGARC_WIND_NONE)
+        return dragarc_error_set(err, DRAGARC_EINVAL, PARAMS[P_WIND_FROM].path,
+                                 "the scenario has no wind, so its direction changes nothing: vary wind_speed too, "
+                                 "or give environment.wind in the scenario");
+    param_id spin = VARIED(P_SPIN_RATE) ? P_SPIN_RATE : P_SPIN_TILT;
+    if ((VARIED(P_SPIN_RATE) || VARIED(P_SPIN_TILT)) && base->projectile.lift.model == DRAGARC_LIFT_NONE)
+        return dragarc_error_set(err, DRAGARC_EINVAL, PARAMS[spin].path,
+                                 "the projectile has no lift model, so its spin changes nothing: give projectile.lift "
+                                 "in the scenario");
+    if (VARIED(P_SPIN_TILT) && !VARIED(P_SPIN_RATE) && !(base->launch.spin_rate > 0.0))
+        return dragarc_error_set(err, DRAGARC_EINVAL, PARAMS[P_SPIN_TILT].path,
+                                 "the scenario's spin rate is 0, so the tilt of its axis changes nothing: vary "
+                                 "spin_rate too, or give launch.spin.rate in the scenario");
+#undef VARIED
+    return DRAGARC_OK;
+}
+
 int dragarc_sweep_check(const dragarc_scenario *base, const dragarc_sweep_axis *axes, size_t naxes, size_t *nrows,
                         dragarc_error *err)
 {
@@ -392,18 +438,11 @@ int dragarc_sweep_check(const dragarc_scenario *base, const dragarc_sweep_axis *
         return rc;
     if ((rc = dragarc_scenario_check(base, err)) != DRAGARC_OK)
         return rc;
-    int varies_speed = 0, varies_from = 0;
-    for (size_t k = 0; k < naxes; k++) {
-        param_id id = id_of(axes[k].param);
-        if ((rc = applicable(base, id, err)) != DRAGARC_OK)
-            return rc;
-        varies_speed |= id == P_WIND_SPEED;
-        varies_from |= id == P_WIND_FROM;
-    }
-    if (varies_from && !varies_speed && base->wind.model == DRAGARC_WIND_NONE)
-        return dragarc_error_set(err, DRAGARC_EINVAL, PARAMS[P_WIND_FROM].path,
-                                 "the scenario has no wind, so its direction changes nothing: vary wind_speed too, "
-                                 "or give environment.wind in the scenario");
+    const dragarc_scenario_param *params[DRAGARC_SWEEP_MAX_AXES];
+    for (size_t k = 0; k < naxes; k++)
+        params[k] = axes[k].param;
+    if ((rc = dragarc_scenario_params_check(base, params, naxes, err)) != DRAGARC_OK)
+        return rc;
     if (nrows)
         *nrows = total;
     return DRAGARC_OK;

@@ -42,7 +42,7 @@ int dragarc_scenario_check(const dragarc_scenario *s, dragarc_error *err)
         return dragarc_error_set(err, DRAGARC_EINVAL, "launch.azimuth", "must be a finite angle in degrees");
     if (!isfinite(l->height))
         return dragarc_error_set(err, DRAGARC_EINVAL, "launch.height", "must be a finite height in m");
-    if (!(l->spin_rate >= 0.0 && l->spin_rate <= 2.0 * DRAGARC_PI * 1000.0)) /* 60000 rpm */
+    if (!(l->spin_rate >= 0.0 && l->spin_rate <= 60000.0 * 2.0 * DRAGARC_PI / 60.0)) /* the reader's rpm arithmetic */
         return dragarc_error_set(err, DRAGARC_EINVAL, "launch.spin.rate", "must be between 0 and 60000 rpm (got %g)",
                                  l->spin_rate * 60.0 / (2.0 * DRAGARC_PI));
     if (!(fabs(l->spin_tilt) <= DRAGARC_PI + 1e-12))
