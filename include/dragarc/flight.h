@@ -41,7 +41,8 @@ enum {
     DRAGARC_NOTE_DRAG_CRISIS = 1u << 3,   /* sphere model crossed Re 2e5..1e6: Cd drops sharply */
     DRAGARC_NOTE_HIGH_ENERGY = 1u << 4,   /* impact energy >= 15 J */
     DRAGARC_NOTE_BALL = 1u << 5,          /* a spinning or bouncing ball: a sports flight near people */
-    DRAGARC_NOTE_IRRIGATION = 1u << 6     /* a sprinkler's pattern: irrigation design */
+    DRAGARC_NOTE_IRRIGATION = 1u << 6,    /* a sprinkler's pattern: irrigation design */
+    DRAGARC_NOTE_SPRAY_DRIFT = 1u << 7    /* a spray drift estimate: pesticide and buffer-zone rules */
 };
 
 /* One landing of a ball on a ground surface (ground.surface): the state just before and just after it. */

@@ -134,6 +134,13 @@ int dragarc_sprinkler_write_profile_csv(FILE *fp, const struct dragarc_sprinkler
                                         dragarc_error *err);
 int dragarc_sprinkler_write_grid_csv(FILE *fp, const struct dragarc_sprinkler_result *r, dragarc_error *err);
 
+/* A drift result as one JSON document (SI units) and its deposit per metre as CSV (bin bounds, the total, then one
+ * column per class). */
+struct dragarc_drift_spec;
+struct dragarc_drift_result;
+char *dragarc_drift_json(const struct dragarc_drift_spec *spec, const struct dragarc_drift_result *r);
+int dragarc_drift_write_csv(FILE *fp, const struct dragarc_drift_result *r, dragarc_error *err);
+
 char *dragarc_atmosphere_json(const dragarc_atmosphere *atm, const double *altitudes, const dragarc_air *levels,
                               size_t n, const dragarc_display *d);
 

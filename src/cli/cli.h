@@ -82,12 +82,18 @@ typedef struct cli_fly_options {
 } cli_fly_options;
 int cli_fly_scenario(const char *where, const dragarc_scenario *s, const cli_fly_options *o);
 
+/* Write the file at path whole or not at all with w(fp, ctx, err); on failure report it under `option` and return
+ * the exit status, else EXIT_OK. */
+int cli_write_output(const char *option, const char *path, int (*w)(FILE *fp, const void *ctx, dragarc_error *err),
+                     const void *ctx);
+
 int cmd_fly(int argc, char **argv);
 int cmd_aim(int argc, char **argv);
 int cmd_atmosphere(int argc, char **argv);
 int cmd_demo(int argc, char **argv);
 int cmd_table(int argc, char **argv);
 int cmd_sprinkler(int argc, char **argv);
+int cmd_drift(int argc, char **argv);
 int cmd_optimize(int argc, char **argv);
 
 #endif

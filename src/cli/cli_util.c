@@ -350,3 +350,24 @@ int cli_fly_scenario(const char *where, const dragarc_scenario *s, const cli_fly
     dragarc_flight_clear(&f);
     return EXIT_OK;
 }
+
+int cli_write_output(const char *option, const char *path, int (*w)(FILE *fp, const void *ctx, dragarc_error *err),
+                     const void *ctx)
+{
+    dragarc_output out;
+    dragarc_error err;
+    int rc = dragarc_output_open(&out, path, &err);
+    if (rc == DRAGARC_OK) {
+        rc = w(out.fp, ctx, &err);
+        if (rc == DRAGARC_OK)
+            rc = dragarc_output_commit(&out, &err);
+        else
+            dragarc_output_abort(&out);
+    }
+    if (rc != DRAGARC_OK) {
+        err.field[0] = '\0';
+        return cli_report(option, &err);
+    }
+    return EXIT_OK;
+}
+

@@ -25,41 +25,20 @@ static const char HELP[] =
     "  --grid FILE   write the application rate on the grid of cells (x_m,y_m,rate_mm_h at cell centres)\n"
     "  -h, --help    this help\n";
 
-typedef int (*csv_writer)(FILE *fp, const dragarc_sprinkler_result *r, const dragarc_sprinkler_spec *spec,
-                          dragarc_error *err);
+typedef struct outputs {
+    const dragarc_sprinkler_result *r;
+    const dragarc_sprinkler_spec *spec;
+} outputs;
 
-static int write_profile(FILE *fp, const dragarc_sprinkler_result *r, const dragarc_sprinkler_spec *spec,
-                         dragarc_error *err)
+static int write_profile(FILE *fp, const void *ctx, dragarc_error *err)
 {
-    return dragarc_sprinkler_write_profile_csv(fp, r, spec->ring_width, err);
+    const outputs *o = ctx;
+    return dragarc_sprinkler_write_profile_csv(fp, o->r, o->spec->ring_width, err);
 }
 
-static int write_grid(FILE *fp, const dragarc_sprinkler_result *r, const dragarc_sprinkler_spec *spec,
-                      dragarc_error *err)
+static int write_grid(FILE *fp, const void *ctx, dragarc_error *err)
 {
-    (void)spec;
-    return dragarc_sprinkler_write_grid_csv(fp, r, err);
-}
-
-/* Write one output file whole or not at all. */
-static int write_file(const char *option, const char *path, csv_writer w, const dragarc_sprinkler_result *r,
-                      const dragarc_sprinkler_spec *spec)
-{
-    dragarc_output out;
-    dragarc_error err;
-    int rc = dragarc_output_open(&out, path, &err);
-    if (rc == DRAGARC_OK) {
-        rc = w(out.fp, r, spec, &err);
-        if (rc == DRAGARC_OK)
-            rc = dragarc_output_commit(&out, &err);
-        else
-            dragarc_output_abort(&out);
-    }
-    if (rc != DRAGARC_OK) {
-        err.field[0] = '\0';
-        return cli_report(option, &err);
-    }
-    return EXIT_OK;
+    return dragarc_sprinkler_write_grid_csv(fp, ((const outputs *)ctx)->r, err);
 }
 
 static void print_summary(const dragarc_sprinkler_spec *sp, const dragarc_spectrum_class *cl,
@@ -144,10 +123,11 @@ int cmd_sprinkler(int argc, char **argv)
     } else if (dragarc_sprinkler_spec_run(&spec, classes, &r, &err) != DRAGARC_OK) {
         status = cli_report(path, &err);
     }
+    const outputs o = {&r, &spec};
     if (status == EXIT_OK && csv)
-        status = write_file("--csv", csv, write_profile, &r, &spec);
+        status = cli_write_output("--csv", csv, write_profile, &o);
     if (status == EXIT_OK && grid)
-        status = write_file("--grid", grid, write_grid, &r, &spec);
+        status = cli_write_output("--grid", grid, write_grid, &o);
     if (status == EXIT_OK && json) {
         char *text = dragarc_sprinkler_json(&spec, classes, &r);
         if (text) {

@@ -21,6 +21,7 @@ static const char USAGE[] =
     "  atmosphere ALT...     U.S. Standard Atmosphere 1976 at geometric altitudes in metres, or the\n"
     "                        day's weather at a site (--temperature, --pressure, --relative-humidity)\n"
     "  sprinkler SCENARIO    a sprinkler's drops: where each size lands, the application-rate pattern (mm/h)\n"
+    "  drift SCENARIO        spray drift: the deposit per metre downwind, the airborne share, drift distances\n"
     "  demo                  fly built-in example scenarios and explain what they show\n"
     "\n"
     "options:\n"
@@ -75,6 +76,8 @@ static int run(int argc, char **argv)
         return cmd_demo(argc - 1, argv + 1);
     if (strcmp(cmd, "sprinkler") == 0)
         return cmd_sprinkler(argc - 1, argv + 1);
+    if (strcmp(cmd, "drift") == 0)
+        return cmd_drift(argc - 1, argv + 1);
     fprintf(stderr, "dragarc: unknown command '%s' (see 'dragarc --help')\n", cmd);
     return EXIT_BAD_INPUT;
 }

@@ -30,6 +30,10 @@ static const char IRRIGATION[] =
     "Sprinkler layouts, application rates and watering schedules follow local codes and water-use rules; the "
     "pattern is modelled for one sprinkler on flat ground, and catch-can tests under the applicable test standard "
     "decide what a sprinkler actually lays down.";
+static const char DRIFT[] =
+    "Pesticide and other spray applications follow the product label, buffer-zone rules and local regulations; "
+    "this drift estimate (one nozzle, steady wind without turbulence, flat open ground) does not replace them or "
+    "field measurement.";
 static const char DENSE[] =
     "The fluid's density is more than 1 % of the body's: buoyancy is included, but added mass and unsteady "
     "(history) forces are not, so the acceleration phase is only approximate.";
@@ -65,6 +69,8 @@ size_t dragarc_cautions_notes(unsigned notes, const char **out, size_t max)
         all[n++] = SPECTATORS;
     if (notes & DRAGARC_NOTE_IRRIGATION)
         all[n++] = IRRIGATION;
+    if (notes & DRAGARC_NOTE_SPRAY_DRIFT)
+        all[n++] = DRIFT;
     size_t k = n < max ? n : max;
     for (size_t i = 0; i < k; i++)
         out[i] = all[i];

@@ -6,6 +6,7 @@
 #include <string.h>
 
 #include "core/constants.h"
+#include "dragarc/drift.h"
 #include "dragarc/output.h"
 #include "dragarc/sprinkler.h"
 
@@ -98,6 +99,28 @@ int dragarc_sprinkler_write_grid_csv(FILE *fp, const dragarc_sprinkler_result *r
             double v[3] = {r->x0 + (i + 0.5) * r->cell, r->y0 + (j + 0.5) * r->cell, r->grid_rate[j * r->nx + i]};
             csv_row(fp, v, 3);
         }
+    return csv_done(fp, err);
+}
+
+int dragarc_drift_write_csv(FILE *fp, const dragarc_drift_result *r, dragarc_error *err)
+{
+    fputs("from_m,to_m,deposit_per_m", fp);
+    for (size_t i = 0; i < r->nclasses; i++)
+        fprintf(fp, ",d%.6g_um", r->classes[i].diameter * 1e6);
+    fputc('\n', fp);
+    for (size_t b = 0; b < r->nbins; b++) {
+        double v[3] = {r->first_bin + b * r->bin_width, r->first_bin + (b + 1) * r->bin_width, r->deposit[b]};
+        for (int k = 0; k < 3; k++) {
+            if (k)
+                fputc(',', fp);
+            dragarc_number_write(fp, v[k]);
+        }
+        for (size_t i = 0; i < r->nclasses; i++) {
+            fputc(',', fp);
+            dragarc_number_write(fp, r->class_deposit[i * r->nbins + b]);
+        }
+        fputc('\n', fp);
+    }
     return csv_done(fp, err);
 }
 

@@ -13,6 +13,7 @@
 #include "core/constants.h"
 #include "dragarc/aim.h"
 #include "dragarc/cautions.h"
+#include "dragarc/drift.h"
 #include "dragarc/optimize.h"
 #include "dragarc/sprinkler.h"
 #include "dragarc/output.h"
@@ -367,6 +368,57 @@ char *dragarc_sprinkler_json(const dragarc_sprinkler_spec *spec, const dragarc_s
     for (size_t k = 0; k < sizeof U / sizeof U[0]; k++)
         cJSON_AddStringToObject(un, U[k][0], U[k][1]);
     add_cautions(doc, r->notes | DRAGARC_NOTE_IRRIGATION);
+    return finish(doc);
+}
+
+char *dragarc_drift_json(const dragarc_drift_spec *spec, const dragarc_drift_result *r)
+{
+    static const char *const OUTCOME[] = {"landed", "evaporated", "aloft", "failed"};
+    cJSON *doc = cJSON_CreateObject();
+    if (!doc)
+        return NULL;
+    cJSON_AddStringToObject(doc, "scenario", spec->base.name);
+    cJSON_AddStringToObject(doc, "dragarc_version", DRAGARC_VERSION_STRING);
+    cJSON *sum = cJSON_AddObjectToObject(doc, "summary");
+    add_num(sum, "downwind_direction", r->wind_toward / DRAGARC_DEG);
+    add_num(sum, "deposited_fraction", r->deposited_fraction);
+    add_num(sum, "evaporated_fraction", r->evaporated_fraction);
+    add_num(sum, "aloft_fraction", r->aloft_fraction);
+    add_num(sum, "failed_fraction", r->failed_fraction);
+    add_num(sum, "distance90", r->distance90);
+    add_num(sum, "distance99", r->distance99);
+    add_num(sum, "buffer", r->buffer);
+    add_num(sum, "beyond_buffer", r->beyond_buffer);
+    add_num(sum, "diameter_at_buffer", r->diameter_at_buffer);
+    cJSON *cl = cJSON_AddArrayToObject(doc, "classes");
+    for (size_t i = 0; i < r->nclasses; i++) {
+        const dragarc_drift_class *c = &r->classes[i];
+        cJSON *o = cJSON_CreateObject();
+        add_num(o, "diameter", c->diameter);
+        add_num(o, "fraction", c->fraction);
+        cJSON_AddStringToObject(o, "outcome", OUTCOME[c->outcome]);
+        add_num(o, "downwind", c->outcome <= DRAGARC_DRIFT_EVAPORATED ? c->downwind : NAN);
+        add_num(o, "crosswind", c->outcome <= DRAGARC_DRIFT_EVAPORATED ? c->crosswind : NAN);
+        add_num(o, "time", c->time);
+        add_num(o, "water_left", c->outcome == DRAGARC_DRIFT_LANDED ? c->water_left : 0.0);
+        cJSON_AddItemToArray(cl, o);
+    }
+    cJSON *dep = cJSON_AddArrayToObject(doc, "deposit");
+    for (size_t b = 0; b < r->nbins; b++) {
+        cJSON *o = cJSON_CreateObject();
+        add_num(o, "from", r->first_bin + b * r->bin_width);
+        add_num(o, "to", r->first_bin + (b + 1) * r->bin_width);
+        add_num(o, "per_metre", r->deposit[b]);
+        cJSON_AddItemToArray(dep, o);
+    }
+    cJSON *un = cJSON_AddObjectToObject(doc, "units");
+    static const char *const U[][2] = {{"downwind_direction", "degree"}, {"distance90", "m"}, {"distance99", "m"},
+                                       {"buffer", "m"}, {"diameter_at_buffer", "m"}, {"diameter", "m"},
+                                       {"downwind", "m"}, {"crosswind", "m"}, {"time", "s"}, {"from", "m"},
+                                       {"to", "m"}, {"per_metre", "1/m"}};
+    for (size_t k = 0; k < sizeof U / sizeof U[0]; k++)
+        cJSON_AddStringToObject(un, U[k][0], U[k][1]);
+    add_cautions(doc, r->notes | DRAGARC_NOTE_SPRAY_DRIFT);
     return finish(doc);
 }
 

@@ -15,6 +15,7 @@
 
 #include "core/constants.h"
 #include "dragarc/scenario.h"
+#include "dragarc/drift.h"
 #include "dragarc/sprinkler.h"
 #include "dragarc/output.h"
 #include "dragarc/units.h"
@@ -239,6 +240,17 @@ static const struct {
     {"sprinkler.spectrum.scale", DRAGARC_Q_LENGTH},
     {"sprinkler.ring_width", DRAGARC_Q_LENGTH},
     {"sprinkler.cell", DRAGARC_Q_LENGTH},
+    {"drift.release.height", DRAGARC_Q_LENGTH},
+    {"drift.release.pressure", DRAGARC_Q_PRESSURE},
+    {"drift.release.elevation", DRAGARC_Q_ANGLE},
+    {"drift.release.azimuth", DRAGARC_Q_ANGLE},
+    {"drift.travel.speed", DRAGARC_Q_SPEED},
+    {"drift.travel.direction", DRAGARC_Q_ANGLE},
+    {"drift.liquid_density", DRAGARC_Q_DENSITY},
+    {"drift.spectrum.dv50", DRAGARC_Q_LENGTH},
+    {"drift.spectrum.scale", DRAGARC_Q_LENGTH},
+    {"drift.bin_width", DRAGARC_Q_LENGTH},
+    {"drift.buffer", DRAGARC_Q_LENGTH},
 };
 
 typedef struct unit_pass {
@@ -1140,7 +1152,8 @@ int dragarc_scenario_read(const char *path, const char *profile_path, dragarc_sc
 
 /* sprinkler.spectrum: {"form": "rosin_rammler" | "log_normal" | "table", "dv50" or "scale", "spread" | "sigma" or
  * "span", "points": [[d, fraction], ...], "classes", "spacing"}. */
-static int read_spectrum(const cJSON *j, const char *path, dragarc_sprinkler_spec *sp, dragarc_error *err)
+static int read_spectrum(const cJSON *j, const char *path, dragarc_spectrum *spectrum, size_t *nclasses,
+                         dragarc_spectrum_spacing *spacing_out, dragarc_error *err)
 {
     static const char *const keys[] = {"form", "dv50", "scale", "spread", "sigma", "span", "points", "classes",
                                        "spacing", "source", NULL};
@@ -1157,7 +1170,7 @@ static int read_spectrum(const cJSON *j, const char *path, dragarc_sprinkler_spe
         return dragarc_error_set(err, DRAGARC_EINVAL, field, "unknown spectrum form \"%s\" (rosin_rammler, log_normal, "
                                  "table)", form);
     }
-    if (dragarc_spectrum_spacing_from_name(spacing, &sp->spacing) != DRAGARC_OK) {
+    if (dragarc_spectrum_spacing_from_name(spacing, spacing_out) != DRAGARC_OK) {
         join(field, sizeof field, path, "spacing");
         return dragarc_error_set(err, DRAGARC_EINVAL, field, "unknown spacing \"%s\" (geometric, equal_volume)",
                                  spacing);
@@ -1169,7 +1182,7 @@ static int read_spectrum(const cJSON *j, const char *path, dragarc_sprinkler_spe
         return dragarc_error_set(err, DRAGARC_EINVAL, field, "must be a whole number from 1 to %d (got %g)",
                                  DRAGARC_SPECTRUM_MAX_CLASSES, classes);
     }
-    sp->nclasses = (size_t)classes;
+    *nclasses = (size_t)classes;
     TRY(get_number(j, path, "dv50", 0, &dv50, NULL, err));
     TRY(get_number(j, path, "scale", 0, &scale, NULL, err));
     TRY(get_number(j, path, "spread", 0, &spread, NULL, err));
@@ -1179,25 +1192,39 @@ static int read_spectrum(const cJSON *j, const char *path, dragarc_sprinkler_spe
     if (f == DRAGARC_SPECTRUM_ROSIN_RAMMLER) {
         if (isnan(dv50) == isnan(scale) || isnan(spread))
             return dragarc_error_set(err, DRAGARC_EINVAL, path, "rosin_rammler needs dv50 (or scale) and spread");
-        rc = !isnan(dv50) ? dragarc_spectrum_rosin_rammler(&sp->spectrum, dv50, spread, err)
-                          : dragarc_spectrum_rosin_rammler_scale(&sp->spectrum, scale, spread, err);
+        rc = !isnan(dv50) ? dragarc_spectrum_rosin_rammler(spectrum, dv50, spread, err)
+                          : dragarc_spectrum_rosin_rammler_scale(spectrum, scale, spread, err);
     } else if (f == DRAGARC_SPECTRUM_LOG_NORMAL) {
         if (isnan(dv50) || isnan(sigma) == isnan(span))
             return dragarc_error_set(err, DRAGARC_EINVAL, path, "log_normal needs dv50 and one of sigma or span");
-        rc = !isnan(sigma) ? dragarc_spectrum_log_normal(&sp->spectrum, dv50, sigma, err)
-                           : dragarc_spectrum_log_normal_span(&sp->spectrum, dv50, span, err);
+        rc = !isnan(sigma) ? dragarc_spectrum_log_normal(spectrum, dv50, sigma, err)
+                           : dragarc_spectrum_log_normal_span(spectrum, dv50, span, err);
     } else {
         double *x = NULL, *y = NULL;
         int n = 0;
         join(field, sizeof field, path, "points");
         rc = read_pairs(cJSON_GetObjectItemCaseSensitive(j, "points"), field, "[diameter, fraction]", &x, &y, &n, err);
         if (rc == DRAGARC_OK)
-            rc = dragarc_spectrum_table_set(&sp->spectrum, x, y, (size_t)n, err);
+            rc = dragarc_spectrum_table_set(spectrum, x, y, (size_t)n, err);
         free(x), free(y);
     }
     if (rc != DRAGARC_OK && err && strncmp(err->field, path, strlen(path)) != 0)
         dragarc_error_prefix(err, path);
     return rc;
+}
+
+/* The drop of a sprinkler or a sprayer: water of the liquid's density with sphere drag (each class sets its own
+ * diameter), evaporating in the day's air when the atmosphere is the local model (set by read_drop_rest). */
+static void water_drop(dragarc_projectile *p, double density, double nonvolatile_fraction)
+{
+    p->density = density;
+    p->diameter = 1e-3;
+    p->area = 0.25 * DRAGARC_PI * p->diameter * p->diameter;
+    p->volume = DRAGARC_PI / 6.0 * p->diameter * p->diameter * p->diameter;
+    p->mass = p->density * p->volume;
+    p->drag.model = DRAGARC_DRAG_SPHERE;
+    p->evaporation.nonvolatile_fraction = nonvolatile_fraction;
+    snprintf(p->name, sizeof p->name, "water drop");
 }
 
 /* The sprinkler object: the nozzle, its height and elevation, its arc, the drops, and the pattern's resolution. */
@@ -1268,18 +1295,33 @@ static int read_sprinkler(const cJSON *j, dragarc_sprinkler_spec *sp, dragarc_er
     const cJSON *spec = cJSON_GetObjectItemCaseSensitive(j, "spectrum");
     if (!spec)
         return dragarc_error_set(err, DRAGARC_EINVAL, "sprinkler.spectrum", "is required");
-    TRY(read_spectrum(spec, "sprinkler.spectrum", sp, err));
-    /* The drop: water of the liquid's density with sphere drag; evaporating in the day's air (local model). */
-    dragarc_projectile *p = &sp->base.projectile;
-    p->density = nz->liquid_density;
-    p->diameter = 1e-3; /* each class sets its own */
-    p->area = 0.25 * DRAGARC_PI * p->diameter * p->diameter;
-    p->volume = DRAGARC_PI / 6.0 * p->diameter * p->diameter * p->diameter;
-    p->mass = p->density * p->volume;
-    p->drag.model = DRAGARC_DRAG_SPHERE;
-    p->evaporation.nonvolatile_fraction = phi;
-    snprintf(p->name, sizeof p->name, "water drop");
+    TRY(read_spectrum(spec, "sprinkler.spectrum", &sp->spectrum, &sp->nclasses, &sp->spacing, err));
+    water_drop(&sp->base.projectile, nz->liquid_density, phi);
     return DRAGARC_OK;
+}
+
+/* environment, ground and solver of a sprinkler or drift scenario, then the whole scenario checked; a launch error
+ * is the `owner` object's (its nozzle makes the launch). */
+static int read_drop_rest(const cJSON *root, const char *owner, dragarc_scenario *s, dragarc_error *err)
+{
+    const cJSON *e = cJSON_GetObjectItemCaseSensitive(root, "environment");
+    if (e)
+        TRY(read_environment(e, s, err));
+    const cJSON *g = cJSON_GetObjectItemCaseSensitive(root, "ground");
+    if (g)
+        TRY(read_ground(g, s, err));
+    const cJSON *so = cJSON_GetObjectItemCaseSensitive(root, "solver");
+    if (so)
+        TRY(read_solver(so, &s->solver, err));
+    /* evaporation needs the air's humidity: on with the local atmosphere, off otherwise */
+    s->projectile.evaporation.enabled = s->atmosphere.model == DRAGARC_ATMOSPHERE_LOCAL;
+    if (s->ground_surface_given)
+        return dragarc_error_set(err, DRAGARC_EINVAL, "ground.surface", "drops do not bounce: leave it out");
+    dragarc_error ce;
+    int rc = dragarc_scenario_check(s, &ce);
+    if (rc != DRAGARC_OK)
+        return dragarc_error_set(err, rc, strncmp(ce.field, "launch.", 7) == 0 ? owner : ce.field, "%s", ce.message);
+    return rc;
 }
 
 static int read_sprinkler_root(const cJSON *root, dragarc_sprinkler_spec *sp, dragarc_error *err)
@@ -1298,25 +1340,7 @@ static int read_sprinkler_root(const cJSON *root, dragarc_sprinkler_spec *sp, dr
     if (!j)
         return dragarc_error_set(err, DRAGARC_EINVAL, "sprinkler", "is required");
     TRY(read_sprinkler(j, sp, err));
-    const cJSON *e = cJSON_GetObjectItemCaseSensitive(root, "environment");
-    if (e)
-        TRY(read_environment(e, s, err));
-    const cJSON *g = cJSON_GetObjectItemCaseSensitive(root, "ground");
-    if (g)
-        TRY(read_ground(g, s, err));
-    const cJSON *so = cJSON_GetObjectItemCaseSensitive(root, "solver");
-    if (so)
-        TRY(read_solver(so, &s->solver, err));
-    /* evaporation needs the air's humidity: on with the local atmosphere, off otherwise (docs/sprinkler.md) */
-    s->projectile.evaporation.enabled = s->atmosphere.model == DRAGARC_ATMOSPHERE_LOCAL;
-    if (s->ground_surface_given)
-        return dragarc_error_set(err, DRAGARC_EINVAL, "ground.surface", "drops do not bounce: leave it out");
-    dragarc_error ce;
-    int rc = dragarc_scenario_check(s, &ce);
-    if (rc != DRAGARC_OK) /* the launch is the sprinkler's */
-        return dragarc_error_set(err, rc, strncmp(ce.field, "launch.", 7) == 0 ? "sprinkler" : ce.field, "%s",
-                                 ce.message);
-    return rc;
+    return read_drop_rest(root, "sprinkler", s, err);
 }
 
 int dragarc_sprinkler_spec_parse(const char *json, dragarc_sprinkler_spec *out, dragarc_error *err)
@@ -1336,15 +1360,134 @@ int dragarc_sprinkler_spec_parse(const char *json, dragarc_sprinkler_spec *out, 
     return rc;
 }
 
-int dragarc_sprinkler_spec_read(const char *path, dragarc_sprinkler_spec *out, dragarc_error *err)
+/* Read the file at path (at most 16 MiB) and parse it into out with parse. */
+static int read_with(const char *path, void *out, size_t size, int (*parse)(const char *, void *, dragarc_error *),
+                     dragarc_error *err)
 {
-    memset(out, 0, sizeof *out);
+    memset(out, 0, size);
     char *text = NULL;
     int rc = dragarc_text_file_read(path, 16u << 20, &text, err);
     if (rc != DRAGARC_OK)
         return rc;
-    rc = dragarc_sprinkler_spec_parse(text, out, err);
+    rc = parse(text, out, err);
     free(text);
     return rc;
+}
+
+static int parse_sprinkler(const char *text, void *out, dragarc_error *err)
+{
+    return dragarc_sprinkler_spec_parse(text, out, err);
+}
+
+int dragarc_sprinkler_spec_read(const char *path, dragarc_sprinkler_spec *out, dragarc_error *err)
+{
+    return read_with(path, out, sizeof *out, parse_sprinkler, err);
+}
+
+/* ---- drift scenarios --------------------------------------------------------------------------------------- */
+
+static int read_drift(const cJSON *j, dragarc_drift_spec *sp, dragarc_error *err)
+{
+    static const char *const keys[] = {"release", "travel", "spectrum", "liquid_density", "nonvolatile_fraction",
+                                       "bin_width", "buffer", NULL};
+    static const char *const rkeys[] = {"height", "pressure", "velocity_coefficient", "elevation", "azimuth", NULL};
+    static const char *const tkeys[] = {"speed", "direction", NULL};
+    TRY(want_object(j, "drift", err));
+    TRY(check_keys(j, "drift", keys, err));
+    const cJSON *r = cJSON_GetObjectItemCaseSensitive(j, "release");
+    if (!r)
+        return dragarc_error_set(err, DRAGARC_EINVAL, "drift.release", "is required");
+    TRY(want_object(r, "drift.release", err));
+    TRY(check_keys(r, "drift.release", rkeys, err));
+    double rho = 998.2, p = 0.0, cv = 0.0, elev = -90.0, az = 0.0, phi = 0.0;
+    dragarc_launch *l = &sp->base.launch;
+    TRY(get_number(j, "drift", "liquid_density", 0, &rho, NULL, err));
+    if (!(rho > 0.0 && rho <= 2e4))
+        return dragarc_error_set(err, DRAGARC_EINVAL, "drift.liquid_density", "must be above 0 and at most 20000 "
+                                 "kg/m^3 (got %g)", rho);
+    TRY(get_number(r, "drift.release", "height", 1, &l->height, NULL, err));
+    TRY(get_number(r, "drift.release", "pressure", 1, &p, NULL, err));
+    TRY(get_number(r, "drift.release", "velocity_coefficient", 1, &cv, NULL, err));
+    TRY(get_number(r, "drift.release", "elevation", 0, &elev, NULL, err));
+    TRY(get_number(r, "drift.release", "azimuth", 0, &az, NULL, err));
+    if (!(p > 0.0 && p <= 2e7))
+        return dragarc_error_set(err, DRAGARC_EINVAL, "drift.release.pressure", "must be above 0 and at most 200 bar "
+                                 "(got %g Pa)", p);
+    if (!(cv > 0.0 && cv <= 1.0))
+        return dragarc_error_set(err, DRAGARC_EINVAL, "drift.release.velocity_coefficient",
+                                 "must be above 0 and at most 1 (got %g)", cv);
+    if (!(elev >= -90.0 && elev <= 90.0))
+        return dragarc_error_set(err, DRAGARC_EINVAL, "drift.release.elevation",
+                                 "must be between -90 and 90 degrees (got %g)", elev);
+    l->speed = cv * sqrt(2.0 * p / rho); /* Bernoulli's jet speed */
+    l->elevation = elev * DRAGARC_DEG;
+    l->azimuth = az * DRAGARC_DEG;
+    const cJSON *t = cJSON_GetObjectItemCaseSensitive(j, "travel");
+    if (t) {
+        double v = 0.0, dir = 0.0;
+        TRY(want_object(t, "drift.travel", err));
+        TRY(check_keys(t, "drift.travel", tkeys, err));
+        TRY(get_number(t, "drift.travel", "speed", 1, &v, NULL, err));
+        TRY(get_number(t, "drift.travel", "direction", 0, &dir, NULL, err));
+        if (!(v >= 0.0 && v <= 100.0))
+            return dragarc_error_set(err, DRAGARC_EINVAL, "drift.travel.speed", "must be 0 to 100 m/s (got %g)", v);
+        sp->travel[0] = v * sin(dir * DRAGARC_DEG), sp->travel[1] = v * cos(dir * DRAGARC_DEG);
+    }
+    sp->bin_width = 0.5, sp->buffer = 5.0;
+    TRY(get_number(j, "drift", "bin_width", 0, &sp->bin_width, NULL, err));
+    TRY(get_number(j, "drift", "buffer", 0, &sp->buffer, NULL, err));
+    if (!(sp->bin_width >= 0.01 && sp->bin_width <= 100.0))
+        return dragarc_error_set(err, DRAGARC_EINVAL, "drift.bin_width", "must be 0.01 to 100 m (got %g)",
+                                 sp->bin_width);
+    if (!(sp->buffer >= 0.0 && sp->buffer <= 1e5))
+        return dragarc_error_set(err, DRAGARC_EINVAL, "drift.buffer", "must be 0 to 100000 m (got %g)", sp->buffer);
+    TRY(get_number(j, "drift", "nonvolatile_fraction", 0, &phi, NULL, err));
+    const cJSON *spec = cJSON_GetObjectItemCaseSensitive(j, "spectrum");
+    if (!spec)
+        return dragarc_error_set(err, DRAGARC_EINVAL, "drift.spectrum", "is required");
+    TRY(read_spectrum(spec, "drift.spectrum", &sp->spectrum, &sp->nclasses, &sp->spacing, err));
+    water_drop(&sp->base.projectile, rho, phi);
+    return DRAGARC_OK;
+}
+
+int dragarc_drift_spec_parse(const char *json, dragarc_drift_spec *out, dragarc_error *err)
+{
+    static const char *const keys[] = {"name", "description", "drift", "environment", "ground", "solver", NULL};
+    memset(out, 0, sizeof *out);
+    dragarc_scenario_default(&out->base);
+    out->base.solver.max_time = 600.0; /* a drop still aloft after 10 minutes is counted as drift, not flown on */
+    cJSON *root = NULL;
+    int rc = parse_text(json, "the scenario", &root, err);
+    if (rc != DRAGARC_OK)
+        return rc;
+    rc = with_units(root, "", err);
+    if (rc == DRAGARC_OK && !cJSON_IsObject(root))
+        rc = dragarc_error_set(err, DRAGARC_EINVAL, "", "a scenario must be a JSON object, not %s", type_name(root));
+    if (rc == DRAGARC_OK)
+        rc = check_keys(root, "", keys, err);
+    const char *name = NULL;
+    if (rc == DRAGARC_OK && (rc = get_string(root, "", "name", 0, &name, err)) == DRAGARC_OK && name)
+        snprintf(out->base.name, sizeof out->base.name, "%s", name);
+    const cJSON *j = rc == DRAGARC_OK ? cJSON_GetObjectItemCaseSensitive(root, "drift") : NULL;
+    if (rc == DRAGARC_OK && !j)
+        rc = dragarc_error_set(err, DRAGARC_EINVAL, "drift", "is required");
+    if (rc == DRAGARC_OK)
+        rc = read_drift(j, out, err);
+    if (rc == DRAGARC_OK)
+        rc = read_drop_rest(root, "drift.release", &out->base, err);
+    cJSON_Delete(root);
+    if (rc != DRAGARC_OK)
+        dragarc_drift_spec_clear(out);
+    return rc;
+}
+
+static int parse_drift(const char *text, void *out, dragarc_error *err)
+{
+    return dragarc_drift_spec_parse(text, out, err);
+}
+
+int dragarc_drift_spec_read(const char *path, dragarc_drift_spec *out, dragarc_error *err)
+{
+    return read_with(path, out, sizeof *out, parse_drift, err);
 }
 
