@@ -6,6 +6,7 @@
 #define DRAGARC_CAUTIONS_H
 
 #include <stddef.h>
+#include <stdio.h>
 
 #include "dragarc/flight.h"
 #include "dragarc/scenario.h"
@@ -23,6 +24,11 @@ size_t dragarc_cautions_flight(const dragarc_scenario *s, const dragarc_flight *
 
 /* The same for a set of DRAGARC_NOTE_* flags, e.g. the union over the rows of a table. */
 size_t dragarc_cautions_notes(unsigned notes, const char **out, size_t max);
+
+/* The cautions that go with a uniformity result (catch-can tests, overlapped patterns); static strings. */
+size_t dragarc_cautions_uniformity(const char **out, size_t max);
+/* Print "Cautions:" and those cautions as wrapped "  - " items. */
+void dragarc_cautions_print_uniformity(FILE *fp, int width);
 
 #ifdef __cplusplus
 }

@@ -30,6 +30,22 @@ static const char DENSE[] =
     "The fluid's density is more than 1 % of the body's: buoyancy is included, but added mass and unsteady "
     "(history) forces are not, so the acceleration phase is only approximate.";
 
+static const char UNIFORMITY_LIMITS[] =
+    "CU and DU describe these catches only: wind, pressure, spacing, the number and placement of the cans and "
+    "evaporation from them all change the result, and a test with few cans is a rough estimate.";
+static const char UNIFORMITY_RULES[] =
+    "Sprinkler design and watering schedules follow local codes and water-use rules; catch-can tests follow the "
+    "applicable test standard.";
+
+size_t dragarc_cautions_uniformity(const char **out, size_t max)
+{
+    const char *all[] = {UNIFORMITY_LIMITS, UNIFORMITY_RULES};
+    size_t k = 0;
+    for (; k < max && k < sizeof all / sizeof all[0]; k++)
+        out[k] = all[k];
+    return k;
+}
+
 size_t dragarc_cautions_flight(const dragarc_scenario *s, const dragarc_flight *f, const char **out, size_t max)
 {
     (void)s;
@@ -60,11 +76,21 @@ size_t dragarc_cautions_notes(unsigned notes, const char **out, size_t max)
     return k;
 }
 
-void dragarc_cautions_print(FILE *fp, unsigned notes, int width)
+static void print_list(FILE *fp, const char **cautions, size_t nc, int width)
 {
-    const char *cautions[DRAGARC_CAUTIONS_MAX];
-    size_t nc = dragarc_cautions_notes(notes, cautions, DRAGARC_CAUTIONS_MAX);
     fputs("Cautions:\n", fp);
     for (size_t i = 0; i < nc; i++)
         dragarc_text_wrap(fp, "  - ", 4, width, cautions[i]);
+}
+
+void dragarc_cautions_print(FILE *fp, unsigned notes, int width)
+{
+    const char *cautions[DRAGARC_CAUTIONS_MAX];
+    print_list(fp, cautions, dragarc_cautions_notes(notes, cautions, DRAGARC_CAUTIONS_MAX), width);
+}
+
+void dragarc_cautions_print_uniformity(FILE *fp, int width)
+{
+    const char *cautions[DRAGARC_CAUTIONS_MAX];
+    print_list(fp, cautions, dragarc_cautions_uniformity(cautions, DRAGARC_CAUTIONS_MAX), width);
 }

@@ -18,6 +18,7 @@
 #include <stdlib.h>
 
 #include "check.h"
+#include "dragarc/catch_data.h"
 #include "dragarc/uniformity.h"
 
 #define PI 3.14159265358979323846
@@ -136,6 +137,31 @@ TEST(the_low_quarter_by_area_takes_part_of_the_boundary_catch)
     const double x[3] = {6, 2, 4}, a[3] = {2.5, 0.5, 1};
     dragarc_uniformity u;
     check_hand(x, a, 3, (hand){5.0, NAN, 3.0, 60.0, NAN}, &u);
+}
+
+/* The example catch-can file of the docs (invented numbers, tests/data/catch-cans.csv):
+ * 12.4 10.9 9.6 11.8 / 11.1 8.7 7.9 10.2 / 10.4 8.2 8.8 11.5 / 12.9 10.6 9.9 13.1
+ *   sum 168.0, mean 10.5
+ *   |x - m| = 1.9 .4 .9 1.3 .6 1.8 2.6 .3 .1 2.3 1.7 1.0 2.4 .1 .6 2.6: sum 20.6;  CU = 100 * 147.4 / 168
+ *   lowest quarter 7.9 8.2 8.7 8.8: mean 8.4;  DU = 100 * 8.4 / 10.5 = 80
+ *   (x - m)^2 sum 38.80;  sd = sqrt(38.8 / 15);  grid x and y 1.5 to 10.5 */
+TEST(the_example_catch_file_reads_and_gives_its_hand_values)
+{
+    dragarc_catches c;
+    dragarc_error err;
+    int rc = dragarc_catches_read(DATA_DIR "/catch-cans.csv", &c, &err);
+    CHECK(rc == DRAGARC_OK);
+    if (rc != DRAGARC_OK) {
+        printf("  %s: %s\n", err.field, err.message);
+        return;
+    }
+    CHECK(c.n == 16 && c.area == NULL && c.x && c.y);
+    dragarc_uniformity u;
+    check_hand(c.depth, c.area, c.n, (hand){10.5, 100.0 * 147.4 / 168.0, 8.4, 80.0, sqrt(38.8 / 15.0)}, &u);
+    double ext[4];
+    CHECK(dragarc_catches_extent(&c, ext) == 0);
+    CHECK(ext[0] == 1.5 && ext[1] == 10.5 && ext[2] == 1.5 && ext[3] == 10.5);
+    dragarc_catches_clear(&c);
 }
 
 /* ---- every rule of the catches --------------------------------------------------------------------- */
@@ -435,6 +461,7 @@ int main(void)
     RUN(cu_goes_negative_when_the_mean_deviation_exceeds_the_mean);
     RUN(areas_weight_each_catch_like_that_many_equal_cans);
     RUN(the_low_quarter_by_area_takes_part_of_the_boundary_catch);
+    RUN(the_example_catch_file_reads_and_gives_its_hand_values);
     RUN(bad_catches_are_refused_naming_the_value);
     RUN(a_triangle_profile_on_square_spacing_sums_its_neighbours_by_hand);
     RUN(a_disc_pattern_on_square_spacing_counts_the_sprinklers_in_reach);
