@@ -40,8 +40,7 @@ int cmd_fly(int argc, char **argv)
     int dt_given = 0;
     for (int i = 1; i < argc; i++) {
         const char *a = argv[i];
-        if (strcmp(a, "-h") == 0 || strcmp(a, "--help") == 0) {
-            fputs(HELP, stdout);
+        if (cli_help_asked(a, HELP)) {
             return EXIT_OK;
         } else if (strcmp(a, "--json") == 0) {
             o.json = 1;
@@ -61,12 +60,8 @@ int cmd_fly(int argc, char **argv)
                                           sizeof specs / sizeof specs[0])) >= 0) {
             if (st != 0)
                 return st;
-        } else if (a[0] == '-' && a[1] != '\0') {
-            return cli_usage_error("fly", "unknown option '%s'", a);
-        } else if (!file) {
-            file = a;
-        } else {
-            return cli_usage_error("fly", "only one scenario file, got '%s' and '%s'", file, a);
+        } else if ((st = cli_file_argument("fly", "scenario file", a, &file)) != 0) {
+            return st;
         }
     }
     if (!file || !*file)

@@ -18,6 +18,8 @@ static const char USAGE[] =
     "                        fly it for every combination of varied values; text, CSV, JSON, Markdown\n"
     "  atmosphere ALT...     U.S. Standard Atmosphere 1976 at geometric altitudes in metres, or the\n"
     "                        day's weather at a site (--temperature, --pressure, --relative-humidity)\n"
+    "  uniformity CATCH.csv  how evenly a catch-can test was watered: Christiansen's CU, the\n"
+    "                        low-quarter DU, CV\n"
     "  demo                  fly built-in example scenarios and explain what they show\n"
     "\n"
     "options:\n"
@@ -66,6 +68,8 @@ static int run(int argc, char **argv)
         return cmd_table(argc - 1, argv + 1);
     if (strcmp(cmd, "atmosphere") == 0)
         return cmd_atmosphere(argc - 1, argv + 1);
+    if (strcmp(cmd, "uniformity") == 0)
+        return cmd_uniformity(argc - 1, argv + 1);
     if (strcmp(cmd, "demo") == 0)
         return cmd_demo(argc - 1, argv + 1);
     fprintf(stderr, "dragarc: unknown command '%s' (see 'dragarc --help')\n", cmd);
