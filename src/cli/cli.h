@@ -22,6 +22,14 @@ int cli_report(const char *where, const dragarc_error *err);
 /* Print "dragarc: message" for a usage error and return EXIT_BAD_INPUT. */
 int cli_usage_error(const char *cmd, const char *fmt, ...) __attribute__((format(printf, 2, 3)));
 
+/* 1, after printing help on standard output, when a is -h or --help; otherwise 0. */
+int cli_help_asked(const char *a, const char *help);
+
+/* An argument that is none of the command's options: the one file the command takes, into *file. 0, or the
+ * exit status of the usage error printed ("unknown option '--x'", "only one WHAT, got 'a' and 'b'"). A lone
+ * "-" is a file name. */
+int cli_file_argument(const char *cmd, const char *what, const char *a, const char **file);
+
 /* Parse a finite double from an option value; 0 on success. */
 int cli_parse_double(const char *text, double *out);
 
@@ -95,5 +103,6 @@ int cmd_table(int argc, char **argv);
 int cmd_sprinkler(int argc, char **argv);
 int cmd_drift(int argc, char **argv);
 int cmd_optimize(int argc, char **argv);
+int cmd_uniformity(int argc, char **argv);
 
 #endif

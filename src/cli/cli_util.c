@@ -46,6 +46,24 @@ int cli_usage_error(const char *cmd, const char *fmt, ...)
     return EXIT_BAD_INPUT;
 }
 
+int cli_help_asked(const char *a, const char *help)
+{
+    if (strcmp(a, "-h") != 0 && strcmp(a, "--help") != 0)
+        return 0;
+    fputs(help, stdout);
+    return 1;
+}
+
+int cli_file_argument(const char *cmd, const char *what, const char *a, const char **file)
+{
+    if (a[0] == '-' && a[1] != '\0')
+        return cli_usage_error(cmd, "unknown option '%s'", a);
+    if (*file)
+        return cli_usage_error(cmd, "only one %s, got '%s' and '%s'", what, *file, a);
+    *file = a;
+    return 0;
+}
+
 int cli_parse_double(const char *text, double *out)
 {
     if (!text || !*text)

@@ -39,8 +39,7 @@ int cmd_fly(int argc, char **argv)
     int dt_given = 0;
     for (int i = 1; i < argc; i++) {
         const char *a = argv[i];
-        if (strcmp(a, "-h") == 0 || strcmp(a, "--help") == 0) {
-            fputs(HELP, stdout);
+        if (cli_help_asked(a, HELP)) {
             return EXIT_OK;
         } else if (strcmp(a, "--json") == 0) {
             o.json = 1;

@@ -22,6 +22,8 @@ static const char USAGE[] =
     "                        day's weather at a site (--temperature, --pressure, --relative-humidity)\n"
     "  sprinkler SCENARIO    a sprinkler's drops: where each size lands, the application-rate pattern (mm/h)\n"
     "  drift SCENARIO        spray drift: the deposit per metre downwind, the airborne share, drift distances\n"
+    "  uniformity CATCH.csv  how evenly a catch-can test was watered: Christiansen's CU, the\n"
+    "                        low-quarter DU, CV\n"
     "  demo                  fly built-in example scenarios and explain what they show\n"
     "\n"
     "options:\n"
@@ -72,6 +74,8 @@ static int run(int argc, char **argv)
         return cmd_optimize(argc - 1, argv + 1);
     if (strcmp(cmd, "atmosphere") == 0)
         return cmd_atmosphere(argc - 1, argv + 1);
+    if (strcmp(cmd, "uniformity") == 0)
+        return cmd_uniformity(argc - 1, argv + 1);
     if (strcmp(cmd, "demo") == 0)
         return cmd_demo(argc - 1, argv + 1);
     if (strcmp(cmd, "sprinkler") == 0)

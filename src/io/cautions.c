@@ -38,6 +38,22 @@ static const char DENSE[] =
     "The fluid's density is more than 1 % of the body's: buoyancy is included, but added mass and unsteady "
     "(history) forces are not, so the acceleration phase is only approximate.";
 
+static const char UNIFORMITY_LIMITS[] =
+    "CU and DU describe these catches only: wind, pressure, spacing, the number and placement of the cans and "
+    "evaporation from them all change the result, and a test with few cans is a rough estimate.";
+static const char UNIFORMITY_RULES[] =
+    "Sprinkler design and watering schedules follow local codes and water-use rules; catch-can tests follow the "
+    "applicable test standard.";
+
+size_t dragarc_cautions_uniformity(const char **out, size_t max)
+{
+    const char *all[] = {UNIFORMITY_LIMITS, UNIFORMITY_RULES};
+    size_t k = 0;
+    for (; k < max && k < sizeof all / sizeof all[0]; k++)
+        out[k] = all[k];
+    return k;
+}
+
 static const char OPTIMUM[] =
     "The optimum is that of one modelled flight in the scenario's conditions: real launches scatter around it, and "
     "another ball, wind or air moves it. Where the curvature is small the distance changes little near the optimum, "
@@ -98,3 +114,10 @@ void dragarc_cautions_print(FILE *fp, unsigned notes, int width)
     size_t nc = dragarc_cautions_notes(notes, cautions, DRAGARC_CAUTIONS_MAX);
     dragarc_cautions_print_list(fp, cautions, nc, width);
 }
+
+void dragarc_cautions_print_uniformity(FILE *fp, int width)
+{
+    const char *cautions[DRAGARC_CAUTIONS_MAX];
+    dragarc_cautions_print_list(fp, cautions, dragarc_cautions_uniformity(cautions, DRAGARC_CAUTIONS_MAX), width);
+}
+

@@ -13,6 +13,7 @@
 #include "core/constants.h"
 #include "dragarc/aim.h"
 #include "dragarc/cautions.h"
+#include "dragarc/catch_data.h"
 #include "dragarc/drift.h"
 #include "dragarc/optimize.h"
 #include "dragarc/sprinkler.h"
@@ -419,6 +420,50 @@ char *dragarc_drift_json(const dragarc_drift_spec *spec, const dragarc_drift_res
     for (size_t k = 0; k < sizeof U / sizeof U[0]; k++)
         cJSON_AddStringToObject(un, U[k][0], U[k][1]);
     add_cautions(doc, r->notes | DRAGARC_NOTE_SPRAY_DRIFT);
+    return finish(doc);
+}
+
+char *dragarc_uniformity_json(const char *file, const dragarc_catches *c, const dragarc_uniformity *u)
+{
+    cJSON *doc = cJSON_CreateObject();
+    if (!doc)
+        return NULL;
+    cJSON *un = cJSON_CreateObject();
+    cJSON_AddStringToObject(doc, "file", file);
+    cJSON_AddStringToObject(doc, "dragarc_version", DRAGARC_VERSION_STRING);
+    cJSON_AddNumberToObject(doc, "catches", (double)u->n);
+    cJSON_AddStringToObject(doc, "areas", c->area ? "weighted" : "equal");
+    if (c->area) {
+        add_num(doc, "total_area", u->total_area);
+        cJSON_AddStringToObject(un, "total_area", "as area");
+    }
+    /* depths are in the file's own unit; the coefficients are ratios */
+    static const char *const DEPTHS[] = {"mean", "min", "max", "sd"};
+    const double depth_values[] = {u->mean, u->min, u->max, u->sd};
+    for (size_t k = 0; k < 4; k++) {
+        add_num(doc, DEPTHS[k], depth_values[k]);
+        cJSON_AddStringToObject(un, DEPTHS[k], "as depth");
+    }
+    add_num(doc, "cv", u->cv);
+    cJSON_AddStringToObject(un, "cv", "1");
+    add_num(doc, "cu", u->cu);
+    cJSON_AddStringToObject(un, "cu", "%");
+    add_num(doc, "low_quarter_mean", u->low_quarter_mean);
+    cJSON_AddStringToObject(un, "low_quarter_mean", "as depth");
+    add_num(doc, "du_lq", u->du_lq);
+    cJSON_AddStringToObject(un, "du_lq", "%");
+    double ext[4];
+    if (dragarc_catches_extent(c, ext) == 0) {
+        cJSON *g = cJSON_AddObjectToObject(doc, "grid");
+        add_num(g, "x_min", ext[0]);
+        add_num(g, "x_max", ext[1]);
+        add_num(g, "y_min", ext[2]);
+        add_num(g, "y_max", ext[3]);
+        cJSON_AddStringToObject(un, "grid", "as x and y");
+    }
+    cJSON_AddItemToObject(doc, "units", un);
+    const char *cautions[DRAGARC_CAUTIONS_MAX];
+    add_caution_list(doc, cautions, dragarc_cautions_uniformity(cautions, DRAGARC_CAUTIONS_MAX));
     return finish(doc);
 }
 

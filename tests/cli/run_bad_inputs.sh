@@ -1,6 +1,7 @@
 #!/usr/bin/env bash
-# run_bad_inputs.sh: run dragarc on every bad scenario of bad_inputs.tsv and every usage error of
-# bad_usage.tsv, and check how it fails.
+# run_bad_inputs.sh: run dragarc on every bad scenario (and bad catch-can file) of bad_inputs.tsv and every
+# usage error of bad_usage.tsv, and check how it fails. A file in bad/ ending in .csv is run as
+# `dragarc uniformity FILE`, any other as `dragarc fly FILE`.
 # SPDX-License-Identifier: GPL-3.0-or-later
 #
 # usage: run_bad_inputs.sh DRAGARC_BINARY TESTS_CLI_DIR
@@ -229,7 +230,10 @@ for i in "${!m_first[@]}"; do
         report "$f" "listed in bad_inputs.tsv but not in bad/"
         continue
     fi
-    run_case "$f" "${m_status[i]}" "$(subst "${m_text[i]}")" "dragarc: $path: " fly "$path"
+    case $f in
+    *.csv) run_case "$f" "${m_status[i]}" "$(subst "${m_text[i]}")" "dragarc: uniformity: $path: " uniformity "$path" ;;
+    *) run_case "$f" "${m_status[i]}" "$(subst "${m_text[i]}")" "dragarc: $path: " fly "$path" ;;
+    esac
 done
 for path in "$data"/bad/*; do
     [ -e "$path" ] || continue
