@@ -17,6 +17,7 @@
 #include "dragarc/nozzle.h"
 #include "dragarc/scenario.h"
 #include "dragarc/spectrum.h"
+#include "dragarc/uniformity.h"
 
 #ifdef __cplusplus
 extern "C" {
@@ -63,6 +64,11 @@ typedef struct dragarc_sprinkler_result {
     double x0, y0, cell;
     double *grid_rate;              /* mm/h, nx * ny, row j = north (owned) */
     unsigned notes;                 /* DRAGARC_NOTE_* of all the flights */
+    int layout_done;                /* the pattern was overlapped on the spec's layout (dragarc_sprinkler_spec_run) */
+    dragarc_layout layout;
+    size_t layout_points;           /* catch points along each side of the layout's cell */
+    double cell_width, cell_height; /* m, the layout's representative cell */
+    dragarc_uniformity layout_stats; /* of the combined rates (mm/h) at the catch points: mean, CU, DU, CV */
 } dragarc_sprinkler_result;
 
 /* Fly and spread the sprinkler described by `base` (its projectile is the drop: density, sphere drag and
@@ -96,6 +102,9 @@ typedef struct dragarc_sprinkler_spec {
     size_t nclasses;
     dragarc_spectrum_spacing spacing;
     double ring_width, cell;       /* m */
+    int layout_given;              /* overlap the pattern on `layout` and report its uniformity */
+    dragarc_layout layout;
+    size_t layout_points;          /* catch points along each side of the cell (default 20) */
 } dragarc_sprinkler_spec;
 
 /* Read a sprinkler scenario file (docs/sprinkler.md). Fills *out (caller frees with dragarc_sprinkler_spec_clear,

@@ -78,6 +78,15 @@ static void print_summary(const dragarc_sprinkler_spec *sp, const dragarc_spectr
     printf("  water           %.3f %% lands, %.3f %% evaporates in the air%s\n", 100.0 * r->deposited_fraction,
            100.0 * r->evaporated_fraction,
            sp->base.projectile.evaporation.enabled ? "" : " (no evaporation: the atmosphere is not the local model)");
+    if (r->layout_done) {
+        static const char *const KIND[] = {"square", "rectangular", "triangular"};
+        const dragarc_uniformity *u = &r->layout_stats;
+        printf("  layout          %s, %.4g m spacing", KIND[r->layout.kind], r->layout.spacing);
+        if (r->layout.kind == DRAGARC_LAYOUT_RECTANGULAR)
+            printf(" x %.4g m between rows", r->layout.row_spacing);
+        printf(": mean %.3f mm/h over a %.4g x %.4g m cell (%zu x %zu points); CU %.1f %%, DU_lq %.1f %%, CV %.3f\n",
+               u->mean, r->cell_width, r->cell_height, r->layout_points, r->layout_points, u->cu, u->du_lq, u->cv);
+    }
     if (r->nfailed)
         printf("  failed flights  %zu of %zu (their water is not counted as landed)\n", r->nfailed,
                r->nclasses * r->ndirections);

@@ -353,6 +353,20 @@ char *dragarc_sprinkler_json(const dragarc_sprinkler_spec *spec, const dragarc_s
         add_num(o, "water_left", st.water_left);
         cJSON_AddItemToArray(cl, o);
     }
+    if (r->layout_done) {
+        static const char *const KIND[] = {"square", "rectangular", "triangular"};
+        cJSON *lo = cJSON_AddObjectToObject(doc, "layout");
+        cJSON_AddStringToObject(lo, "kind", KIND[r->layout.kind]);
+        add_num(lo, "spacing", r->layout.spacing);
+        add_num(lo, "row_spacing", r->layout.row_spacing);
+        add_num(lo, "cell_width", r->cell_width);
+        add_num(lo, "cell_height", r->cell_height);
+        cJSON_AddNumberToObject(lo, "points", (double)(r->layout_points * r->layout_points));
+        add_num(lo, "mean_rate", r->layout_stats.mean);
+        add_num(lo, "cu", r->layout_stats.cu);
+        add_num(lo, "du_lq", r->layout_stats.du_lq);
+        add_num(lo, "cv", r->layout_stats.cv);
+    }
     cJSON *prof = cJSON_AddArrayToObject(doc, "radial_profile");
     for (size_t k = 0; k < r->nrings; k++) {
         cJSON *o = cJSON_CreateObject();

@@ -240,6 +240,8 @@ static const struct {
     {"sprinkler.spectrum.scale", DRAGARC_Q_LENGTH},
     {"sprinkler.ring_width", DRAGARC_Q_LENGTH},
     {"sprinkler.cell", DRAGARC_Q_LENGTH},
+    {"sprinkler.layout.spacing", DRAGARC_Q_LENGTH},
+    {"sprinkler.layout.row_spacing", DRAGARC_Q_LENGTH},
     {"drift.release.height", DRAGARC_Q_LENGTH},
     {"drift.release.pressure", DRAGARC_Q_PRESSURE},
     {"drift.release.elevation", DRAGARC_Q_ANGLE},
@@ -1227,11 +1229,44 @@ static void water_drop(dragarc_projectile *p, double density, double nonvolatile
     snprintf(p->name, sizeof p->name, "water drop");
 }
 
+/* sprinkler.layout: {"kind": "square" | "rectangular" | "triangular", "spacing", "row_spacing", "points"}. */
+static int read_layout(const cJSON *j, dragarc_sprinkler_spec *sp, dragarc_error *err)
+{
+    static const char *const keys[] = {"kind", "spacing", "row_spacing", "points", NULL};
+    static const char *const KINDS[] = {"square", "rectangular", "triangular"};
+    const char *path = "sprinkler.layout";
+    TRY(want_object(j, path, err));
+    TRY(check_keys(j, path, keys, err));
+    const char *kind = NULL;
+    TRY(get_string(j, path, "kind", 1, &kind, err));
+    size_t k = 0;
+    while (k < 3 && strcmp(kind, KINDS[k]) != 0)
+        k++;
+    if (k == 3)
+        return dragarc_error_set(err, DRAGARC_EINVAL, "sprinkler.layout.kind",
+                                 "unknown layout \"%s\" (square, rectangular, triangular)", kind);
+    sp->layout.kind = (dragarc_layout_kind)k;
+    TRY(get_number(j, path, "spacing", 1, &sp->layout.spacing, NULL, err));
+    sp->layout.row_spacing = sp->layout.spacing;
+    TRY(get_number(j, path, "row_spacing", k == DRAGARC_LAYOUT_RECTANGULAR, &sp->layout.row_spacing, NULL, err));
+    double pts = 20.0;
+    TRY(get_number(j, path, "points", 0, &pts, NULL, err));
+    if (!(pts >= 2.0 && pts <= DRAGARC_OVERLAP_MAX_POINTS && pts == floor(pts)))
+        return dragarc_error_set(err, DRAGARC_EINVAL, "sprinkler.layout.points",
+                                 "must be a whole number from 2 to %d (got %g)", DRAGARC_OVERLAP_MAX_POINTS, pts);
+    sp->layout_points = (size_t)pts;
+    int rc = dragarc_layout_check(&sp->layout, err);
+    if (rc != DRAGARC_OK)
+        dragarc_error_prefix(err, "sprinkler");
+    sp->layout_given = rc == DRAGARC_OK;
+    return rc;
+}
+
 /* The sprinkler object: the nozzle, its height and elevation, its arc, the drops, and the pattern's resolution. */
 static int read_sprinkler(const cJSON *j, dragarc_sprinkler_spec *sp, dragarc_error *err)
 {
     static const char *const keys[] = {"nozzle", "height", "elevation", "arc", "directions", "spectrum",
-                                       "liquid_density", "nonvolatile_fraction", "ring_width", "cell", NULL};
+                                       "liquid_density", "nonvolatile_fraction", "ring_width", "cell", "layout", NULL};
     static const char *const nkeys[] = {"diameter", "pressure", "velocity_coefficient", "discharge_coefficient",
                                         "source", NULL};
     const char *path = "sprinkler";
@@ -1297,6 +1332,9 @@ static int read_sprinkler(const cJSON *j, dragarc_sprinkler_spec *sp, dragarc_er
         return dragarc_error_set(err, DRAGARC_EINVAL, "sprinkler.spectrum", "is required");
     TRY(read_spectrum(spec, "sprinkler.spectrum", &sp->spectrum, &sp->nclasses, &sp->spacing, err));
     water_drop(&sp->base.projectile, nz->liquid_density, phi);
+    const cJSON *lay = cJSON_GetObjectItemCaseSensitive(j, "layout");
+    if (lay)
+        TRY(read_layout(lay, sp, err));
     return DRAGARC_OK;
 }
 

@@ -278,5 +278,26 @@ int dragarc_sprinkler_spec_run(const dragarc_sprinkler_spec *spec, dragarc_spect
     if (rc != DRAGARC_OK)
         dragarc_error_prefix(err, "sprinkler");
     free(d), free(f);
+    if (rc == DRAGARC_OK && spec->layout_given) {
+        /* the pattern on the grid's cell centres, overlapped with its neighbours on the layout */
+        dragarc_spray_pattern *pat = NULL;
+        dragarc_overlap ov;
+        memset(&ov, 0, sizeof ov);
+        rc = dragarc_spray_pattern_grid(out->x0 + 0.5 * out->cell, out->y0 + 0.5 * out->cell, out->cell, out->cell,
+                                        out->nx, out->ny, out->grid_rate, &pat, err);
+        if (rc == DRAGARC_OK)
+            rc = dragarc_overlap_run(pat, &spec->layout, spec->layout_points, spec->layout_points, &ov, err);
+        if (rc == DRAGARC_OK) {
+            out->layout_done = 1;
+            out->layout = spec->layout;
+            out->layout_points = spec->layout_points;
+            out->cell_width = ov.width, out->cell_height = ov.height;
+            out->layout_stats = ov.stats;
+        } else {
+            dragarc_error_prefix(err, "sprinkler");
+        }
+        dragarc_overlap_clear(&ov);
+        dragarc_spray_pattern_free(pat);
+    }
     return rc;
 }
