@@ -86,15 +86,24 @@ static const double BHH1 = 0.244094488188976377952755905512, BHH9 = 0.7338466882
 #define FAC_MIN (1.0 / 6.0) /* 1 / FAC2: the step grows at most sixfold */
 #define FAC_MAX 3.0         /* 1 / FAC1: and shrinks at most threefold per attempt */
 
-/* y0 + h sum_j a_ij k_j over the row's non-zero entries (eight accumulators: N is fixed at 8) */
-static inline void stage_state(const double y0[N], double (*k)[N], int i, double h, double out[N])
+/* y0 + h sum_j a_ij k_j over the row's non-zero entries, for the first n components (6 or 8; unrolled: the
+ * accumulators stay in registers). */
+static inline void stage_state(const double y0[N], double (*k)[N], int i, double h, double out[N], int n)
 {
     const stage_row *r = &A[i];
     double a0 = 0.0, a1 = 0.0, a2 = 0.0, a3 = 0.0, a4 = 0.0, a5 = 0.0, a6 = 0.0, a7 = 0.0;
-    for (int m = 0; m < r->n; m++) {
-        const double c = r->a[m], *kj = k[r->j[m]];
-        a0 += c * kj[0], a1 += c * kj[1], a2 += c * kj[2], a3 += c * kj[3];
-        a4 += c * kj[4], a5 += c * kj[5], a6 += c * kj[6], a7 += c * kj[7];
+    if (n <= 6) {
+        for (int m = 0; m < r->n; m++) {
+            const double c = r->a[m], *kj = k[r->j[m]];
+            a0 += c * kj[0], a1 += c * kj[1], a2 += c * kj[2];
+            a3 += c * kj[3], a4 += c * kj[4], a5 += c * kj[5];
+        }
+    } else {
+        for (int m = 0; m < r->n; m++) {
+            const double c = r->a[m], *kj = k[r->j[m]];
+            a0 += c * kj[0], a1 += c * kj[1], a2 += c * kj[2], a3 += c * kj[3];
+            a4 += c * kj[4], a5 += c * kj[5], a6 += c * kj[6], a7 += c * kj[7];
+        }
     }
     out[0] = y0[0] + h * a0, out[1] = y0[1] + h * a1, out[2] = y0[2] + h * a2, out[3] = y0[3] + h * a3;
     out[4] = y0[4] + h * a4, out[5] = y0[5] + h * a5, out[6] = y0[6] + h * a6, out[7] = y0[7] + h * a7;
@@ -111,6 +120,7 @@ int dop853_init(dop853 *s, dop853_rhs f, void *user, double rtol, double atol, d
     s->rtol = rtol;
     s->atol = atol;
     s->n_err = N;
+    s->n = N;
     s->t = s->t_old = t0;
     memcpy(s->y, y0, sizeof s->y);
     memcpy(s->y_old, y0, sizeof s->y);
@@ -172,7 +182,7 @@ int dop853_step(dop853 *s, double t_end)
         double ys[N], ynew[N];
         int bad = 0;
         for (int i = 1; i < 12 && !bad; i++) {
-            stage_state(s->y, s->k, i, h, ys);
+            stage_state(s->y, s->k, i, h, ys, s->n);
             bad = s->f(s->t + C[i] * h, ys, s->k[i], s->user) != 0;
             s->nfev++;
         }
@@ -181,10 +191,10 @@ int dop853_step(dop853 *s, double t_end)
             double err5 = 0.0, err3 = 0.0;
             static const double zero[N] = {0.0};
             double bk[N];
-            stage_state(zero, s->k, 12, 1.0, bk); /* sum_j b_j k_j */
+            stage_state(zero, s->k, 12, 1.0, bk, s->n); /* sum_j b_j k_j */
             for (int n = 0; n < N; n++)
                 ynew[n] = s->y[n] + h * bk[n];
-            for (int n = 0; n < N; n++) {
+            for (int n = 0; n < s->n; n++) {
                 double e5 = E5[0] * s->k[0][n];
                 for (int j = 5; j < 12; j++) /* E5[1..4] are zero */
                     e5 += E5[j] * s->k[j][n];
@@ -250,13 +260,13 @@ int dop853_dense(dop853 *s)
     /* The stages are those of the accepted step (k[12] = f at its end); the extension adds three. */
     double ys[N];
     for (int i = 13; i < 16; i++) {
-        stage_state(s->y_old, s->k, i, h, ys);
+        stage_state(s->y_old, s->k, i, h, ys, s->n);
         int bad = s->f(s->t_old + C[i] * h, ys, s->k[i], s->user) != 0;
         s->nfev++;
         if (bad)
             return DOP853_ERHS;
     }
-    for (int n = 0; n < N; n++) {
+    for (int n = 0; n < s->n; n++) {
         double dy = s->y[n] - s->y_old[n];
         s->cont[0][n] = dy;
         s->cont[1][n] = h * s->f_old[n] - dy;
@@ -291,10 +301,10 @@ int dop853_partial(const dop853 *s, double tau, double y[N])
     double k[13][N], ys[N];
     memcpy(k[0], s->f_old, sizeof k[0]);
     for (int i = 1; i < 12; i++) {
-        stage_state(s->y_old, k, i, tau, ys);
+        stage_state(s->y_old, k, i, tau, ys, s->n);
         if (s->f(s->t_old + C[i] * tau, ys, k[i], s->user) != 0)
             return DOP853_ERHS;
     }
-    stage_state(s->y_old, k, 12, tau, y);
+    stage_state(s->y_old, k, 12, tau, y, s->n);
     return DOP853_OK;
 }

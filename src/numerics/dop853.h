@@ -36,6 +36,8 @@ typedef struct dop853 {
     double rtol, atol; /* per component: |local error_i| weighted by 1 / (atol + rtol max(|y_i|, |y_new_i|)) */
     int n_err;         /* components counted in the error norm's mean (DOP853_N after init): a component the
                         * caller knows to stay exactly zero may be left out, so as not to dilute the others */
+    int n;             /* components stepped: 6 (the last two then keep their values and zero slopes: the caller
+                        * guarantees both) or DOP853_N (after init) */
     double t, y[DOP853_N], fy[DOP853_N];                 /* the last accepted state and f there */
     double t_old, y_old[DOP853_N], f_old[DOP853_N], h_old; /* the start of the last accepted step */
     double h;                                            /* the next step to try */

@@ -950,6 +950,7 @@ static int integrate_dop853(const dragarc_scenario *s, flight_ctx *cx, double dt
     /* components that stay exactly zero (a spin rate not integrated, no spin on an evaporating drop) do not
      * dilute the error norm */
     st.n_err = cx->n == NS && !(cx->spin0 > 0.0) ? NS - 1 : cx->n;
+    st.n = cx->n == 6 ? 6 : NS; /* the spin and mass, when not integrated, keep their zero values and slopes */
     if (gather_breaks(s, cx) != DRAGARC_OK)
         return dragarc_error_set(err, DRAGARC_ENOMEM, "", "could not allocate the integrator");
     if (cx->nbreaks)
