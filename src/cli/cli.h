@@ -95,6 +95,12 @@ int cli_fly_scenario(const char *where, const dragarc_scenario *s, const cli_fly
 int cli_write_output(const char *option, const char *path, int (*w)(FILE *fp, const void *ctx, dragarc_error *err),
                      const void *ctx);
 
+/* The arguments of a command that reads one scenario file and writes --json or files: the scenario into *path,
+ * --json into *json, and the value of each option named in file_opts (NULL-terminated, e.g. "--csv") into files[k].
+ * Returns -1 to go on, or the exit status to return (help printed, or a usage error reported). */
+int cli_scenario_args(const char *cmd, const char *help, int argc, char **argv, const char *const *file_opts,
+                      const char **files, int *json, const char **path);
+
 int cmd_fly(int argc, char **argv);
 int cmd_aim(int argc, char **argv);
 int cmd_atmosphere(int argc, char **argv);

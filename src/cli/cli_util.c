@@ -389,3 +389,30 @@ int cli_write_output(const char *option, const char *path, int (*w)(FILE *fp, co
     return EXIT_OK;
 }
 
+int cli_scenario_args(const char *cmd, const char *help, int argc, char **argv, const char *const *file_opts,
+                      const char **files, int *json, const char **path)
+{
+    *path = NULL;
+    *json = 0;
+    for (int i = 1; i < argc; i++) {
+        const char *a = argv[i];
+        int k = 0, st;
+        while (file_opts[k] && strcmp(a, file_opts[k]) != 0)
+            k++;
+        if (cli_help_asked(a, help)) {
+            return EXIT_OK;
+        } else if (strcmp(a, "--json") == 0) {
+            *json = 1;
+        } else if (file_opts[k]) {
+            if (++i >= argc)
+                return cli_usage_error(cmd, "%s needs a file name", a);
+            files[k] = argv[i];
+        } else if ((st = cli_file_argument(cmd, "scenario file", a, path)) != 0) {
+            return st;
+        }
+    }
+    if (!*path)
+        return cli_usage_error(cmd, "needs a scenario file");
+    return -1;
+}
+

@@ -68,29 +68,11 @@ static void print_summary(const dragarc_drift_spec *sp, const dragarc_drift_resu
 
 int cmd_drift(int argc, char **argv)
 {
-    const char *path = NULL, *csv = NULL;
-    int json = 0;
-    for (int i = 1; i < argc; i++) {
-        const char *a = argv[i];
-        if (strcmp(a, "-h") == 0 || strcmp(a, "--help") == 0) {
-            fputs(HELP, stdout);
-            return EXIT_OK;
-        } else if (strcmp(a, "--json") == 0) {
-            json = 1;
-        } else if (strcmp(a, "--csv") == 0) {
-            if (++i >= argc)
-                return cli_usage_error("drift", "--csv needs a file name");
-            csv = argv[i];
-        } else if (a[0] == '-' && a[1]) {
-            return cli_usage_error("drift", "unknown option '%s'", a);
-        } else if (path) {
-            return cli_usage_error("drift", "only one scenario file, got '%s' and '%s'", path, a);
-        } else {
-            path = a;
-        }
-    }
-    if (!path)
-        return cli_usage_error("drift", "needs a scenario file");
+    static const char *const opts[] = {"--csv", NULL};
+    const char *path, *csv = NULL;
+    int json, st = cli_scenario_args("drift", HELP, argc, argv, opts, &csv, &json, &path);
+    if (st >= 0)
+        return st;
     dragarc_drift_spec spec;
     dragarc_error err;
     if (dragarc_drift_spec_read(path, &spec, &err) != DRAGARC_OK)

@@ -95,29 +95,12 @@ static void print_summary(const dragarc_sprinkler_spec *sp, const dragarc_spectr
 
 int cmd_sprinkler(int argc, char **argv)
 {
-    const char *path = NULL, *csv = NULL, *grid = NULL;
-    int json = 0;
-    for (int i = 1; i < argc; i++) {
-        const char *a = argv[i];
-        if (strcmp(a, "-h") == 0 || strcmp(a, "--help") == 0) {
-            fputs(HELP, stdout);
-            return EXIT_OK;
-        } else if (strcmp(a, "--json") == 0) {
-            json = 1;
-        } else if (strcmp(a, "--csv") == 0 || strcmp(a, "--grid") == 0) {
-            if (++i >= argc)
-                return cli_usage_error("sprinkler", "%s needs a file name", a);
-            *(a[2] == 'c' ? &csv : &grid) = argv[i];
-        } else if (a[0] == '-' && a[1]) {
-            return cli_usage_error("sprinkler", "unknown option '%s'", a);
-        } else if (path) {
-            return cli_usage_error("sprinkler", "only one scenario file, got '%s' and '%s'", path, a);
-        } else {
-            path = a;
-        }
-    }
-    if (!path)
-        return cli_usage_error("sprinkler", "needs a scenario file");
+    static const char *const opts[] = {"--csv", "--grid", NULL};
+    const char *path, *files[2] = {NULL, NULL}, *csv, *grid;
+    int json, st = cli_scenario_args("sprinkler", HELP, argc, argv, opts, files, &json, &path);
+    if (st >= 0)
+        return st;
+    csv = files[0], grid = files[1];
     dragarc_sprinkler_spec spec;
     dragarc_error err;
     if (dragarc_sprinkler_spec_read(path, &spec, &err) != DRAGARC_OK)

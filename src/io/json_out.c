@@ -59,6 +59,25 @@ static void add_cautions(cJSON *doc, unsigned notes)
 
 /* A new document for scenario s ("scenario" and "dragarc_version" first; none for NULL) and its units object
  * *un, to be added to it; *d becomes SI (held in *si) when NULL. NULL when out of memory. */
+/* A new document naming its scenario and the dragarc version; NULL when out of memory. */
+static cJSON *start(const char *scenario)
+{
+    cJSON *doc = cJSON_CreateObject();
+    if (doc) {
+        cJSON_AddStringToObject(doc, "scenario", scenario);
+        cJSON_AddStringToObject(doc, "dragarc_version", DRAGARC_VERSION_STRING);
+    }
+    return doc;
+}
+
+/* The "units" object of a document whose units are fixed: n pairs of key and unit. */
+static void add_units(cJSON *doc, const char *const (*units)[2], size_t n)
+{
+    cJSON *un = cJSON_AddObjectToObject(doc, "units");
+    for (size_t k = 0; k < n; k++)
+        cJSON_AddStringToObject(un, units[k][0], units[k][1]);
+}
+
 static cJSON *begin(const dragarc_scenario *s, const dragarc_display **d, dragarc_display *si, cJSON **un)
 {
     if (!*d) {
@@ -324,11 +343,9 @@ char *dragarc_atmosphere_json(const dragarc_atmosphere *atm, const double *altit
 char *dragarc_sprinkler_json(const dragarc_sprinkler_spec *spec, const dragarc_spectrum_class *classes,
                              const dragarc_sprinkler_result *r)
 {
-    cJSON *doc = cJSON_CreateObject();
+    cJSON *doc = start(spec->base.name);
     if (!doc)
         return NULL;
-    cJSON_AddStringToObject(doc, "scenario", spec->base.name);
-    cJSON_AddStringToObject(doc, "dragarc_version", DRAGARC_VERSION_STRING);
     cJSON *nz = cJSON_AddObjectToObject(doc, "nozzle");
     add_num(nz, "exit_speed", r->exit_speed);
     add_num(nz, "flow", r->flow);
@@ -375,13 +392,11 @@ char *dragarc_sprinkler_json(const dragarc_sprinkler_spec *spec, const dragarc_s
         add_num(o, "rate", r->ring_rate[k]);
         cJSON_AddItemToArray(prof, o);
     }
-    cJSON *un = cJSON_AddObjectToObject(doc, "units");
     static const char *const U[][2] = {{"exit_speed", "m/s"}, {"flow", "m3/s"}, {"height", "m"},
                                        {"elevation", "degree"}, {"wetted_radius", "m"}, {"diameter", "m"},
                                        {"distance", "m"}, {"time", "s"}, {"r_inner", "m"}, {"r_outer", "m"},
                                        {"rate", "mm/h"}};
-    for (size_t k = 0; k < sizeof U / sizeof U[0]; k++)
-        cJSON_AddStringToObject(un, U[k][0], U[k][1]);
+    add_units(doc, U, sizeof U / sizeof U[0]);
     add_cautions(doc, r->notes | DRAGARC_NOTE_IRRIGATION);
     return finish(doc);
 }
@@ -389,11 +404,9 @@ char *dragarc_sprinkler_json(const dragarc_sprinkler_spec *spec, const dragarc_s
 char *dragarc_drift_json(const dragarc_drift_spec *spec, const dragarc_drift_result *r)
 {
     static const char *const OUTCOME[] = {"landed", "evaporated", "aloft", "failed"};
-    cJSON *doc = cJSON_CreateObject();
+    cJSON *doc = start(spec->base.name);
     if (!doc)
         return NULL;
-    cJSON_AddStringToObject(doc, "scenario", spec->base.name);
-    cJSON_AddStringToObject(doc, "dragarc_version", DRAGARC_VERSION_STRING);
     cJSON *sum = cJSON_AddObjectToObject(doc, "summary");
     add_num(sum, "downwind_direction", r->wind_toward / DRAGARC_DEG);
     add_num(sum, "deposited_fraction", r->deposited_fraction);
@@ -426,13 +439,11 @@ char *dragarc_drift_json(const dragarc_drift_spec *spec, const dragarc_drift_res
         add_num(o, "per_metre", r->deposit[b]);
         cJSON_AddItemToArray(dep, o);
     }
-    cJSON *un = cJSON_AddObjectToObject(doc, "units");
     static const char *const U[][2] = {{"downwind_direction", "degree"}, {"distance90", "m"}, {"distance99", "m"},
                                        {"buffer", "m"}, {"diameter_at_buffer", "m"}, {"diameter", "m"},
                                        {"downwind", "m"}, {"crosswind", "m"}, {"time", "s"}, {"from", "m"},
                                        {"to", "m"}, {"per_metre", "1/m"}};
-    for (size_t k = 0; k < sizeof U / sizeof U[0]; k++)
-        cJSON_AddStringToObject(un, U[k][0], U[k][1]);
+    add_units(doc, U, sizeof U / sizeof U[0]);
     add_cautions(doc, r->notes | DRAGARC_NOTE_SPRAY_DRIFT);
     return finish(doc);
 }

@@ -1362,37 +1362,50 @@ static int read_drop_rest(const cJSON *root, const char *owner, dragarc_scenario
     return rc;
 }
 
-static int read_sprinkler_root(const cJSON *root, dragarc_sprinkler_spec *sp, dragarc_error *err)
+/* A sprinkler or drift scenario: {"name", "description", KEY, "environment", "ground", "solver"}; the KEY object is
+ * read by read_key into spec, then the rest into base (the launch is owner's). */
+static int parse_drop_scenario(const char *json, const char *key, const char *owner, dragarc_scenario *base, void *spec,
+                               int (*read_key)(const cJSON *, void *, dragarc_error *), dragarc_error *err)
 {
-    static const char *const keys[] = {"name", "description", "sprinkler", "environment", "ground", "solver", NULL};
-    dragarc_scenario *s = &sp->base;
-    if (!cJSON_IsObject(root))
-        return dragarc_error_set(err, DRAGARC_EINVAL, "", "a scenario must be a JSON object, not %s", type_name(root));
-    TRY(check_keys(root, "", keys, err));
+    const char *const keys[] = {"name", "description", key, "environment", "ground", "solver", NULL};
+    cJSON *root = NULL;
+    int rc = parse_text(json, "the scenario", &root, err);
+    if (rc != DRAGARC_OK)
+        return rc;
     const char *name = NULL, *desc = NULL;
-    TRY(get_string(root, "", "name", 0, &name, err));
-    TRY(get_string(root, "", "description", 0, &desc, err));
+    const cJSON *j = NULL;
+    if ((rc = with_units(root, "", err)) != DRAGARC_OK)
+        goto done;
+    if (!cJSON_IsObject(root)) {
+        rc = dragarc_error_set(err, DRAGARC_EINVAL, "", "a scenario must be a JSON object, not %s", type_name(root));
+        goto done;
+    }
+    if ((rc = check_keys(root, "", keys, err)) != DRAGARC_OK || (rc = get_string(root, "", "name", 0, &name, err)) ||
+        (rc = get_string(root, "", "description", 0, &desc, err)))
+        goto done;
     if (name)
-        snprintf(s->name, sizeof s->name, "%s", name);
-    const cJSON *j = cJSON_GetObjectItemCaseSensitive(root, "sprinkler");
-    if (!j)
-        return dragarc_error_set(err, DRAGARC_EINVAL, "sprinkler", "is required");
-    TRY(read_sprinkler(j, sp, err));
-    return read_drop_rest(root, "sprinkler", s, err);
+        snprintf(base->name, sizeof base->name, "%s", name);
+    if (!(j = cJSON_GetObjectItemCaseSensitive(root, key))) {
+        rc = dragarc_error_set(err, DRAGARC_EINVAL, key, "is required");
+        goto done;
+    }
+    if ((rc = read_key(j, spec, err)) == DRAGARC_OK)
+        rc = read_drop_rest(root, owner, base, err);
+done:
+    cJSON_Delete(root);
+    return rc;
+}
+
+static int read_sprinkler_key(const cJSON *j, void *spec, dragarc_error *err)
+{
+    return read_sprinkler(j, spec, err);
 }
 
 int dragarc_sprinkler_spec_parse(const char *json, dragarc_sprinkler_spec *out, dragarc_error *err)
 {
     memset(out, 0, sizeof *out);
     dragarc_scenario_default(&out->base);
-    cJSON *root = NULL;
-    int rc = parse_text(json, "the scenario", &root, err);
-    if (rc != DRAGARC_OK)
-        return rc;
-    rc = with_units(root, "", err);
-    if (rc == DRAGARC_OK)
-        rc = read_sprinkler_root(root, out, err);
-    cJSON_Delete(root);
+    int rc = parse_drop_scenario(json, "sprinkler", "sprinkler", &out->base, out, read_sprinkler_key, err);
     if (rc != DRAGARC_OK)
         dragarc_sprinkler_spec_clear(out);
     return rc;
@@ -1488,32 +1501,17 @@ static int read_drift(const cJSON *j, dragarc_drift_spec *sp, dragarc_error *err
     return DRAGARC_OK;
 }
 
+static int read_drift_key(const cJSON *j, void *spec, dragarc_error *err)
+{
+    return read_drift(j, spec, err);
+}
+
 int dragarc_drift_spec_parse(const char *json, dragarc_drift_spec *out, dragarc_error *err)
 {
-    static const char *const keys[] = {"name", "description", "drift", "environment", "ground", "solver", NULL};
     memset(out, 0, sizeof *out);
     dragarc_scenario_default(&out->base);
     out->base.solver.max_time = 600.0; /* a drop still aloft after 10 minutes is counted as drift, not flown on */
-    cJSON *root = NULL;
-    int rc = parse_text(json, "the scenario", &root, err);
-    if (rc != DRAGARC_OK)
-        return rc;
-    rc = with_units(root, "", err);
-    if (rc == DRAGARC_OK && !cJSON_IsObject(root))
-        rc = dragarc_error_set(err, DRAGARC_EINVAL, "", "a scenario must be a JSON object, not %s", type_name(root));
-    if (rc == DRAGARC_OK)
-        rc = check_keys(root, "", keys, err);
-    const char *name = NULL;
-    if (rc == DRAGARC_OK && (rc = get_string(root, "", "name", 0, &name, err)) == DRAGARC_OK && name)
-        snprintf(out->base.name, sizeof out->base.name, "%s", name);
-    const cJSON *j = rc == DRAGARC_OK ? cJSON_GetObjectItemCaseSensitive(root, "drift") : NULL;
-    if (rc == DRAGARC_OK && !j)
-        rc = dragarc_error_set(err, DRAGARC_EINVAL, "drift", "is required");
-    if (rc == DRAGARC_OK)
-        rc = read_drift(j, out, err);
-    if (rc == DRAGARC_OK)
-        rc = read_drop_rest(root, "drift.release", &out->base, err);
-    cJSON_Delete(root);
+    int rc = parse_drop_scenario(json, "drift", "drift.release", &out->base, out, read_drift_key, err);
     if (rc != DRAGARC_OK)
         dragarc_drift_spec_clear(out);
     return rc;
