@@ -2,11 +2,13 @@
  *
  * Copyright (C) 2026 the dragarc developers. SPDX-License-Identifier: GPL-3.0-or-later
  *
- *   dm/dt = -pi d D_v Sh (rho_v,s(T_w) - rho_v,inf),     Sh = 2 + 0.6 Re^(1/2) Sc^(1/3)
- * The drop sits at the wet-bulb temperature T_w of the air (psychrometer equation), the vapour at its
- * surface is saturated at T_w, the air's vapour density follows from its relative humidity; Sh is the
- * Ranz-Marshall Sherwood number (Sh = 2 is Maxwell's still-air law, whose d^2 falls linearly in time).
- * Only the water evaporates: a non-volatile fraction of the first volume stays as a residue.
+ *   dm/dt = -pi d D_v Sh (rho_v,s(T_s) - rho_v,inf),     Sh = 2 + 0.6 Re^(1/2) Sc^(1/3)
+ *   Nu k (T - T_s) = Sh D_v L (rho_v,s(T_s) - rho_v,inf),  Nu = 2 + 0.6 Re^(1/2) Pr^(1/3)
+ * The drop sits at the temperature T_s where the heat it draws from the air pays for the water it loses (the
+ * quasi-steady heat balance), the vapour at its surface is saturated at T_s, the air's vapour density follows
+ * from its relative humidity; Sh and Nu are the Ranz-Marshall Sherwood and Nusselt numbers (Sh = 2 is Maxwell's
+ * still-air law, whose d^2 falls linearly in time). Only the water evaporates: a non-volatile fraction of the
+ * first volume stays as a residue.
  */
 #ifndef DRAGARC_EVAPORATION_H
 #define DRAGARC_EVAPORATION_H
@@ -28,6 +30,35 @@ typedef struct dragarc_evaporation {
 /* Diffusivity of water vapour in air (m^2/s) at T (K) and p (Pa): 2.11e-5 (T/273.15)^1.94 (101325/p)
  * (Pruppacher & Klett 1997, Microphysics of Clouds and Precipitation, eq. 13-3; recalled). */
 double dragarc_vapour_diffusivity(double temperature, double pressure);
+
+/* Specific heat of dry air at constant pressure, J/(kg K), for the Prandtl number (e.g. Rogers & Yau 1989,
+ * A Short Course in Cloud Physics, 3rd ed., Table 2.1: 1005; recalled). */
+#define DRAGARC_AIR_CP 1005.0
+
+/* Thermal conductivity of air (W/(m K)) at T (K): (5.69 + 0.017 t) 1e-5 cal/(cm s K), t in degC (Pruppacher &
+ * Klett 1997, eq. 13-18a; recalled): 0.02381 at 0 degC, 0.02523 at 20 degC. */
+double dragarc_air_conductivity(double temperature);
+
+/* Latent heat of vaporisation of water (J/kg) at T (K): 2.501e6 - 2370 t, t in degC (a straight line through
+ * Rogers & Yau 1989, Table 2.1: 2.501e6 at 0 degC, 2.454e6 at 20 degC; recalled). */
+double dragarc_latent_heat(double temperature);
+
+/* Residual of a drop's heat balance at a trial surface temperature ts (K), air at T (K), p (Pa) and relative
+ * humidity h, with nu_over_sh = Nu / Sh (1 in still air): (Nu/Sh) k(T) (T - ts) - D_v(T, p) L(ts) drho(ts).
+ * Zero at the drop's temperature; it falls as ts rises. */
+double dragarc_drop_heat_residual(double ts, double temperature, double pressure, double relative_humidity,
+                                  double nu_over_sh);
+
+/* Nu / Sh of a drop with Reynolds number re in air of density rho, viscosity mu and temperature T, vapour
+ * diffusivity dv: (2 + 0.6 Re^(1/2) Pr^(1/3)) / (2 + 0.6 Re^(1/2) Sc^(1/3)), Pr = mu c_p / k, Sc = mu / (rho dv)
+ * (Ranz & Marshall 1952). 1 at rest, about 1.06 for a fast drop. */
+double dragarc_heat_to_mass_ratio(double reynolds, double density, double viscosity, double temperature,
+                                  double dv);
+
+/* The drop's temperature (K): the root of dragarc_drop_heat_residual, by Newton's method kept inside the bracket
+ * [T - 60 K, T] by bisection (src/numerics/terminal.c), to 1e-10 K. Saturated air (h >= 1) gives T itself. */
+int dragarc_drop_temperature(double temperature, double pressure, double relative_humidity, double nu_over_sh,
+                             double *ts, dragarc_error *err);
 
 /* Residual of the psychrometer equation at a trial wet-bulb temperature tw (K), air at T (K), p (Pa) and
  * relative humidity h: e_w(tw) - h e_w(T) - A p (T - tw), A = 6.53e-4 (1 + 0.000944 (tw - 273.15)) 1/K (WMO

@@ -77,7 +77,8 @@ typedef struct dragarc_flight {
                             * as a fraction of the launch mass */
     int evaporated;        /* 1: an evaporating drop shrank away (below DRAGARC_EVAPORATED_DIAMETER) before landing;
                             * then impact[] and time_of_flight are where and when, in the air */
-    double wet_bulb;       /* K, the wet-bulb temperature an evaporating drop sits at (0 otherwise) */
+    double wet_bulb;       /* K, an evaporating drop's: the wet-bulb temperature of the air at launch (0 otherwise) */
+    double drop_temperature; /* K, an evaporating drop's: its temperature at rest in that air (0 otherwise) */
     /* after the first impact (ground.surface): bounces and roll-out. Without a surface the ball stops where
      * it lands: bounces 0, total_distance = range, rest_position = the impact point, rest_time = time_of_flight */
     int bounces;              /* impacts after the first that ended in another flight */

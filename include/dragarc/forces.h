@@ -40,7 +40,7 @@ typedef struct dragarc_forces {
     double spin_decay_rate;  /* 1/s: 1 / launch.spin.decay_time, or 0 */
     int evaporating;         /* the body is a water drop whose mass is the state's eighth value */
     double residue_volume;   /* m^3: what stays when the water is gone */
-    double vapour_excess;    /* kg/m^3: water-vapour density at the drop's surface less the air's */
+    double relative_humidity; /* of the air around an evaporating drop, 0 to 1 */
 } dragarc_forces;
 
 /* What the right-hand side saw at one state, for diagnostics and output. */
@@ -70,9 +70,10 @@ void dragarc_spin_axis(double tilt, double azimuth, double axis[3]);
  * e-folding time decay_time (s; 0: not so). The rate itself is the state's seventh value. */
 void dragarc_forces_spin(dragarc_forces *f, const double axis[3], double decay_time);
 
-/* An evaporating water drop (projectile.evaporation): the vapour density excess at its surface, from the wet-bulb
- * temperature of the air at the launch height (held for the flight), and its residue. */
-void dragarc_forces_evaporation(dragarc_forces *f, double vapour_excess);
+/* An evaporating water drop (projectile.evaporation) in air of this relative humidity (0 to 1; held with height):
+ * at each evaluation its temperature from its heat balance in the local air, the vapour density excess at its
+ * surface from that, and its residue (evaporation.h). */
+void dragarc_forces_evaporation(dragarc_forces *f, double relative_humidity);
 
 /* dy/dt at state y (DRAGARC_STATE_DIM values) into dydt (as many); fills *flow if not NULL. Returns
  * DRAGARC_OK, or the atmosphere's error (e.g. DRAGARC_ERANGE above 86 km) with err filled. Pure: no I/O, no

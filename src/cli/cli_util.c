@@ -199,13 +199,13 @@ void cli_print_flight(FILE *fp, const char *label, const dragarc_scenario *s, co
             SHOW("impact_energy", DRAGARC_Q_ENERGY, f->impact_energy), UNIT("impact_energy", DRAGARC_Q_ENERGY));
     if (p->evaporation.enabled) {
         double v_end = fmax(f->impact[7] * p->volume, p->evaporation.nonvolatile_fraction * p->volume), v_res = p->evaporation.nonvolatile_fraction * p->volume;
-        fprintf(fp, "  droplet         %.4g %s at launch, %.4g %s %s; %.1f %% of its water evaporated (wet bulb %.1f %s)\n",
+        fprintf(fp, "  droplet         %.4g %s at launch, %.4g %s %s; %.1f %% of its water evaporated (drop at rest %.1f %s)\n",
                 SHOW("diameter", DRAGARC_Q_LENGTH, p->diameter), UNIT("diameter", DRAGARC_Q_LENGTH),
                 SHOW("diameter", DRAGARC_Q_LENGTH, cbrt(6.0 / 3.14159265358979323846 * v_end)),
                 UNIT("diameter", DRAGARC_Q_LENGTH), f->evaporated ? "when it vanished" : "at landing",
                 100.0 * (p->volume - v_end) / (p->volume - v_res),
-                SHOW("wet_bulb_temperature", DRAGARC_Q_TEMPERATURE, f->wet_bulb),
-                UNIT("wet_bulb_temperature", DRAGARC_Q_TEMPERATURE));
+                SHOW("drop_temperature", DRAGARC_Q_TEMPERATURE, f->drop_temperature),
+                UNIT("drop_temperature", DRAGARC_Q_TEMPERATURE));
         if (f->evaporated)
             fprintf(fp, "  evaporated      before landing, %.2f %s above the ground: the impact lines give where it "
                     "vanished\n",

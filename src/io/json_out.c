@@ -143,6 +143,7 @@ static void add_flight(cJSON *doc, cJSON *un, const dragarc_scenario *s, const d
         add_shown(sum, un, d, "final_diameter", DRAGARC_Q_LENGTH, cbrt(6.0 / DRAGARC_PI * v_end));
         add_num(sum, "water_evaporated", (p->volume - v_end) / (p->volume - v_res));
         add_shown(sum, un, d, "wet_bulb_temperature", DRAGARC_Q_TEMPERATURE, f->wet_bulb);
+        add_shown(sum, un, d, "drop_temperature", DRAGARC_Q_TEMPERATURE, f->drop_temperature);
     }
     if (s->ground_surface_given) {
         cJSON_AddNumberToObject(sum, "bounces", f->bounces);

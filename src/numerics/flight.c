@@ -1155,19 +1155,22 @@ int dragarc_flight_run(const dragarc_scenario *s, double dt, dragarc_flight *out
     memset(&c, 0, sizeof c);
     dragarc_forces_init(&c.forces, &s->projectile, &s->atmosphere, &s->wind, s->gravity, s->ground_elevation);
     if (s->projectile.evaporation.enabled) {
-        /* The wet bulb of the air at the launch height, held for the flight (docs/models.md). */
+        /* The drop's temperature comes from its heat balance at each evaluation (forces.c); reported here is the
+         * temperature of a drop at rest in the air at the launch height, and the air's wet bulb there. */
         dragarc_air a0;
-        double tw;
+        double tw, ts;
         if ((rc = dragarc_atmosphere_eval(&s->atmosphere, s->launch.height, &a0, err)) != DRAGARC_OK ||
             (rc = dragarc_wet_bulb_temperature(a0.temperature, a0.pressure, s->atmosphere.relative_humidity, &tw, err)) !=
-                DRAGARC_OK)
+                DRAGARC_OK ||
+            (rc = dragarc_drop_temperature(a0.temperature, a0.pressure, s->atmosphere.relative_humidity, 1.0, &ts,
+                                           err)) != DRAGARC_OK)
             return rc;
-        dragarc_forces_evaporation(&c.forces, dragarc_vapour_density_excess(tw, a0.temperature,
-                                                                            s->atmosphere.relative_humidity));
+        dragarc_forces_evaporation(&c.forces, s->atmosphere.relative_humidity);
         const double dstop = DRAGARC_EVAPORATED_DIAMETER;
         double vstop = DRAGARC_PI / 6.0 * dstop * dstop * dstop;
         c.mass_stop = c.forces.residue_volume < vstop ? vstop / s->projectile.volume : 0.0;
         out->wet_bulb = tw;
+        out->drop_temperature = ts;
     }
     if (s->launch.spin_rate > 0.0) {
         double axis[3];

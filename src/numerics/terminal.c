@@ -94,3 +94,38 @@ int dragarc_wet_bulb_temperature(double temperature, double pressure, double rel
                                  "wet-bulb temperature: Brent's method did not converge (%s)", gsl_strerror(status));
     return DRAGARC_OK;
 }
+
+int dragarc_drop_temperature(double temperature, double pressure, double relative_humidity, double nu_over_sh,
+                             double *ts, dragarc_error *err)
+{
+    if (relative_humidity >= 1.0) {
+        *ts = temperature;
+        return DRAGARC_OK;
+    }
+    /* g(ts) = dragarc_drop_heat_residual falls as ts rises: positive 60 K below the air (the conduction term is
+     * large and the vapour excess negative), not positive at the air's own temperature (-D_v L (1 - h) rho_v,s).
+     * Newton's step with a centred-difference slope, replaced by bisection whenever it would leave the bracket
+     * that the signs keep; the bracket halves at worst, so 200 steps reach far below 1e-10 K. */
+    double lo = temperature - 60.0, hi = temperature, x = temperature - 5.0;
+    for (int i = 0; i < 200; i++) {
+        double g = dragarc_drop_heat_residual(x, temperature, pressure, relative_humidity, nu_over_sh);
+        if (g > 0.0)
+            lo = x;
+        else
+            hi = x;
+        const double h = 1e-4;
+        double slope = (dragarc_drop_heat_residual(x + h, temperature, pressure, relative_humidity, nu_over_sh) -
+                        dragarc_drop_heat_residual(x - h, temperature, pressure, relative_humidity, nu_over_sh)) /
+                       (2.0 * h);
+        double next = slope < 0.0 ? x - g / slope : 0.5 * (lo + hi);
+        if (!(next > lo && next < hi))
+            next = 0.5 * (lo + hi);
+        if (fabs(next - x) < 1e-10 || hi - lo < 1e-10) {
+            *ts = next;
+            return DRAGARC_OK;
+        }
+        x = next;
+    }
+    return dragarc_error_set(err, DRAGARC_ESOLVER, "environment.atmosphere",
+                             "drop temperature: the heat balance did not converge");
+}

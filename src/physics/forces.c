@@ -53,11 +53,11 @@ void dragarc_forces_spin(dragarc_forces *f, const double axis[3], double decay_t
     f->spin_decay_rate = decay_time > 0.0 ? 1.0 / decay_time : 0.0;
 }
 
-void dragarc_forces_evaporation(dragarc_forces *f, double vapour_excess)
+void dragarc_forces_evaporation(dragarc_forces *f, double relative_humidity)
 {
     const dragarc_projectile *p = f->projectile;
     f->evaporating = 1;
-    f->vapour_excess = vapour_excess;
+    f->relative_humidity = relative_humidity;
     f->residue_volume = p->evaporation.nonvolatile_fraction * p->volume;
 }
 
@@ -84,9 +84,15 @@ int dragarc_forces_eval(const dragarc_forces *f, const double y[DRAGARC_STATE_DI
         area = 0.25 * DRAGARC_PI * diameter * diameter;
         inv_m = 1.0 / (volume * p->density);
         if (volume > f->residue_volume) {
-            double re = air.density * speed * diameter / air.viscosity;
-            dmass = dragarc_evaporation_rate(diameter, re, air.density, air.viscosity,
-                                             dragarc_vapour_diffusivity(air.temperature, air.pressure), f->vapour_excess);
+            /* the drop's temperature from its heat balance in the air around it, then the vapour it loses */
+            double re = air.density * speed * diameter / air.viscosity, ts;
+            double dv = dragarc_vapour_diffusivity(air.temperature, air.pressure);
+            double ratio = dragarc_heat_to_mass_ratio(re, air.density, air.viscosity, air.temperature, dv);
+            if ((rc = dragarc_drop_temperature(air.temperature, air.pressure, f->relative_humidity, ratio, &ts, err)) !=
+                DRAGARC_OK)
+                return rc;
+            dmass = dragarc_evaporation_rate(diameter, re, air.density, air.viscosity, dv,
+                                             dragarc_vapour_density_excess(ts, air.temperature, f->relative_humidity));
         }
     }
     /* The spin first: the spin factor S sets the lift and may set the drag (a spin_table). */

@@ -6,9 +6,12 @@
 # The reference integrates, with scipy.integrate.solve_ivp (DOP853 [HNW93]) at rtol = atol = 1e-12, the state
 # (position, velocity, mass) of a water drop:
 #   m dv/dt = -m g z^ + rho V g z^ - 1/2 rho Cd(Re) A |v - u| (v - u)      [Newton]
-#   dm/dt   = -pi d D_v Sh drho,  Sh = 2 + 0.6 Re^(1/2) Sc^(1/3)            [Maxwell], [RM52]
+#   dm/dt   = -pi d D_v Sh drho(T_s),  Sh = 2 + 0.6 Re^(1/2) Sc^(1/3)       [Maxwell], [RM52]
+#   Nu k (T - T_s) = Sh D_v L(T_s) drho(T_s),  Nu = 2 + 0.6 Re^(1/2) Pr^(1/3)  [RM52], [PK97] section 13.2
 # with d, A = pi d^2 / 4 and V = m / rho_l following the mass (the residue keeps the drop's density), the
-# drop at the wet-bulb temperature of the psychrometer equation [WMO] (solved here by brentq), water-vapour
+# drop's temperature T_s solved from its heat balance by brentq at every evaluation, in the air at the drop's
+# height, k of [PK97] eq. 13-18a, L and c_p of [RY89]; the air's wet bulb from the psychrometer equation [WMO]
+# (reported, not used in the flight); water-vapour
 # densities from the CIPM-2007 saturation vapour pressure [CIPM07] and the ideal gas, D_v of [PK97], and the
 # smooth-sphere Cd of [CGW78]. Written here from those sources, not from dragarc's code. The air's temperature,
 # pressure, density and viscosity at each height come from `dragarc atmosphere` (the local model, itself checked
@@ -26,7 +29,10 @@
 #           A = 1.2378847e-5, B = -1.9121316e-2, C = 33.93711047, D = -6.3431645e3 (as used by dragarc's
 #           moist-air module; constants checked there against IAPWS values).
 #   [PK97]  Pruppacher & Klett 1997, Microphysics of Clouds and Precipitation, eq. 13-3,
-#           D_v = 2.11e-5 (T / 273.15)^1.94 (101325 / p) (recalled).
+#           D_v = 2.11e-5 (T / 273.15)^1.94 (101325 / p); eq. 13-18a, k = (5.69 + 0.017 t) 1e-5 cal/(cm s K)
+#           (recalled).
+#   [RY89]  Rogers & Yau 1989, A Short Course in Cloud Physics, 3rd ed., Table 2.1: L = 2.501e6 J/kg at 0 degC,
+#           2.454e6 at 20 degC (a straight line through them), c_p = 1005 J/(kg K) (recalled).
 #   [CGW78] Clift, Grace & Weber 1978, Bubbles, Drops, and Particles, Table 5.2 (the pieces up to Re = 1500).
 #   [Newton] Drag by definition of Cd; buoyancy by Archimedes.
 #
@@ -52,6 +58,29 @@ def p_sv(t):  # [CIPM07]
 def wet_bulb(t, p, h):  # [WMO]
     return brentq(lambda tw: p_sv(tw) - h * p_sv(t) - 6.53e-4 * (1 + 0.000944 * (tw - 273.15)) * p * (t - tw),
                   t - 60.0, t, xtol=1e-13)
+
+
+def conductivity(t):  # [PK97] 13-18a, cal/(cm s K) -> W/(m K)
+    return 418.4e-5 * (5.69 + 0.017 * (t - 273.15))
+
+
+def latent_heat(t):  # [RY89]
+    return 2.501e6 - 2370.0 * (t - 273.15)
+
+
+def diffusivity(t, p):  # [PK97] 13-3
+    return 2.11e-5 * (t / 273.15) ** 1.94 * (101325.0 / p)
+
+
+def vapour_excess(ts, t, h):  # ideal gas
+    return MV / R * (p_sv(ts) / ts - h * p_sv(t) / t)
+
+
+def drop_temperature(t, p, h, nu_over_sh):  # the heat balance
+    if h >= 1.0:
+        return t
+    return brentq(lambda ts: nu_over_sh * conductivity(t) * (t - ts)
+                  - diffusivity(t, p) * latent_heat(ts) * vapour_excess(ts, t, h), t - 60.0, t, xtol=1e-13)
 
 
 def cd_sphere(re):  # [CGW78]
@@ -105,7 +134,7 @@ def reference(proj, speed, heights, air):
     t0, p0, h = AIR["temperature"], AIR["pressure"], AIR["relative_humidity"]
     a0 = {k: float(np.interp(1.5, heights, v)) for k, v in air.items()}
     tw = wet_bulb(a0["temperature"], a0["pressure"], h)
-    drho = MV / R * (p_sv(tw) / tw - h * p_sv(a0["temperature"]) / a0["temperature"])
+    ts0 = drop_temperature(a0["temperature"], a0["pressure"], h, 1.0)
     m_stop = rho_l * math.pi / 6.0 * 1e-18 if v_res < math.pi / 6.0 * 1e-18 else 0.0
     toward = math.radians(WIND[1] + 180.0)
     u = np.array([WIND[0] * math.sin(toward), WIND[0] * math.cos(toward), 0.0])
@@ -127,9 +156,11 @@ def reference(proj, speed, heights, air):
             acc -= 0.5 * rho * cd_sphere(re) * math.pi * d * d / 4.0 * speed_rel / m * rel
         dm = 0.0
         if vol > v_res:
-            dv = 2.11e-5 * (temp / 273.15) ** 1.94 * (101325.0 / pres)  # [PK97]
+            dv = diffusivity(temp, pres)
             sh = 2.0 + 0.6 * math.sqrt(re) * (mu / (rho * dv)) ** (1.0 / 3.0)  # [RM52]
-            dm = -math.pi * d * dv * sh * drho  # [Maxwell]
+            nu = 2.0 + 0.6 * math.sqrt(re) * (mu * 1005.0 / conductivity(temp)) ** (1.0 / 3.0)  # [RM52]
+            ts = drop_temperature(temp, pres, h, nu / sh)
+            dm = -math.pi * d * dv * sh * vapour_excess(ts, temp, h)  # [Maxwell]
         return np.concatenate((s[3:6], acc, [dm]))
 
     def ground(t, s):
@@ -147,7 +178,7 @@ def reference(proj, speed, heights, air):
     t_end, y_end = sol.t_events[ev][0], sol.y_events[ev][0]
     return {"time_of_flight": t_end, "range": math.hypot(y_end[0], y_end[1]), "height": y_end[2],
             "final_diameter": (6.0 * y_end[6] / rho_l / math.pi) ** (1.0 / 3.0), "evaporated": ev == 1,
-            "wet_bulb_temperature": tw}
+            "wet_bulb_temperature": tw, "drop_temperature": ts0}
 
 
 def main(argv):
@@ -171,12 +202,12 @@ def main(argv):
         summ = json.loads(out.stdout)["summary"]
         got = {"time_of_flight": summ["time_of_flight"], "range": summ["range"],
                "height": summ["impact_position"]["z"], "final_diameter": summ["final_diameter"],
-               "wet_bulb_temperature": summ["wet_bulb_temperature"]}
+               "wet_bulb_temperature": summ["wet_bulb_temperature"], "drop_temperature": summ["drop_temperature"]}
         # Both integrate at about 1e-11; over these flights of a few hundred steps the global error stays below
         # 1e-8 relative; the tolerances are 1e-7 relative with floors of 1 um (positions) and 1e-11 m (diameters).
         tols = {"time_of_flight": 1e-7 * ref["time_of_flight"], "range": max(1e-6, 1e-7 * ref["range"]),
                 "height": 1e-6, "final_diameter": max(1e-11, 1e-7 * ref["final_diameter"]),
-                "wet_bulb_temperature": 1e-9}
+                "wet_bulb_temperature": 1e-9, "drop_temperature": 1e-9}
         for k, tol in tols.items():
             ok = abs(got[k] - ref[k]) <= tol
             passed, failed = passed + ok, failed + (not ok)

@@ -37,6 +37,68 @@ TEST(a_drop_at_rest_evaporates_at_maxwells_rate)
     CHECK_REL(dragarc_vapour_diffusivity(273.15, 101325.0), 2.11e-5, 1e-15);
 }
 
+/* The relative humidity at which the psychrometer's wet bulb lies dt below air at T and 1 atm (bisection: the
+ * depression falls as the humidity rises). */
+static double humidity_for_depression(double t, double dt)
+{
+    double lo = 0.0, hi = 1.0, tw;
+    for (int i = 0; i < 100; i++) {
+        double h = 0.5 * (lo + hi);
+        dragarc_wet_bulb_temperature(t, 101325.0, h, &tw, NULL);
+        if (t - tw > dt)
+            lo = h;
+        else
+            hi = h;
+    }
+    return 0.5 * (lo + hi);
+}
+
+TEST(a_drop_at_rest_lives_about_as_long_as_published_lifetimes)
+{
+    /* Published: d^2 = d0^2 - lambda t with lambda = 80 dT um^2/s, dT the wet-bulb depression in kelvin, so a
+     * 100 um drop of water lives about 57 s at dT = 2.2 K and 16 s at dT = 7.7 K (Amsden, R. C. 1962, "Reducing
+     * the evaporation of sprays", Agricultural Aviation 4:88, as reproduced in Matthews, G. A., Pesticide
+     * Application Methods; recalled). At rest (Re = 0, Sh = Nu = 2) the model's d^2 falls linearly at lambda =
+     * 8 D_v drho(T_s) / rho_l = 8 k (T - T_s) / (L rho_l): heat-limited, the published form, with the drop's own
+     * depression T - T_s. Two checks at 20 degC, 1 atm, rho_l = 1000 kg/m^3:
+     * (1) lambda / (T - T_s) against the published 80 um^2/s/K within 6.25 %: the figure is printed as "80",
+     *     between 75 and 85 at the precision given, and recalled.
+     * (2) The lifetimes at the published wet-bulb depressions within 15 %: a free drop sits further below the air
+     *     than a ventilated wet-bulb thermometer, by the factor (s + gamma) / (s + k / (L D_v)) (s the slope of
+     *     the saturation vapour density, gamma the psychrometer's constant as a vapour density; derived from the
+     *     two balances, printed below: about 1.10), on top of (1)'s 6.25 %: 1.10 x 1.0625 = 1.17 at most; 15 % was
+     *     set from this estimate after the first comparison was seen (docs/validation.md says so). */
+    const double t = 293.15, p = 101325.0, rho_l = 1000.0, d0 = 100e-6;
+    const double dts[2] = {2.2, 7.7}, published[2] = {57.0, 16.0};
+    for (int i = 0; i < 2; i++) {
+        double h = humidity_for_depression(t, dts[i]), tw, ts;
+        CHECK(dragarc_wet_bulb_temperature(t, p, h, &tw, NULL) == DRAGARC_OK);
+        CHECK(dragarc_drop_temperature(t, p, h, 1.0, &ts, NULL) == DRAGARC_OK);
+        double drho = dragarc_vapour_density_excess(ts, t, h), dv = dragarc_vapour_diffusivity(t, p);
+        double lambda = 8.0 * dv * drho / rho_l;
+        /* the balance holds at the root: the diffusion-limited and the heat-limited forms agree */
+        CHECK_REL(lambda, 8.0 * dragarc_air_conductivity(t) * (t - ts) / (dragarc_latent_heat(ts) * rho_l), 1e-9);
+        /* and the rate at rest is that lambda: d(d^2)/dt = 2 d dd/dt = (4 / (pi rho_l d)) dm/dt */
+        CHECK_REL(-4.0 / (PI * rho_l * d0) * dragarc_evaporation_rate(d0, 0.0, 1.2, 1.8e-5, dv, drho), lambda, 1e-12);
+        double life = d0 * d0 / lambda, per_k = lambda / (t - ts) * 1e12;
+        printf("  RH %.1f %%: wet bulb %.2f K below the air, a drop at rest %.2f K below (ratio %.3f); lambda %.1f "
+               "um^2/s per K of the drop's depression (published 80); 100 um lives %.1f s (published %.0f s, %+.1f %%)\n",
+               100.0 * h, t - tw, t - ts, (t - ts) / (t - tw), per_k, life, published[i],
+               100.0 * (life / published[i] - 1.0));
+        CHECK_REL(per_k, 80.0, 0.0625);
+        CHECK_REL(life, published[i], 0.15);
+    }
+    /* a drop in saturated air sits at the air's temperature and does not evaporate */
+    double ts;
+    CHECK(dragarc_drop_temperature(t, p, 1.0, 1.0, &ts, NULL) == DRAGARC_OK && ts == t);
+    /* ventilation warms the drop a little toward the air: Nu / Sh > 1 (Pr^(1/3) > Sc^(1/3), Ranz & Marshall) */
+    double ratio = dragarc_heat_to_mass_ratio(100.0, 1.2, 1.81e-5, t, dragarc_vapour_diffusivity(t, p)), ts_fast;
+    CHECK(ratio > 1.0 && ratio < 1.1);
+    CHECK(dragarc_drop_temperature(t, p, 0.3, 1.0, &ts, NULL) == DRAGARC_OK);
+    CHECK(dragarc_drop_temperature(t, p, 0.3, ratio, &ts_fast, NULL) == DRAGARC_OK && ts_fast > ts);
+    CHECK_ABS(dragarc_drop_heat_residual(ts_fast, t, p, 0.3, ratio), 0.0, 1e-9);
+}
+
 static void drop(dragarc_scenario *s, double d, double phi, double rh)
 {
     make_scenario(s, 1.2, 998.2 * PI * d * d * d / 6.0, d, 2.0, 0.0, 0.0, 9.80665, 1e-10);
@@ -99,6 +161,7 @@ int main(void)
     dragarc_init();
     RUN(the_wet_bulb_matches_a_published_example);
     RUN(a_drop_at_rest_evaporates_at_maxwells_rate);
+    RUN(a_drop_at_rest_lives_about_as_long_as_published_lifetimes);
     RUN(the_residue_stays_and_saturated_air_takes_nothing);
     RUN(the_diameter_shrinks_down_every_sample_and_smaller_drops_go_sooner);
     return check_summary();
