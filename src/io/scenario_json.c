@@ -16,6 +16,7 @@
 #include "core/constants.h"
 #include "dragarc/scenario.h"
 #include "dragarc/drift.h"
+#include "dragarc/footprint.h"
 #include "dragarc/sprinkler.h"
 #include "dragarc/output.h"
 #include "dragarc/units.h"
@@ -253,6 +254,25 @@ static const struct {
     {"drift.spectrum.scale", DRAGARC_Q_LENGTH},
     {"drift.bin_width", DRAGARC_Q_LENGTH},
     {"drift.buffer", DRAGARC_Q_LENGTH},
+    {"breakup.altitude", DRAGARC_Q_LENGTH},
+    {"breakup.speed", DRAGARC_Q_SPEED},
+    {"breakup.flight_path_angle", DRAGARC_Q_ANGLE},
+    {"breakup.heading", DRAGARC_Q_ANGLE},
+    {"breakup.spread.speed", DRAGARC_Q_SPEED},
+    {"breakup.spread.flight_path_angle", DRAGARC_Q_ANGLE},
+    {"breakup.spread.heading", DRAGARC_Q_ANGLE},
+    {"fragments[].mass", DRAGARC_Q_MASS},
+    {"fragments[].area", DRAGARC_Q_AREA},
+    {"fragments[].delta_v.speed", DRAGARC_Q_SPEED},
+    {"fragments[].delta_v.cone", DRAGARC_Q_ANGLE},
+    {"uncertainty.wind.direction", DRAGARC_Q_ANGLE},
+    {"uncertainty.wind.profiles[].speed", DRAGARC_Q_SPEED},
+    {"uncertainty.wind.profiles[].from", DRAGARC_Q_ANGLE},
+    {"uncertainty.wind.profiles[].layers[].height", DRAGARC_Q_LENGTH},
+    {"uncertainty.wind.profiles[].layers[].speed", DRAGARC_Q_SPEED},
+    {"uncertainty.wind.profiles[].layers[].from", DRAGARC_Q_ANGLE},
+    {"footprint.cell", DRAGARC_Q_LENGTH},
+    {"hazard.energy_threshold", DRAGARC_Q_ENERGY},
 };
 
 typedef struct unit_pass {
@@ -983,9 +1003,9 @@ static int read_layers(const cJSON *arr, const char *path, dragarc_wind *w, drag
     return DRAGARC_OK;
 }
 
-static int read_wind(const cJSON *j, dragarc_wind *w, dragarc_error *err)
+/* A wind object at path ("environment.wind", or a profile of a footprint's wind uncertainty). */
+static int read_wind_at(const cJSON *j, const char *path, dragarc_wind *w, dragarc_error *err)
 {
-    const char *path = "environment.wind";
     TRY(want_object(j, path, err));
     const char *model = NULL;
     TRY(get_string(j, path, "model", 0, &model, err));
@@ -1024,13 +1044,20 @@ static int read_wind(const cJSON *j, dragarc_wind *w, dragarc_error *err)
         TRY(get_number(j, path, "ref_height", 0, &w->ref_height, NULL, err));
         TRY(get_number(j, path, "roughness", 0, &w->roughness, NULL, err));
     } else {
-        return dragarc_error_set(err, DRAGARC_EINVAL, "environment.wind.model",
+        char field[PATH_MAX_LEN];
+        join(field, sizeof field, path, "model");
+        return dragarc_error_set(err, DRAGARC_EINVAL, field,
                                  "unknown wind model \"%s\" (none, constant, layered, power, log)", model);
     }
     int rc = dragarc_wind_check(w, err);
     if (rc != DRAGARC_OK)
         dragarc_error_prefix(err, path);
     return rc;
+}
+
+static int read_wind(const cJSON *j, dragarc_wind *w, dragarc_error *err)
+{
+    return read_wind_at(j, "environment.wind", w, err);
 }
 
 static int read_environment(const cJSON *j, dragarc_scenario *s, dragarc_error *err)
@@ -1131,20 +1158,28 @@ int dragarc_scenario_parse(const char *json, const char *base_dir, const char *p
     return rc;
 }
 
-int dragarc_scenario_read(const char *path, const char *profile_path, dragarc_scenario *out, dragarc_error *err)
+/* Read the file at path (at most 16 MiB) into *text and its folder into dir ("." for a bare name). */
+static int read_file_and_folder(const char *path, char **text, char *dir, size_t n, dragarc_error *err)
 {
-    dragarc_scenario_default(out);
-    char *text = NULL;
-    int rc = dragarc_text_file_read(path, 16u << 20, &text, err);
+    int rc = dragarc_text_file_read(path, 16u << 20, text, err);
     if (rc != DRAGARC_OK)
         return rc;
-    char dir[4096];
-    snprintf(dir, sizeof dir, "%s", path);
+    snprintf(dir, n, "%s", path);
     char *slash = strrchr(dir, '/');
     if (slash)
         *slash = '\0';
     else
-        snprintf(dir, sizeof dir, ".");
+        snprintf(dir, n, ".");
+    return DRAGARC_OK;
+}
+
+int dragarc_scenario_read(const char *path, const char *profile_path, dragarc_scenario *out, dragarc_error *err)
+{
+    dragarc_scenario_default(out);
+    char *text = NULL, dir[4096];
+    int rc = read_file_and_folder(path, &text, dir, sizeof dir, err);
+    if (rc != DRAGARC_OK)
+        return rc;
     rc = dragarc_scenario_parse(text, dir, profile_path, out, err);
     free(text);
     return rc;
@@ -1362,6 +1397,24 @@ static int read_drop_rest(const cJSON *root, const char *owner, dragarc_scenario
     return rc;
 }
 
+/* Parse json into *root (the caller deletes it, also after failure), with its values' units converted, its keys
+ * checked against `keys`, and its name copied into base. */
+static int open_root(const char *json, const char *const *keys, dragarc_scenario *base, cJSON **root,
+                     dragarc_error *err)
+{
+    TRY(parse_text(json, "the scenario", root, err));
+    const char *name = NULL, *desc = NULL;
+    TRY(with_units(*root, "", err));
+    if (!cJSON_IsObject(*root))
+        return dragarc_error_set(err, DRAGARC_EINVAL, "", "a scenario must be a JSON object, not %s", type_name(*root));
+    TRY(check_keys(*root, "", keys, err));
+    TRY(get_string(*root, "", "name", 0, &name, err));
+    TRY(get_string(*root, "", "description", 0, &desc, err));
+    if (name)
+        snprintf(base->name, sizeof base->name, "%s", name);
+    return DRAGARC_OK;
+}
+
 /* A sprinkler or drift scenario: {"name", "description", KEY, "environment", "ground", "solver"}; the KEY object is
  * read by read_key into spec, then the rest into base (the launch is owner's). */
 static int parse_drop_scenario(const char *json, const char *key, const char *owner, dragarc_scenario *base, void *spec,
@@ -1369,22 +1422,10 @@ static int parse_drop_scenario(const char *json, const char *key, const char *ow
 {
     const char *const keys[] = {"name", "description", key, "environment", "ground", "solver", NULL};
     cJSON *root = NULL;
-    int rc = parse_text(json, "the scenario", &root, err);
-    if (rc != DRAGARC_OK)
-        return rc;
-    const char *name = NULL, *desc = NULL;
     const cJSON *j = NULL;
-    if ((rc = with_units(root, "", err)) != DRAGARC_OK)
+    int rc = open_root(json, keys, base, &root, err);
+    if (rc != DRAGARC_OK)
         goto done;
-    if (!cJSON_IsObject(root)) {
-        rc = dragarc_error_set(err, DRAGARC_EINVAL, "", "a scenario must be a JSON object, not %s", type_name(root));
-        goto done;
-    }
-    if ((rc = check_keys(root, "", keys, err)) != DRAGARC_OK || (rc = get_string(root, "", "name", 0, &name, err)) ||
-        (rc = get_string(root, "", "description", 0, &desc, err)))
-        goto done;
-    if (name)
-        snprintf(base->name, sizeof base->name, "%s", name);
     if (!(j = cJSON_GetObjectItemCaseSensitive(root, key))) {
         rc = dragarc_error_set(err, DRAGARC_EINVAL, key, "is required");
         goto done;
@@ -1527,3 +1568,348 @@ int dragarc_drift_spec_read(const char *path, dragarc_drift_spec *out, dragarc_e
     return read_with(path, out, sizeof *out, parse_drift, err);
 }
 
+
+/* ---- footprint scenarios ----------------------------------------------------------------------------------- */
+
+/* A list of n numbers at j (field names it) into out. */
+static int read_vector(const cJSON *j, const char *field, int n, double *out, dragarc_error *err)
+{
+    if (!cJSON_IsArray(j) || cJSON_GetArraySize(j) != n)
+        return dragarc_error_set(err, DRAGARC_EINVAL, field, "must be an array of %d numbers", n);
+    int i = 0;
+    for (const cJSON *c = j->child; c; c = c->next, i++) {
+        if (!cJSON_IsNumber(c) || !isfinite(c->valuedouble))
+            return dragarc_error_set(err, DRAGARC_EINVAL, field, "item %d must be a finite number, not %s", i + 1,
+                                     type_name(c));
+        out[i] = c->valuedouble;
+    }
+    return DRAGARC_OK;
+}
+
+static int read_breakup(const cJSON *j, dragarc_breakup *b, dragarc_error *err)
+{
+    static const char *const keys[] = {"latitude", "longitude", "altitude", "speed", "flight_path_angle", "heading",
+                                       "velocity", "spread", "covariance", NULL};
+    static const char *const skeys[] = {"position", "speed", "flight_path_angle", "heading", NULL};
+    const char *p = "breakup";
+    TRY(want_object(j, p, err));
+    TRY(check_keys(j, p, keys, err));
+    TRY(get_number(j, p, "latitude", 1, &b->latitude, NULL, err));
+    TRY(get_number(j, p, "longitude", 1, &b->longitude, NULL, err));
+    TRY(get_number(j, p, "altitude", 1, &b->altitude, NULL, err));
+    const cJSON *v = cJSON_GetObjectItemCaseSensitive(j, "velocity");
+    int has_speed = cJSON_GetObjectItemCaseSensitive(j, "speed") != NULL;
+    if (v && (has_speed || cJSON_GetObjectItemCaseSensitive(j, "flight_path_angle") ||
+              cJSON_GetObjectItemCaseSensitive(j, "heading")))
+        return dragarc_error_set(err, DRAGARC_EINVAL, "breakup.velocity",
+                                 "give either the velocity vector or speed, flight_path_angle and heading, not both");
+    if (v) {
+        TRY(read_vector(v, "breakup.velocity", 3, b->velocity, err));
+    } else {
+        double speed = 0.0, gam = 0.0, psi = 0.0;
+        TRY(get_number(j, p, "speed", 1, &speed, NULL, err));
+        TRY(get_number(j, p, "flight_path_angle", 0, &gam, NULL, err));
+        TRY(get_number(j, p, "heading", 0, &psi, NULL, err));
+        if (!(speed >= 0.0 && speed <= 2e4))
+            return dragarc_error_set(err, DRAGARC_EINVAL, "breakup.speed", "must be 0 to 20000 m/s (got %g)", speed);
+        if (!(gam >= -90.0 && gam <= 90.0))
+            return dragarc_error_set(err, DRAGARC_EINVAL, "breakup.flight_path_angle",
+                                     "must be between -90 and 90 degrees (got %g)", gam);
+        if (!(psi >= -360.0 && psi <= 360.0))
+            return dragarc_error_set(err, DRAGARC_EINVAL, "breakup.heading",
+                                     "must be between -360 and 360 degrees (got %g)", psi);
+        gam *= DRAGARC_DEG, psi *= DRAGARC_DEG;
+        b->velocity[0] = speed * cos(gam) * sin(psi);
+        b->velocity[1] = speed * cos(gam) * cos(psi);
+        b->velocity[2] = speed * sin(gam);
+    }
+    const cJSON *s = cJSON_GetObjectItemCaseSensitive(j, "spread");
+    const cJSON *c = cJSON_GetObjectItemCaseSensitive(j, "covariance");
+    if (s && c)
+        return dragarc_error_set(err, DRAGARC_EINVAL, "breakup.covariance", "give either spread or covariance, not both");
+    if (s) {
+        TRY(want_object(s, "breakup.spread", err));
+        TRY(check_keys(s, "breakup.spread", skeys, err));
+        const cJSON *pos = cJSON_GetObjectItemCaseSensitive(s, "position");
+        if (pos)
+            TRY(read_vector(pos, "breakup.spread.position", 3, b->sd_position, err));
+        TRY(get_number(s, "breakup.spread", "speed", 0, &b->sd_speed, NULL, err));
+        TRY(get_number(s, "breakup.spread", "flight_path_angle", 0, &b->sd_path_angle, NULL, err));
+        TRY(get_number(s, "breakup.spread", "heading", 0, &b->sd_heading, NULL, err));
+        b->sd_path_angle *= DRAGARC_DEG, b->sd_heading *= DRAGARC_DEG;
+    }
+    if (c) {
+        if (!cJSON_IsArray(c) || cJSON_GetArraySize(c) != 6)
+            return dragarc_error_set(err, DRAGARC_EINVAL, "breakup.covariance",
+                                     "must be 6 rows of 6 numbers (east, north, up in m; their velocities in m/s)");
+        int i = 0;
+        for (const cJSON *row = c->child; row; row = row->next, i++) {
+            char f[PATH_MAX_LEN];
+            snprintf(f, sizeof f, "breakup.covariance[%d]", i);
+            TRY(read_vector(row, f, 6, b->covariance + 6 * i, err));
+        }
+        b->covariance_given = 1;
+    }
+    return DRAGARC_OK;
+}
+
+static int read_fragment(const cJSON *j, const char *p, dragarc_fragment_class *c, dragarc_error *err)
+{
+    static const char *const keys[] = {"name", "count", "mass", "area", "ballistic_coefficient", "drag",
+                                       "beta_spread", "delta_v", "source", NULL};
+    static const char *const dkeys[] = {"distribution", "speed", "cone", "axis", NULL};
+    TRY(want_object(j, p, err));
+    TRY(check_keys(j, p, keys, err));
+    TRY(check_source(j, p, err));
+    const char *name = NULL;
+    TRY(get_string(j, p, "name", 0, &name, err));
+    if (name)
+        snprintf(c->name, sizeof c->name, "%s", name);
+    c->count = 1.0;
+    TRY(get_number(j, p, "count", 0, &c->count, NULL, err));
+    TRY(get_number(j, p, "mass", 1, &c->mass, NULL, err));
+    char f[PATH_MAX_LEN];
+    const cJSON *d = cJSON_GetObjectItemCaseSensitive(j, "drag");
+    join(f, sizeof f, p, "drag");
+    if (!d)
+        return dragarc_error_set(err, DRAGARC_EINVAL, f, "is required (e.g. {\"model\": \"constant\", \"cd\": 1.0}, or a "
+                                 "table against Mach number)");
+    TRY(read_drag(d, f, &c->drag, err));
+    int has_area = 0, has_beta = 0;
+    double beta = 0.0;
+    TRY(get_number(j, p, "area", 0, &c->area, &has_area, err));
+    TRY(get_number(j, p, "ballistic_coefficient", 0, &beta, &has_beta, err));
+    join(f, sizeof f, p, "area");
+    if (has_area == has_beta)
+        return dragarc_error_set(err, DRAGARC_EINVAL, f, "give either area or ballistic_coefficient (one of them)");
+    if (has_beta) {
+        join(f, sizeof f, p, "ballistic_coefficient");
+        double cd = dragarc_drag_cd(&c->drag, 1e6, 0.5, 170.0);
+        if (!(beta > 0.0 && beta <= 1e6))
+            return dragarc_error_set(err, DRAGARC_EINVAL, f, "must be above 0 and at most 1e6 kg/m^2 (got %g)", beta);
+        if (!(cd > 0.0 && isfinite(cd)))
+            return dragarc_error_set(err, DRAGARC_EINVAL, f, "needs a drag law with a positive C_D at Mach 0.5");
+        c->area = c->mass / (cd * beta);
+    }
+    TRY(get_number(j, p, "beta_spread", 0, &c->beta_sd, NULL, err));
+    c->cone_half_angle = DRAGARC_PI;
+    const cJSON *dv = cJSON_GetObjectItemCaseSensitive(j, "delta_v");
+    if (dv) {
+        join(f, sizeof f, p, "delta_v");
+        TRY(want_object(dv, f, err));
+        TRY(check_keys(dv, f, dkeys, err));
+        const char *dist = NULL;
+        TRY(get_string(dv, f, "distribution", 1, &dist, err));
+        if (strcmp(dist, "none") == 0)
+            c->dv = DRAGARC_DV_NONE;
+        else if (strcmp(dist, "fixed") == 0)
+            c->dv = DRAGARC_DV_FIXED;
+        else if (strcmp(dist, "uniform") == 0)
+            c->dv = DRAGARC_DV_UNIFORM;
+        else if (strcmp(dist, "maxwellian") == 0)
+            c->dv = DRAGARC_DV_MAXWELLIAN;
+        else {
+            char ff[PATH_MAX_LEN];
+            join(ff, sizeof ff, f, "distribution");
+            return dragarc_error_set(err, DRAGARC_EINVAL, ff,
+                                     "unknown distribution \"%s\" (none, fixed, uniform, maxwellian)", dist);
+        }
+        TRY(get_number(dv, f, "speed", c->dv != DRAGARC_DV_NONE, &c->dv_speed, NULL, err));
+        double cone = 180.0;
+        TRY(get_number(dv, f, "cone", 0, &cone, NULL, err));
+        c->cone_half_angle = cone * DRAGARC_DEG;
+        const cJSON *ax = cJSON_GetObjectItemCaseSensitive(dv, "axis");
+        if (ax) {
+            char ff[PATH_MAX_LEN];
+            join(ff, sizeof ff, f, "axis");
+            TRY(read_vector(ax, ff, 3, c->cone_axis, err));
+            double n = sqrt(c->cone_axis[0] * c->cone_axis[0] + c->cone_axis[1] * c->cone_axis[1] +
+                            c->cone_axis[2] * c->cone_axis[2]);
+            if (!(n > 0.0))
+                return dragarc_error_set(err, DRAGARC_EINVAL, ff, "must not be the zero vector");
+            for (int i = 0; i < 3; i++)
+                c->cone_axis[i] /= n;
+            c->cone_axis_given = 1;
+        }
+    }
+    return DRAGARC_OK;
+}
+
+static int read_footprint(const cJSON *root, dragarc_footprint_spec *sp, const char *base_dir, dragarc_error *err)
+{
+    TRY(read_breakup(cJSON_GetObjectItemCaseSensitive(root, "breakup"), &sp->breakup, err));
+    const cJSON *fr = cJSON_GetObjectItemCaseSensitive(root, "fragments");
+    if (!cJSON_IsArray(fr) || cJSON_GetArraySize(fr) < 1)
+        return dragarc_error_set(err, DRAGARC_EINVAL, "fragments", "must be a non-empty array of fragment classes");
+    int n = cJSON_GetArraySize(fr);
+    if (n > DRAGARC_FOOTPRINT_MAX_CLASSES)
+        return dragarc_error_set(err, DRAGARC_EINVAL, "fragments", "holds %d classes: at most %d", n,
+                                 DRAGARC_FOOTPRINT_MAX_CLASSES);
+    sp->classes = calloc((size_t)n, sizeof *sp->classes);
+    if (!sp->classes)
+        return dragarc_error_set(err, DRAGARC_ENOMEM, "fragments", "out of memory");
+    sp->nclasses = (size_t)n;
+    int i = 0;
+    for (const cJSON *c = fr->child; c; c = c->next, i++) {
+        char f[PATH_MAX_LEN];
+        snprintf(f, sizeof f, "fragments[%d]", i);
+        TRY(read_fragment(c, f, &sp->classes[i], err));
+    }
+    const cJSON *u = cJSON_GetObjectItemCaseSensitive(root, "uncertainty");
+    if (u) {
+        static const char *const ukeys[] = {"wind", NULL};
+        static const char *const wkeys[] = {"speed", "direction", "profiles", NULL};
+        TRY(want_object(u, "uncertainty", err));
+        TRY(check_keys(u, "uncertainty", ukeys, err));
+        const cJSON *w = cJSON_GetObjectItemCaseSensitive(u, "wind");
+        if (w) {
+            TRY(want_object(w, "uncertainty.wind", err));
+            TRY(check_keys(w, "uncertainty.wind", wkeys, err));
+            TRY(get_number(w, "uncertainty.wind", "speed", 0, &sp->wind_spread.speed_sd, NULL, err));
+            TRY(get_number(w, "uncertainty.wind", "direction", 0, &sp->wind_spread.direction_sd, NULL, err));
+            sp->wind_spread.direction_sd *= DRAGARC_DEG;
+            const cJSON *pr = cJSON_GetObjectItemCaseSensitive(w, "profiles");
+            if (pr) {
+                int np = cJSON_IsArray(pr) ? cJSON_GetArraySize(pr) : -1;
+                if (np < 1 || np > 100000)
+                    return dragarc_error_set(err, DRAGARC_EINVAL, "uncertainty.wind.profiles",
+                                             "must be an array of 1 to 100000 wind objects");
+                sp->wind_spread.profiles = calloc((size_t)np, sizeof *sp->wind_spread.profiles);
+                if (!sp->wind_spread.profiles)
+                    return dragarc_error_set(err, DRAGARC_ENOMEM, "uncertainty.wind.profiles", "out of memory");
+                sp->wind_spread.nprofiles = (size_t)np;
+                int k = 0;
+                for (const cJSON *c = pr->child; c; c = c->next, k++) {
+                    char f[PATH_MAX_LEN];
+                    snprintf(f, sizeof f, "uncertainty.wind.profiles[%d]", k);
+                    TRY(read_wind_at(c, f, &sp->wind_spread.profiles[k], err));
+                }
+            }
+        }
+    }
+    sp->samples = 1000, sp->seed = 1;
+    const cJSON *fp = cJSON_GetObjectItemCaseSensitive(root, "footprint");
+    if (fp) {
+        static const char *const fkeys[] = {"samples", "seed", "cell", NULL};
+        double ns = 1000.0, seed = 1.0;
+        TRY(want_object(fp, "footprint", err));
+        TRY(check_keys(fp, "footprint", fkeys, err));
+        TRY(get_number(fp, "footprint", "samples", 0, &ns, NULL, err));
+        TRY(get_number(fp, "footprint", "seed", 0, &seed, NULL, err));
+        TRY(get_number(fp, "footprint", "cell", 0, &sp->cell, NULL, err));
+        if (!(ns >= 1.0 && ns <= DRAGARC_FOOTPRINT_MAX_SAMPLES && ns == floor(ns)))
+            return dragarc_error_set(err, DRAGARC_EINVAL, "footprint.samples", "must be a whole number from 1 to %d "
+                                     "(got %g)", DRAGARC_FOOTPRINT_MAX_SAMPLES, ns);
+        if (!(seed >= 0.0 && seed <= 9007199254740992.0 && seed == floor(seed)))
+            return dragarc_error_set(err, DRAGARC_EINVAL, "footprint.seed", "must be a whole number from 0 to 2^53 "
+                                     "(got %g)", seed);
+        if (!(sp->cell >= 0.0 && sp->cell <= 1e5))
+            return dragarc_error_set(err, DRAGARC_EINVAL, "footprint.cell", "must be 0 (automatic) to 100 km (got %g m)",
+                                     sp->cell);
+        sp->samples = (size_t)ns, sp->seed = (uint64_t)seed;
+    }
+    dragarc_hazard_options *h = &sp->hazard;
+    h->energy_threshold = 14.913998; /* 11 ft lbf: replaced by casualty.h's default when merged */
+    const cJSON *hz = cJSON_GetObjectItemCaseSensitive(root, "hazard");
+    if (hz) {
+        static const char *const hkeys[] = {"energy_threshold", "population", "sheltered_share", "shelter_protection",
+                                            "criterion", NULL};
+        static const char *const pkeys[] = {"density", "file", "background", NULL};
+        TRY(want_object(hz, "hazard", err));
+        TRY(check_keys(hz, "hazard", hkeys, err));
+        TRY(get_number(hz, "hazard", "energy_threshold", 0, &h->energy_threshold, NULL, err));
+        TRY(get_number(hz, "hazard", "sheltered_share", 0, &h->sheltered_share, NULL, err));
+        TRY(get_number(hz, "hazard", "shelter_protection", 0, &h->shelter_protection, NULL, err));
+        TRY(get_number(hz, "hazard", "criterion", 0, &h->criterion, NULL, err));
+        if (!(h->energy_threshold >= 0.0 && h->energy_threshold <= 1e12))
+            return dragarc_error_set(err, DRAGARC_EINVAL, "hazard.energy_threshold", "must be 0 to 1e12 J (got %g)",
+                                     h->energy_threshold);
+        if (!(h->sheltered_share >= 0.0 && h->sheltered_share <= 1.0))
+            return dragarc_error_set(err, DRAGARC_EINVAL, "hazard.sheltered_share", "must be 0 to 1 (got %g)",
+                                     h->sheltered_share);
+        if (!(h->shelter_protection >= 0.0 && h->shelter_protection <= 1.0))
+            return dragarc_error_set(err, DRAGARC_EINVAL, "hazard.shelter_protection", "must be 0 to 1 (got %g)",
+                                     h->shelter_protection);
+        if (!(h->criterion >= 0.0 && h->criterion <= 1.0))
+            return dragarc_error_set(err, DRAGARC_EINVAL, "hazard.criterion",
+                                     "must be 0 (none) to 1 expected casualties (got %g)", h->criterion);
+        const cJSON *pop = cJSON_GetObjectItemCaseSensitive(hz, "population");
+        if (pop) {
+            TRY(want_object(pop, "hazard.population", err));
+            TRY(check_keys(pop, "hazard.population", pkeys, err));
+            const char *file = NULL;
+            int has_density = 0;
+            TRY(get_number(pop, "hazard.population", "density", 0, &h->density, &has_density, err));
+            TRY(get_string(pop, "hazard.population", "file", 0, &file, err));
+            TRY(get_number(pop, "hazard.population", "background", 0, &h->background, NULL, err));
+            if (has_density == (file != NULL))
+                return dragarc_error_set(err, DRAGARC_EINVAL, "hazard.population",
+                                         "give either a uniform density or a file, one of them");
+            if (has_density && !(h->density >= 0.0 && h->density <= 1e6))
+                return dragarc_error_set(err, DRAGARC_EINVAL, "hazard.population.density",
+                                         "must be 0 to 1e6 people per km^2 (got %g)", h->density);
+            if (!(h->background >= 0.0 && h->background <= 1e6))
+                return dragarc_error_set(err, DRAGARC_EINVAL, "hazard.population.background",
+                                         "must be 0 to 1e6 people per km^2 (got %g)", h->background);
+            if (file) {
+                int n2 = file[0] == '/' || !base_dir || !base_dir[0]
+                             ? snprintf(h->population_file, sizeof h->population_file, "%s", file)
+                             : snprintf(h->population_file, sizeof h->population_file, "%s/%s", base_dir, file);
+                if (n2 < 0 || (size_t)n2 >= sizeof h->population_file)
+                    return dragarc_error_set(err, DRAGARC_EINVAL, "hazard.population.file", "path too long");
+            }
+            h->population_given = 1;
+        }
+    }
+    return DRAGARC_OK;
+}
+
+static int parse_footprint(const char *json, const char *base_dir, dragarc_footprint_spec *out, dragarc_error *err)
+{
+    static const char *const keys[] = {"name", "description", "breakup", "fragments", "uncertainty", "footprint",
+                                       "hazard", "environment", "ground", "solver", NULL};
+    memset(out, 0, sizeof *out);
+    dragarc_scenario_default(&out->base);
+    cJSON *root = NULL;
+    int rc = open_root(json, keys, &out->base, &root, err);
+    if (rc != DRAGARC_OK)
+        goto done;
+    if (!cJSON_GetObjectItemCaseSensitive(root, "breakup")) {
+        rc = dragarc_error_set(err, DRAGARC_EINVAL, "breakup", "is required");
+        goto done;
+    }
+    /* a placeholder body and launch, replaced by each sample's, so that the shared rest checks */
+    out->base.projectile.mass = 1.0, out->base.projectile.diameter = 0.1;
+    out->base.projectile.area = 0.25 * DRAGARC_PI * 0.01;
+    out->base.atmosphere.model = DRAGARC_ATMOSPHERE_ISA;
+    out->base.solver.max_time = 36000.0;
+    if ((rc = read_footprint(root, out, base_dir, err)) != DRAGARC_OK)
+        goto done;
+    out->base.launch.height = out->breakup.altitude;
+    if ((rc = read_drop_rest(root, "breakup", &out->base, err)) != DRAGARC_OK)
+        goto done;
+    out->base.projectile.evaporation.enabled = 0;
+    rc = dragarc_footprint_check(out, err);
+done:
+    cJSON_Delete(root);
+    if (rc != DRAGARC_OK)
+        dragarc_footprint_spec_clear(out);
+    return rc;
+}
+
+int dragarc_footprint_spec_parse(const char *json, dragarc_footprint_spec *out, dragarc_error *err)
+{
+    return parse_footprint(json, NULL, out, err);
+}
+
+int dragarc_footprint_spec_read(const char *path, dragarc_footprint_spec *out, dragarc_error *err)
+{
+    memset(out, 0, sizeof *out);
+    char *text = NULL, dir[4096];
+    int rc = read_file_and_folder(path, &text, dir, sizeof dir, err);
+    if (rc != DRAGARC_OK)
+        return rc;
+    rc = parse_footprint(text, dir, out, err);
+    free(text);
+    return rc;
+}

@@ -1,0 +1,143 @@
+/* footprint.h: where the pieces of a vehicle that breaks up in flight come down: Monte Carlo impact points.
+ *
+ * Copyright (C) 2026 the dragarc developers. SPDX-License-Identifier: GPL-3.0-or-later
+ *
+ * A breakup happens above a point on the ground (latitude, longitude) at an altitude, with a velocity. Each
+ * fragment class (count, mass, reference area or ballistic coefficient beta = m / (C_D A), a drag law) is flown
+ * `samples` times from a breakup state drawn about the nominal one, with its own beta drawn about the nominal
+ * (log-normal), plus the velocity the breakup imparts (Delta V: fixed, uniform or Maxwellian in magnitude,
+ * isotropic or in a cone in direction), through a wind drawn about the nominal profile (a speed scale and a
+ * turn) or picked from a set of profiles. Frame: the flight's local one, x east and y north of the point below
+ * the breakup, z up, on a flat Earth with constant gravity (docs/footprint.md says when that is adequate).
+ *
+ * Random numbers: each sample has its own stream, a GSL MT19937 generator seeded from the run's seed, the class
+ * and the sample index (SplitMix64 mixing, 32 bits used by the generator), and draws the same numbers in the same
+ * order whatever it needs; so a sample's flight depends on nothing but those three, and the result is the same
+ * bit for bit for any number of threads.
+ */
+#ifndef DRAGARC_FOOTPRINT_H
+#define DRAGARC_FOOTPRINT_H
+
+#include <stddef.h>
+#include <stdint.h>
+
+#include "dragarc/drag.h"
+#include "dragarc/dragarc.h"
+#include "dragarc/scenario.h"
+#include "dragarc/wind.h"
+
+#ifdef __cplusplus
+extern "C" {
+#endif
+
+#define DRAGARC_FOOTPRINT_MAX_CLASSES 100000
+#define DRAGARC_FOOTPRINT_MAX_SAMPLES 10000000 /* per class */
+#define DRAGARC_FOOTPRINT_MAX_FLIGHTS 20000000 /* classes x samples */
+
+typedef enum dragarc_dv_distribution {
+    DRAGARC_DV_NONE = 0,   /* no velocity from the breakup */
+    DRAGARC_DV_FIXED,      /* |Delta V| = speed */
+    DRAGARC_DV_UNIFORM,    /* |Delta V| uniform on [0, speed] */
+    DRAGARC_DV_MAXWELLIAN  /* each component normal with sd = speed: |Delta V| Maxwell-distributed, mean 2 a sqrt(2/pi) */
+} dragarc_dv_distribution;
+
+typedef struct dragarc_fragment_class {
+    char name[64];
+    double count;            /* real fragments of this class (> 0; a whole number in practice) */
+    double mass;             /* kg */
+    double area;             /* m^2, the reference area of the drag law (from beta when beta was given) */
+    dragarc_drag drag;       /* owned: a constant C_D or a table against Mach number (or any drag.h law) */
+    double beta_sd;          /* sd of ln beta: the log-normal spread of the ballistic coefficient; 0: none */
+    dragarc_dv_distribution dv;
+    double dv_speed;         /* m/s: the fixed magnitude, the uniform maximum, or the Maxwellian sd per component */
+    double cone_half_angle;  /* rad, (0, pi]: pi is isotropic */
+    int cone_axis_given;     /* 0: the cone is about the breakup velocity */
+    double cone_axis[3];     /* unit vector east, north, up */
+} dragarc_fragment_class;
+
+typedef struct dragarc_breakup {
+    double latitude, longitude; /* deg, of the point on the ground below the breakup (the frame's origin) */
+    double altitude;            /* m above the site datum */
+    double velocity[3];         /* m/s, east, north, up */
+    /* spreads (1 sd), used when covariance_given is 0 */
+    double sd_position[3];      /* m east, north, up */
+    double sd_speed;            /* m/s */
+    double sd_path_angle;       /* rad, of the flight-path angle */
+    double sd_heading;          /* rad */
+    int covariance_given;
+    double covariance[36];      /* 6 x 6, row-major, of (east, north, up, v_east, v_north, v_up), SI */
+} dragarc_breakup;
+
+typedef struct dragarc_wind_spread {
+    double speed_sd;            /* sd of a factor 1 + z sd on every speed of the profile (0: none) */
+    double direction_sd;        /* rad, sd of a turn of the whole profile */
+    size_t nprofiles;           /* > 0: each sample picks one of these at random instead of the nominal */
+    dragarc_wind *profiles;     /* owned */
+} dragarc_wind_spread;
+
+/* What the scenario's `hazard` object asks (docs/footprint.md); the casualty model is casualty.h's. */
+typedef struct dragarc_hazard_options {
+    double energy_threshold;    /* J: fragments landing with less are not counted as hazardous */
+    int population_given;       /* 0: no casualty expectation */
+    double density;             /* people per km^2, uniform (when no file) */
+    char population_file[1024]; /* a CSV grid of people per km^2 (resolved against the scenario's folder), or "" */
+    double background;          /* people per km^2 outside the file's grid */
+    double sheltered_share;     /* 0 to 1 */
+    double shelter_protection;  /* 0 to 1 */
+    double criterion;           /* the user's E_c criterion to compare with; 0: none */
+} dragarc_hazard_options;
+
+typedef struct dragarc_footprint_spec {
+    dragarc_scenario base;      /* environment, ground and solver; the projectile and launch are set per sample */
+    dragarc_breakup breakup;
+    size_t nclasses;
+    dragarc_fragment_class *classes; /* owned */
+    dragarc_wind_spread wind_spread;
+    size_t samples;             /* per class */
+    uint64_t seed;
+    double cell;                /* m, the density grid's cell; 0: chosen from the scatter */
+    dragarc_hazard_options hazard;
+} dragarc_footprint_spec;
+
+/* One Monte Carlo flight. */
+typedef struct dragarc_impact {
+    uint32_t cls;               /* class index */
+    uint32_t sample;            /* sample index within the class */
+    int status;                 /* DRAGARC_OK, DRAGARC_ENOLAND (still aloft at solver.max_time) or another error */
+    double weight;              /* real fragments this sample stands for: count / samples */
+    double east, north;         /* m, impact point in the frame (breakup position offset included) */
+    double time;                /* s after the breakup */
+    double speed;               /* m/s, ground-relative, at impact */
+    double angle;               /* rad below horizontal */
+    double energy;              /* J, 1/2 m v^2 */
+    double beta;                /* kg/m^2, this sample's ballistic coefficient (C_D at its first point) */
+} dragarc_impact;
+
+/* Check the spec (the base scenario, breakup, classes, spreads, sample counts); err->field is its path in the
+ * scenario file ("breakup.altitude", "fragments[2].mass"). */
+int dragarc_footprint_check(const dragarc_footprint_spec *spec, dragarc_error *err);
+
+/* Fly every sample of every class into out (nclasses x samples entries, class-major; the caller allocates).
+ * Runs in parallel with OpenMP; the result does not depend on the thread count. A failed flight is recorded in
+ * its entry's status and does not stop the run. `progress`, when not NULL, is called from one thread now and then
+ * with the flights done and the total (for a progress bar); it must not call into dragarc. */
+int dragarc_footprint_run(const dragarc_footprint_spec *spec, dragarc_impact *out,
+                          void (*progress)(size_t done, size_t total, void *user), void *user, dragarc_error *err);
+
+/* The nominal C_D of a class (its drag law at Mach 0.5 and Re 1e6, for the ballistic coefficient) and the
+ * ballistic coefficient m / (C_D A). */
+double dragarc_fragment_beta(const dragarc_fragment_class *c);
+
+/* The stream seed of one sample (SplitMix64 of the run seed, class and sample; Steele, Lea & Flood 2014). */
+uint64_t dragarc_footprint_stream_seed(uint64_t seed, uint32_t cls, uint32_t sample);
+
+void dragarc_footprint_spec_clear(dragarc_footprint_spec *spec);
+
+/* A footprint scenario file (docs/footprint.md; src/io/scenario_json.c). */
+int dragarc_footprint_spec_read(const char *path, dragarc_footprint_spec *out, dragarc_error *err);
+int dragarc_footprint_spec_parse(const char *json, dragarc_footprint_spec *out, dragarc_error *err);
+
+#ifdef __cplusplus
+}
+#endif
+#endif
