@@ -118,9 +118,10 @@ typedef struct dragarc_scatter_grid {
  * 3.504 sigma_2 n^(-1/4), sigma_2 = sqrt of the covariance's smaller eigenvalue and n the number of points of
  * positive weight, but never under 1/1000 of the longer side of the points' extent (it needs the covariance:
  * a total weight above 1). The grid is aligned on multiples of the cell and covers the points of positive
- * weight with one empty cell on every side. Fills *g, which the caller frees with dragarc_scatter_grid_clear (also after a failure). DRAGARC_EINVAL naming
- * "east[i]", "north[i]", "weight[i]", "weight", "cell" (not finite, negative, automatic with every point at one
- * place, or a grid over DRAGARC_SCATTER_GRID_MAX_CELLS cells), "density"; DRAGARC_ENOMEM. */
+ * weight with one empty cell on every side. Fills *g, which the caller frees with dragarc_scatter_grid_clear
+ * (also after a failure). DRAGARC_EINVAL naming "east[i]", "north[i]", "weight[i]", "weight", "cell" (not
+ * finite, negative, automatic with every point at one place, or a grid over DRAGARC_SCATTER_GRID_MAX_CELLS
+ * cells), "density"; DRAGARC_ENOMEM. */
 int dragarc_scatter_grid_build(size_t n, const double *east, const double *north, const double *weight, double cell,
                                dragarc_scatter_density density, dragarc_scatter_grid *g, dragarc_error *err);
 
