@@ -52,6 +52,20 @@ static inline void check_record(int ok, const char *file, int line, const char *
         check_record(fabs(g_ - w_) <= r_ * fabs(w_), __FILE__, __LINE__, m_);                                   \
     } while (0)
 
+/* A call refused with status `code`, its error naming the field want_field exactly and its message holding
+ * want_text; prints what came instead. Needs the dragarc_error e filled when rc is not 0. */
+static inline void check_refused_(int rc, int code, const char *field, const char *message, const char *want_field,
+                                  const char *want_text, const char *file, int line)
+{
+    int ok = rc == code && strcmp(field, want_field) == 0 && strstr(message, want_text) != NULL;
+    char m_[1024];
+    snprintf(m_, sizeof m_, "got status %d, field '%s', message '%s'; want %d, '%s', '%s'", rc, rc ? field : "",
+             rc ? message : "", code, want_field, want_text);
+    check_record(ok, file, line, m_);
+}
+#define CHECK_ERROR(rc, code, e, want_field, want_text)                                                       \
+    check_refused_((rc), (code), (e).field, (e).message, (want_field), (want_text), __FILE__, __LINE__)
+
 static inline int check_summary(void)
 {
     printf("%d passed, %d failed\n", check_passed, check_failed);

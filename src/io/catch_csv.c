@@ -18,11 +18,10 @@
 
 #include "dragarc/catch_data.h"
 #include "dragarc/output.h"
+#include "io/csv_in.h"
 
 enum { COL_DEPTH, COL_X, COL_Y, COL_AREA, NCOLS };
 static const char *const COL_NAMES[NCOLS] = {"depth", "x", "y", "area"};
-
-#define MAX_FIELDS 64 /* columns in one row */
 
 void dragarc_catches_clear(dragarc_catches *c)
 {
@@ -34,69 +33,12 @@ void dragarc_catches_clear(dragarc_catches *c)
     memset(c, 0, sizeof *c);
 }
 
-/* One line's fields, cut in place (the commas and the closing quotes become NULs). Returns the count, or
- * MAX_FIELDS + 1 when there are more. */
-static size_t split(char *line, char **field)
-{
-    size_t n = 0;
-    char *p = line;
-    for (;;) {
-        while (*p == ' ' || *p == '\t')
-            p++;
-        char *start = p, *end;
-        if (*p == '"') {
-            start = ++p;
-            while (*p && *p != '"')
-                p++;
-            end = p;
-            if (*p == '"')
-                p++;
-            while (*p && *p != ',')
-                p++;
-        } else {
-            while (*p && *p != ',')
-                p++;
-            end = p;
-            while (end > start && (end[-1] == ' ' || end[-1] == '\t'))
-                end--;
-        }
-        if (n == MAX_FIELDS)
-            return MAX_FIELDS + 1;
-        field[n++] = start;
-        int more = *p == ',';
-        *end = '\0';
-        if (!more)
-            return n;
-        p++;
-    }
-}
+static const dragarc_csv_columns COLUMNS = {COL_NAMES, NCOLS, "depth, and optionally x and y, area"};
 
-static int same_name(const char *a, const char *b)
+/* The header names depth, and x with y or neither. */
+static int check_header(const int *where, const char *at, void *ctx, dragarc_error *err)
 {
-    for (; *a && *b; a++, b++) {
-        char ca = *a >= 'A' && *a <= 'Z' ? (char)(*a - 'A' + 'a') : *a;
-        if (ca != *b)
-            return 0;
-    }
-    return *a == *b;
-}
-
-/* The header: which field holds each column (-1: absent). */
-static int read_header(char **field, size_t nf, const char *at, int *where, dragarc_error *err)
-{
-    for (int k = 0; k < NCOLS; k++)
-        where[k] = -1;
-    for (size_t f = 0; f < nf; f++) {
-        int k = 0;
-        while (k < NCOLS && !same_name(field[f], COL_NAMES[k]))
-            k++;
-        if (k == NCOLS)
-            return dragarc_error_set(err, DRAGARC_EINVAL, at, "unknown column '%.40s' (the columns are depth, and "
-                                     "optionally x and y, area)", field[f]);
-        if (where[k] >= 0)
-            return dragarc_error_set(err, DRAGARC_EINVAL, at, "column '%s' appears twice", COL_NAMES[k]);
-        where[k] = (int)f;
-    }
+    (void)ctx;
     if (where[COL_DEPTH] < 0)
         return dragarc_error_set(err, DRAGARC_EINVAL, at, "no depth column: the header must name one (depth, and "
                                  "optionally x and y, area)");
@@ -109,20 +51,21 @@ static int read_header(char **field, size_t nf, const char *at, int *where, drag
 /* The value of column k on a row, checked. */
 static int read_value(const char *text, int k, size_t line, double *out, dragarc_error *err)
 {
-    char at[48];
-    snprintf(at, sizeof at, "line %zu: %s", line, COL_NAMES[k]);
-    char *end;
-    double v = strtod(text, &end);
-    if (end == text || *end != '\0' || !isfinite(v))
-        return dragarc_error_set(err, DRAGARC_EINVAL, at, "not a number ('%.40s')", text);
+    double v;
+    int rc = dragarc_csv_number(text, line, COL_NAMES[k], &v, err);
+    if (rc != DRAGARC_OK)
+        return rc;
     if (k == COL_DEPTH || k == COL_AREA) {
         dragarc_error why;
-        int rc = dragarc_uniformity_check_catch(k == COL_DEPTH ? v : 0.0, k == COL_AREA ? v : NAN, &why);
-        if (rc != DRAGARC_OK)
+        rc = dragarc_uniformity_check_catch(k == COL_DEPTH ? v : 0.0, k == COL_AREA ? v : NAN, &why);
+        if (rc != DRAGARC_OK) {
+            char at[48];
+            snprintf(at, sizeof at, "line %zu: %s", line, COL_NAMES[k]);
             return dragarc_error_set(err, rc, at, "%s", why.message);
+        }
     }
     *out = v;
-    return DRAGARC_OK;
+    return rc;
 }
 
 /* Room for at least n + 1 catches in every column the file has. */
@@ -144,48 +87,34 @@ static int grow(dragarc_catches *c, size_t *cap, const int *where, dragarc_error
     return DRAGARC_OK;
 }
 
+/* The catches read so far. */
+typedef struct reading {
+    dragarc_catches *c;
+    size_t cap;
+} reading;
+
+static int read_row(char **field, const int *where, size_t line, void *ctx, dragarc_error *err)
+{
+    reading *r = ctx;
+    dragarc_catches *c = r->c;
+    int rc = grow(c, &r->cap, where, err);
+    double *cols[NCOLS] = {c->depth, c->x, c->y, c->area};
+    for (int k = 0; k < NCOLS && rc == DRAGARC_OK; k++)
+        if (where[k] >= 0)
+            rc = read_value(field[where[k]], k, line, &cols[k][c->n], err);
+    c->n += rc == DRAGARC_OK;
+    return rc;
+}
+
 int dragarc_catches_parse(const char *text, dragarc_catches *c, dragarc_error *err)
 {
     memset(c, 0, sizeof *c);
-    if (strncmp(text, "\xEF\xBB\xBF", 3) == 0)
-        text += 3;
-    char *copy = strdup(text);
+    char *copy = strdup(dragarc_csv_skip_bom(text));
     if (!copy)
         return dragarc_error_set(err, DRAGARC_ENOMEM, "", "out of memory reading the catches");
-    int where[NCOLS], header = 0, rc = DRAGARC_OK;
-    size_t line = 0, cap = 0, columns = 0;
-    char *field[MAX_FIELDS];
-    for (char *p = copy, *next; p && rc == DRAGARC_OK; p = next) {
-        line++;
-        next = strchr(p, '\n');
-        if (next)
-            *next++ = '\0';
-        size_t len = strlen(p);
-        if (len > 0 && p[len - 1] == '\r')
-            p[--len] = '\0';
-        if (strspn(p, " \t") == len)
-            continue; /* blank */
-        size_t nf = split(p, field);
-        char at[32];
-        snprintf(at, sizeof at, "line %zu", line);
-        if (nf > MAX_FIELDS) {
-            rc = dragarc_error_set(err, DRAGARC_EINVAL, at, "more than %d fields", MAX_FIELDS);
-        } else if (!header) {
-            rc = read_header(field, nf, at, where, err);
-            header = 1;
-            columns = nf;
-        } else if (nf != columns) {
-            rc = dragarc_error_set(err, DRAGARC_EINVAL, at, "%zu fields, but the header names %zu column%s%s", nf,
-                                   columns, columns == 1 ? "" : "s",
-                                   nf > columns ? " (a decimal comma? write 1.5, not 1,5)" : "");
-        } else if ((rc = grow(c, &cap, where, err)) == DRAGARC_OK) {
-            double *cols[NCOLS] = {c->depth, c->x, c->y, c->area};
-            for (int k = 0; k < NCOLS && rc == DRAGARC_OK; k++)
-                if (where[k] >= 0)
-                    rc = read_value(field[where[k]], k, line, &cols[k][c->n], err);
-            c->n += rc == DRAGARC_OK;
-        }
-    }
+    reading r = {c, 0};
+    int header;
+    int rc = dragarc_csv_read(copy, &COLUMNS, check_header, read_row, &r, &header, err);
     free(copy);
     if (rc == DRAGARC_OK && !header)
         rc = dragarc_error_set(err, DRAGARC_EINVAL, "", "the file is empty: expected a header row naming the columns "

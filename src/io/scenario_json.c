@@ -16,6 +16,7 @@
 #include "core/constants.h"
 #include "dragarc/scenario.h"
 #include "dragarc/drift.h"
+#include "dragarc/casualty.h"
 #include "dragarc/footprint.h"
 #include "dragarc/sprinkler.h"
 #include "dragarc/output.h"
@@ -1809,7 +1810,7 @@ static int read_footprint(const cJSON *root, dragarc_footprint_spec *sp, const c
         sp->samples = (size_t)ns, sp->seed = (uint64_t)seed;
     }
     dragarc_hazard_options *h = &sp->hazard;
-    h->energy_threshold = 14.913998; /* 11 ft lbf: replaced by casualty.h's default when merged */
+    h->energy_threshold = DRAGARC_HAZARD_ENERGY_DEFAULT;
     const cJSON *hz = cJSON_GetObjectItemCaseSensitive(root, "hazard");
     if (hz) {
         static const char *const hkeys[] = {"energy_threshold", "population", "sheltered_share", "shelter_protection",
