@@ -42,7 +42,8 @@ enum {
     DRAGARC_NOTE_HIGH_ENERGY = 1u << 4,   /* impact energy >= 15 J */
     DRAGARC_NOTE_BALL = 1u << 5,          /* a spinning or bouncing ball: a sports flight near people */
     DRAGARC_NOTE_IRRIGATION = 1u << 6,    /* a sprinkler's pattern: irrigation design */
-    DRAGARC_NOTE_SPRAY_DRIFT = 1u << 7    /* a spray drift estimate: pesticide and buffer-zone rules */
+    DRAGARC_NOTE_SPRAY_DRIFT = 1u << 7,   /* a spray drift estimate: pesticide and buffer-zone rules */
+    DRAGARC_NOTE_DEBRIS = 1u << 8         /* a debris footprint: range-safety authority and regulations decide */
 };
 
 /* One landing of a ball on a ground surface (ground.surface): the state just before and just after it. */

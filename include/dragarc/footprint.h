@@ -21,8 +21,11 @@
 #include <stddef.h>
 #include <stdint.h>
 
+#include "dragarc/casualty.h"
 #include "dragarc/drag.h"
 #include "dragarc/dragarc.h"
+#include "dragarc/population.h"
+#include "dragarc/scatter.h"
 #include "dragarc/scenario.h"
 #include "dragarc/wind.h"
 
@@ -110,7 +113,8 @@ typedef struct dragarc_impact {
     double speed;               /* m/s, ground-relative, at impact */
     double angle;               /* rad below horizontal */
     double energy;              /* J, 1/2 m v^2 */
-    double beta;                /* kg/m^2, this sample's ballistic coefficient (C_D at its first point) */
+    double beta;                /* kg/m^2, this sample's ballistic coefficient (C_D at Mach 0.5) */
+    double area;                /* m^2, this sample's reference area (the class's, scaled by the beta draw) */
 } dragarc_impact;
 
 /* Check the spec (the base scenario, breakup, classes, spreads, sample counts); err->field is its path in the
@@ -130,6 +134,51 @@ double dragarc_fragment_beta(const dragarc_fragment_class *c);
 
 /* The stream seed of one sample (SplitMix64 of the run seed, class and sample; Steele, Lea & Flood 2014). */
 uint64_t dragarc_footprint_stream_seed(uint64_t seed, uint32_t cls, uint32_t sample);
+
+/* ---- the summary --------------------------------------------------------------------------------------- */
+
+/* Probabilities of the downrange and crossrange quantiles: the central 90 %, 99 % and 99.9 % and the median. */
+#define DRAGARC_FOOTPRINT_NQ 7
+extern const double dragarc_footprint_quantile_probs[DRAGARC_FOOTPRINT_NQ]; /* 0.0005, 0.005, 0.05, 0.5, ... */
+/* The contours: the highest-density regions holding these shares of the fragments. */
+#define DRAGARC_FOOTPRINT_NREGIONS 3
+extern const double dragarc_footprint_region_probs[DRAGARC_FOOTPRINT_NREGIONS]; /* 0.9, 0.99, 0.999 */
+
+/* One fragment class, or all of them together. Statistics are weighted by the real fragments each sample stands
+ * for and taken over the flights that landed. */
+typedef struct dragarc_footprint_group {
+    size_t flights, landed;      /* samples flown, and landed (the rest failed or stayed aloft) */
+    double fragments;            /* real fragments landed (sum of weights) */
+    int moments_ok;              /* mean and covariance computed (needs a total weight above 1) */
+    double mean[2], cov[3];      /* m, m^2: east, north; ee, en, nn */
+    int ellipses_ok;             /* 0 when the covariance is singular (points on a line or at one place) */
+    dragarc_scatter_ellipse ellipse[3]; /* 1, 2 and 3 sigma */
+    double inside[3];            /* the weighted share of the impacts inside each ellipse */
+    double down[DRAGARC_FOOTPRINT_NQ], cross[DRAGARC_FOOTPRINT_NQ]; /* m, along the breakup heading and right of it */
+    double speed_median, speed_max;   /* m/s */
+    double energy_mean, energy_median, energy_max; /* J */
+    double time_median;          /* s */
+    double hazardous_share;      /* of the landed fragments, at or above the hazard energy */
+    double expected_casualties;  /* E_c of this class (0 without a population) */
+} dragarc_footprint_group;
+
+typedef struct dragarc_footprint_summary {
+    double azimuth;              /* rad, downrange: the breakup heading (north when it falls straight down) */
+    size_t ngroups;              /* classes + 1: the last is all fragments together */
+    dragarc_footprint_group *groups; /* owned */
+    int grid_ok;
+    dragarc_scatter_grid grid;   /* fragments per km^2, all classes */
+    dragarc_scatter_region region[DRAGARC_FOOTPRINT_NREGIONS];
+    int casualty_done;
+    dragarc_casualty_result casualty; /* over all classes */
+    char note[256];              /* why something was left out (a singular covariance, too few landings), or "" */
+} dragarc_footprint_summary;
+
+/* Summarise the impacts (nclasses x samples, from dragarc_footprint_run). pop may be NULL: no E_c. The person is
+ * the default of casualty.h. Fills *out (free with dragarc_footprint_summary_clear, also after failure). */
+int dragarc_footprint_summarise(const dragarc_footprint_spec *spec, const dragarc_impact *impacts,
+                                const dragarc_population *pop, dragarc_footprint_summary *out, dragarc_error *err);
+void dragarc_footprint_summary_clear(dragarc_footprint_summary *s);
 
 void dragarc_footprint_spec_clear(dragarc_footprint_spec *spec);
 

@@ -141,6 +141,27 @@ struct dragarc_drift_result;
 char *dragarc_drift_json(const struct dragarc_drift_spec *spec, const struct dragarc_drift_result *r);
 int dragarc_drift_write_csv(FILE *fp, const struct dragarc_drift_result *r, dragarc_error *err);
 
+/* A footprint's result as one JSON document (SI units, angles in degrees): the breakup, every class and all
+ * fragments together (mean impact with its latitude and longitude, covariance, 1-3 sigma ellipses, downrange and
+ * crossrange quantiles, impact speeds and energies, the hazardous share, E_c), the contours, the published
+ * criteria (as references), the cautions. Caller frees with free(); NULL when out of memory. */
+struct dragarc_footprint_spec;
+struct dragarc_footprint_summary;
+struct dragarc_impact;
+char *dragarc_footprint_json(const struct dragarc_footprint_spec *spec, const struct dragarc_impact *impacts,
+                             const struct dragarc_footprint_summary *s);
+/* Every sample's impact as CSV: class,sample,outcome,east_m,north_m,longitude,latitude,impact_speed_m_s,
+ * energy_j,time_s,fragments (the empty string where a flight did not land). */
+int dragarc_footprint_write_csv(FILE *fp, const struct dragarc_footprint_spec *spec,
+                                const struct dragarc_impact *impacts, dragarc_error *err);
+/* The footprint as an RFC 7946 FeatureCollection written to path (src/io/footprint_geojson.c): the breakup point,
+ * the impact points (at most DRAGARC_FOOTPRINT_GEOJSON_POINTS, evenly taken), the 1 and 3 sigma ellipses of every
+ * class and of all fragments, and the contours. */
+#define DRAGARC_FOOTPRINT_GEOJSON_POINTS 20000
+int dragarc_footprint_write_geojson(const char *path, const struct dragarc_footprint_spec *spec,
+                                    const struct dragarc_impact *impacts, const struct dragarc_footprint_summary *s,
+                                    dragarc_error *err);
+
 char *dragarc_atmosphere_json(const dragarc_atmosphere *atm, const double *altitudes, const dragarc_air *levels,
                               size_t n, const dragarc_display *d);
 

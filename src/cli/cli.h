@@ -19,6 +19,10 @@ enum { EXIT_OK = 0, EXIT_NO_SOLUTION = 1, EXIT_BAD_INPUT = 2, EXIT_FAILED = 3 };
  * the exit status that goes with err->code. */
 int cli_report(const char *where, const dragarc_error *err);
 
+/* Print a JSON document on stdout and free it; NULL (out of memory while building it) is reported against
+ * `where`. Returns the exit status. */
+int cli_emit_json(char *text, const char *where);
+
 /* Print "dragarc: message" for a usage error and return EXIT_BAD_INPUT. */
 int cli_usage_error(const char *cmd, const char *fmt, ...) __attribute__((format(printf, 2, 3)));
 
@@ -108,6 +112,7 @@ int cmd_demo(int argc, char **argv);
 int cmd_table(int argc, char **argv);
 int cmd_sprinkler(int argc, char **argv);
 int cmd_drift(int argc, char **argv);
+int cmd_footprint(int argc, char **argv);
 int cmd_optimize(int argc, char **argv);
 int cmd_uniformity(int argc, char **argv);
 

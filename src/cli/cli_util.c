@@ -19,6 +19,18 @@
 #define DEG (180.0 / 3.14159265358979323846)
 #define RPM (60.0 / (2.0 * 3.14159265358979323846)) /* rpm per rad/s */
 
+int cli_emit_json(char *text, const char *where)
+{
+    if (!text) {
+        dragarc_error err;
+        dragarc_error_set(&err, DRAGARC_ENOMEM, "", "out of memory writing JSON");
+        return cli_report(where, &err);
+    }
+    puts(text);
+    free(text);
+    return EXIT_OK;
+}
+
 int cli_report(const char *where, const dragarc_error *err)
 {
     fputs("dragarc: ", stderr);

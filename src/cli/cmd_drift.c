@@ -89,16 +89,9 @@ int cmd_drift(int argc, char **argv)
     }
     if (status == EXIT_OK && csv)
         status = cli_write_output("--csv", csv, write_csv, &r);
-    if (status == EXIT_OK && json) {
-        char *text = dragarc_drift_json(&spec, &r);
-        if (text) {
-            puts(text);
-            free(text);
-        } else {
-            dragarc_error_set(&err, DRAGARC_ENOMEM, "", "out of memory writing JSON");
-            status = cli_report(path, &err);
-        }
-    } else if (status == EXIT_OK) {
+    if (status == EXIT_OK && json)
+        status = cli_emit_json(dragarc_drift_json(&spec, &r), path);
+    else if (status == EXIT_OK) {
         print_summary(&spec, &r);
     }
     dragarc_drift_clear(&r);

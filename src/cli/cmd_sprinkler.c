@@ -120,16 +120,9 @@ int cmd_sprinkler(int argc, char **argv)
         status = cli_write_output("--csv", csv, write_profile, &o);
     if (status == EXIT_OK && grid)
         status = cli_write_output("--grid", grid, write_grid, &o);
-    if (status == EXIT_OK && json) {
-        char *text = dragarc_sprinkler_json(&spec, classes, &r);
-        if (text) {
-            puts(text);
-            free(text);
-        } else {
-            dragarc_error_set(&err, DRAGARC_ENOMEM, "", "out of memory writing JSON");
-            status = cli_report(path, &err);
-        }
-    } else if (status == EXIT_OK) {
+    if (status == EXIT_OK && json)
+        status = cli_emit_json(dragarc_sprinkler_json(&spec, classes, &r), path);
+    else if (status == EXIT_OK) {
         print_summary(&spec, classes, &r);
     }
     dragarc_sprinkler_clear(&r);

@@ -22,6 +22,8 @@ static const char USAGE[] =
     "                        day's weather at a site (--temperature, --pressure, --relative-humidity)\n"
     "  sprinkler SCENARIO    a sprinkler's drops: where each size lands, the application-rate pattern (mm/h)\n"
     "  drift SCENARIO        spray drift: the deposit per metre downwind, the airborne share, drift distances\n"
+    "  footprint SCENARIO    a breakup's debris by Monte Carlo: impact ellipses, contours, energies, casualty\n"
+    "                        expectation; JSON, CSV points, GeoJSON\n"
     "  uniformity CATCH.csv  how evenly a catch-can test was watered: Christiansen's CU, the\n"
     "                        low-quarter DU, CV\n"
     "  demo                  fly built-in example scenarios and explain what they show\n"
@@ -82,6 +84,8 @@ static int run(int argc, char **argv)
         return cmd_sprinkler(argc - 1, argv + 1);
     if (strcmp(cmd, "drift") == 0)
         return cmd_drift(argc - 1, argv + 1);
+    if (strcmp(cmd, "footprint") == 0)
+        return cmd_footprint(argc - 1, argv + 1);
     fprintf(stderr, "dragarc: unknown command '%s' (see 'dragarc --help')\n", cmd);
     return EXIT_BAD_INPUT;
 }

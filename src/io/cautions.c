@@ -34,6 +34,12 @@ static const char DRIFT[] =
     "Pesticide and other spray applications follow the product label, buffer-zone rules and local regulations; "
     "this drift estimate (one nozzle, steady wind without turbulence, flat open ground) does not replace them or "
     "field measurement.";
+static const char DEBRIS[] =
+    "Debris footprints come from point-mass fragments with the spreads given: real breakups also shed pieces that "
+    "glide, tumble, burn or explode, and fragments can slide and bounce after impact. Hazard areas, evacuation, "
+    "sheltering and the acceptability of a risk are decided by the range's safety authority, the applicable "
+    "regulations and licensed practice; the published criteria quoted are references for comparison, not "
+    "approval.";
 static const char DENSE[] =
     "The fluid's density is more than 1 % of the body's: buoyancy is included, but added mass and unsteady "
     "(history) forces are not, so the acceleration phase is only approximate.";
@@ -87,6 +93,8 @@ size_t dragarc_cautions_notes(unsigned notes, const char **out, size_t max)
         all[n++] = IRRIGATION;
     if (notes & DRAGARC_NOTE_SPRAY_DRIFT)
         all[n++] = DRIFT;
+    if (notes & DRAGARC_NOTE_DEBRIS)
+        all[n++] = DEBRIS;
     size_t k = n < max ? n : max;
     for (size_t i = 0; i < k; i++)
         out[i] = all[i];

@@ -3,10 +3,13 @@
  * SPDX-License-Identifier: GPL-3.0-or-later
  */
 #include <errno.h>
+#include <math.h>
 #include <string.h>
 
 #include "core/constants.h"
 #include "dragarc/drift.h"
+#include "dragarc/footprint.h"
+#include "dragarc/geodesy.h"
 #include "dragarc/output.h"
 #include "dragarc/sprinkler.h"
 
@@ -124,3 +127,29 @@ int dragarc_drift_write_csv(FILE *fp, const dragarc_drift_result *r, dragarc_err
     return csv_done(fp, err);
 }
 
+
+int dragarc_footprint_write_csv(FILE *fp, const dragarc_footprint_spec *spec, const dragarc_impact *impacts,
+                                dragarc_error *err)
+{
+    fputs("class,sample,outcome,east_m,north_m,longitude,latitude,impact_speed_m_s,energy_j,time_s,fragments\n", fp);
+    const size_t total = spec->nclasses * spec->samples;
+    for (size_t k = 0; k < total; k++) {
+        const dragarc_impact *o = &impacts[k];
+        const char *outcome = o->status == DRAGARC_OK ? "landed" : o->status == DRAGARC_ENOLAND ? "aloft" : "failed";
+        double lat = NAN, lon = NAN;
+        if (o->status == DRAGARC_OK &&
+            dragarc_geo_from_local(spec->breakup.latitude, spec->breakup.longitude, o->east, o->north, &lat, &lon,
+                                   NULL) != DRAGARC_OK)
+            lat = lon = NAN;
+        fprintf(fp, "%u,%u,%s", (unsigned)o->cls + 1, (unsigned)o->sample + 1, outcome);
+        double landed = o->status == DRAGARC_OK ? 1.0 : NAN;
+        double v[8] = {o->east * landed, o->north * landed, lon, lat, o->speed * landed, o->energy * landed,
+                       o->time * landed, o->weight};
+        for (int i = 0; i < 8; i++) {
+            fputc(',', fp);
+            dragarc_number_write(fp, v[i]);
+        }
+        fputc('\n', fp);
+    }
+    return csv_done(fp, err);
+}

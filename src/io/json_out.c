@@ -15,6 +15,8 @@
 #include "dragarc/cautions.h"
 #include "dragarc/catch_data.h"
 #include "dragarc/drift.h"
+#include "dragarc/footprint.h"
+#include "dragarc/geodesy.h"
 #include "dragarc/optimize.h"
 #include "dragarc/sprinkler.h"
 #include "dragarc/output.h"
@@ -493,3 +495,146 @@ char *dragarc_uniformity_json(const char *file, const dragarc_catches *c, const 
     return finish(doc);
 }
 
+
+/* The east and north of a point as an object, with its latitude and longitude when they can be had. */
+static cJSON *place(const dragarc_footprint_spec *spec, double east, double north)
+{
+    cJSON *o = cJSON_CreateObject();
+    double lat = NAN, lon = NAN;
+    if (!(isfinite(east) && isfinite(north)) ||
+        dragarc_geo_from_local(spec->breakup.latitude, spec->breakup.longitude, east, north, &lat, &lon, NULL) !=
+            DRAGARC_OK)
+        lat = lon = NAN;
+    add_num(o, "east", east);
+    add_num(o, "north", north);
+    add_num(o, "latitude", lat);
+    add_num(o, "longitude", lon);
+    return o;
+}
+
+static cJSON *footprint_group(const dragarc_footprint_spec *spec, const dragarc_footprint_group *g, int hazard)
+{
+    cJSON *o = cJSON_CreateObject();
+    cJSON_AddNumberToObject(o, "flights", (double)g->flights);
+    cJSON_AddNumberToObject(o, "landed", (double)g->landed);
+    add_num(o, "fragments", g->fragments);
+    if (g->moments_ok) {
+        cJSON_AddItemToObject(o, "mean_impact", place(spec, g->mean[0], g->mean[1]));
+        cJSON *c = cJSON_AddObjectToObject(o, "covariance");
+        add_num(c, "east_east", g->cov[0]);
+        add_num(c, "east_north", g->cov[1]);
+        add_num(c, "north_north", g->cov[2]);
+    }
+    if (g->ellipses_ok) {
+        cJSON *el = cJSON_AddArrayToObject(o, "ellipses");
+        for (int k = 0; k < 3; k++) {
+            cJSON *e = cJSON_CreateObject();
+            add_num(e, "sigma", g->ellipse[k].k_sigma);
+            add_num(e, "probability", g->ellipse[k].probability);
+            add_num(e, "inside", g->inside[k]);
+            add_num(e, "semi_major", g->ellipse[k].semi_major);
+            add_num(e, "semi_minor", g->ellipse[k].semi_minor);
+            add_num(e, "azimuth", g->ellipse[k].azimuth / DRAGARC_DEG);
+            cJSON_AddItemToArray(el, e);
+        }
+    }
+    cJSON *q = cJSON_AddArrayToObject(o, "extent");
+    for (int k = 0; k < DRAGARC_FOOTPRINT_NQ && g->landed > 0; k++) {
+        cJSON *e = cJSON_CreateObject();
+        add_num(e, "probability", dragarc_footprint_quantile_probs[k]);
+        add_num(e, "downrange", g->down[k]);
+        add_num(e, "crossrange", g->cross[k]);
+        cJSON_AddItemToArray(q, e);
+    }
+    add_num(o, "impact_speed_median", g->speed_median);
+    add_num(o, "impact_speed_max", g->speed_max);
+    add_num(o, "impact_energy_mean", g->energy_mean);
+    add_num(o, "impact_energy_median", g->energy_median);
+    add_num(o, "impact_energy_max", g->energy_max);
+    add_num(o, "time_median", g->time_median);
+    add_num(o, "hazardous_share", g->hazardous_share);
+    if (hazard)
+        add_num(o, "expected_casualties", g->expected_casualties);
+    return o;
+}
+
+char *dragarc_footprint_json(const dragarc_footprint_spec *spec, const dragarc_impact *impacts,
+                             const dragarc_footprint_summary *s)
+{
+    (void)impacts;
+    cJSON *doc = start(spec->base.name);
+    if (!doc)
+        return NULL;
+    const dragarc_breakup *b = &spec->breakup;
+    cJSON *br = cJSON_AddObjectToObject(doc, "breakup");
+    add_num(br, "latitude", b->latitude);
+    add_num(br, "longitude", b->longitude);
+    add_num(br, "altitude", b->altitude);
+    cJSON_AddItemToObject(br, "velocity", vec3(b->velocity));
+    cJSON *run = cJSON_AddObjectToObject(doc, "run");
+    cJSON_AddNumberToObject(run, "samples", (double)spec->samples);
+    cJSON_AddNumberToObject(run, "seed", (double)spec->seed);
+    cJSON_AddNumberToObject(run, "classes", (double)spec->nclasses);
+    const dragarc_footprint_group *all = &s->groups[spec->nclasses];
+    cJSON *sum = cJSON_AddObjectToObject(doc, "summary");
+    add_num(sum, "downrange_azimuth", s->azimuth / DRAGARC_DEG);
+    cJSON_AddNumberToObject(sum, "flights", (double)all->flights);
+    cJSON_AddNumberToObject(sum, "landed", (double)all->landed);
+    add_num(sum, "fragments", all->fragments);
+    add_num(sum, "hazard_energy", spec->hazard.energy_threshold);
+    add_num(sum, "hazardous_share", all->hazardous_share);
+    if (s->casualty_done) {
+        add_num(sum, "expected_casualties", s->casualty.expected_casualties);
+        if (spec->hazard.criterion > 0.0) {
+            add_num(sum, "criterion", spec->hazard.criterion);
+            cJSON_AddBoolToObject(sum, "within_criterion", s->casualty.expected_casualties <= spec->hazard.criterion);
+        }
+    }
+    if (s->note[0])
+        cJSON_AddStringToObject(sum, "note", s->note);
+    cJSON *cl = cJSON_AddArrayToObject(doc, "classes");
+    for (size_t i = 0; i < spec->nclasses; i++) {
+        const dragarc_fragment_class *c = &spec->classes[i];
+        cJSON *o = footprint_group(spec, &s->groups[i], s->casualty_done);
+        cJSON_AddStringToObject(o, "name", c->name);
+        add_num(o, "count", c->count);
+        add_num(o, "mass", c->mass);
+        add_num(o, "area", c->area);
+        add_num(o, "ballistic_coefficient", dragarc_fragment_beta(c));
+        cJSON_AddItemToArray(cl, o);
+    }
+    cJSON_AddItemToObject(doc, "all", footprint_group(spec, all, s->casualty_done));
+    cJSON *ct = cJSON_AddArrayToObject(doc, "contours");
+    for (int k = 0; k < DRAGARC_FOOTPRINT_NREGIONS && s->grid_ok; k++) {
+        cJSON *o = cJSON_CreateObject();
+        add_num(o, "probability", s->region[k].probability);
+        add_num(o, "fraction", s->region[k].fraction);
+        add_num(o, "area", s->region[k].area);
+        add_num(o, "density_threshold", s->region[k].density_threshold);
+        cJSON_AddNumberToObject(o, "polygons", (double)s->region[k].npolygons);
+        cJSON_AddItemToArray(ct, o);
+    }
+    if (s->grid_ok)
+        add_num(doc, "grid_cell", s->grid.cell);
+    size_t nref = 0;
+    const dragarc_risk_reference *refs = dragarc_casualty_references(&nref);
+    cJSON *rf = cJSON_AddArrayToObject(doc, "published_criteria");
+    for (size_t i = 0; i < nref; i++) {
+        cJSON *o = cJSON_CreateObject();
+        cJSON_AddStringToObject(o, "quantity", refs[i].quantity);
+        add_num(o, "limit", refs[i].limit);
+        cJSON_AddStringToObject(o, "source", refs[i].source);
+        cJSON_AddItemToArray(rf, o);
+    }
+    static const char *const U[][2] = {
+        {"latitude", "degree"}, {"longitude", "degree"}, {"altitude", "m"}, {"velocity", "m/s"},
+        {"downrange_azimuth", "degree"}, {"hazard_energy", "J"}, {"east", "m"}, {"north", "m"},
+        {"covariance", "m^2"}, {"semi_major", "m"}, {"semi_minor", "m"}, {"azimuth", "degree"},
+        {"downrange", "m"}, {"crossrange", "m"}, {"impact_speed_median", "m/s"}, {"impact_speed_max", "m/s"},
+        {"impact_energy_mean", "J"}, {"impact_energy_median", "J"}, {"impact_energy_max", "J"},
+        {"time_median", "s"}, {"mass", "kg"}, {"area", "m^2"}, {"ballistic_coefficient", "kg/m^2"},
+        {"density_threshold", "1/km^2"}, {"grid_cell", "m"}};
+    add_units(doc, U, sizeof U / sizeof U[0]);
+    add_cautions(doc, DRAGARC_NOTE_DEBRIS);
+    return finish(doc);
+}

@@ -247,6 +247,7 @@ static void fly_sample(const run_ctx *ctx, gsl_rng *r, uint32_t ci, uint32_t si,
     s.projectile.density = 0.0;
     s.projectile.drag = c->drag;
     o->beta = c->mass / (dragarc_drag_cd(&c->drag, 1e6, 0.5, 170.0) * area);
+    o->area = area;
     const dragarc_wind_spread *ws = &spec->wind_spread;
     const dragarc_wind *wsrc = &spec->base.wind;
     if (ws->nprofiles > 0)

@@ -1,0 +1,240 @@
+/* cmd_footprint.c: `dragarc footprint SCENARIO`: where the fragments of a breakup land, how hard, and the
+ * expected casualties, by Monte Carlo.
+ * SPDX-License-Identifier: GPL-3.0-or-later
+ */
+#include <math.h>
+#include <stdio.h>
+#include <stdlib.h>
+#include <string.h>
+#include <time.h>
+#include <unistd.h>
+
+#include "cli/cli.h"
+#include "core/constants.h"
+#include "dragarc/cautions.h"
+#include "dragarc/footprint.h"
+#include "dragarc/geodesy.h"
+#include "dragarc/output.h"
+
+static const char HELP[] =
+    "usage: dragarc footprint SCENARIO [--samples N] [--seed S] [--json] [--points FILE.csv] [--geojson FILE]\n"
+    "                                  [--quiet]\n"
+    "\n"
+    "Fly every fragment class of a breakup (its place, altitude and velocity with their spreads, each class's\n"
+    "ballistic coefficient, drag law and the velocity the breakup gives it, through the scenario's air and wind;\n"
+    "see docs/footprint.md) N times each, and print where the pieces land: the mean impact, the 1, 2 and 3 sigma\n"
+    "ellipses, the downrange and crossrange extents, the areas holding 90 %, 99 % and 99.9 % of the fragments,\n"
+    "impact speeds and energies, the share above the hazard energy and, with a population, the expected number\n"
+    "of casualties, with the published criteria it can be compared with and cautions. SI units.\n"
+    "\n"
+    "  --samples N      samples per class (default the scenario's footprint.samples, else 1000)\n"
+    "  --seed S         the run's seed (default the scenario's footprint.seed, else 1): the same seed gives the\n"
+    "                   same result on any number of threads\n"
+    "  --json           print one JSON object instead of the summary\n"
+    "  --points FILE    every sample's impact as CSV; --geojson FILE the footprint as GeoJSON (RFC 7946); each\n"
+    "                   written whole or not at all\n"
+    "  --quiet          no progress bar (it shows only when stderr is a terminal)\n"
+    "  -h, --help       this help\n";
+
+typedef struct bar {
+    time_t start;
+    int shown;
+} bar;
+
+static void progress(size_t done, size_t total, void *user)
+{
+    bar *b = user;
+    double el = difftime(time(NULL), b->start);
+    if (el < 1.0 && done < total)
+        return;
+    double left = done > 0 ? el * (double)(total - done) / (double)done : 0.0;
+    int w = 30, f = (int)(w * (double)done / (double)total);
+    fprintf(stderr, "\r  [%.*s%*s] %zu/%zu flights, about %.0f s left ", f, "##############################", w - f, "",
+            done, total, left);
+    b->shown = 1;
+}
+
+static int write_points(FILE *fp, const void *ctx, dragarc_error *err)
+{
+    const void *const *c = ctx;
+    return dragarc_footprint_write_csv(fp, c[0], c[1], err);
+}
+
+static void print_group(const char *name, const dragarc_footprint_group *g, int hazard)
+{
+    char landed[24], mean[32] = "-", ell[40] = "-", v50[16] = "-", e50[16] = "-", share[16] = "-";
+    snprintf(landed, sizeof landed, "%zu/%zu", g->landed, g->flights);
+    if (g->moments_ok)
+        snprintf(mean, sizeof mean, "%.0f, %.0f", g->mean[0], g->mean[1]);
+    if (g->ellipses_ok)
+        snprintf(ell, sizeof ell, "%.0f x %.0f, %.0f", g->ellipse[0].semi_major, g->ellipse[0].semi_minor,
+                 fmod(g->ellipse[0].azimuth / DRAGARC_DEG + 360.0, 180.0));
+    if (g->landed > 0) {
+        snprintf(v50, sizeof v50, "%.1f", g->speed_median);
+        snprintf(e50, sizeof e50, "%.3g", g->energy_median);
+        snprintf(share, sizeof share, "%.1f %%", 100.0 * g->hazardous_share);
+    }
+    printf("  %-16.16s %9.4g %13s %17s %19s %7s %9s %8s", name, g->fragments, landed, mean, ell, v50, e50, share);
+    if (hazard)
+        printf(" %9.2e", g->expected_casualties);
+    putchar('\n');
+}
+
+static void print_summary(const dragarc_footprint_spec *sp, const dragarc_footprint_summary *s)
+{
+    const dragarc_breakup *b = &sp->breakup;
+    const double *v = b->velocity;
+    double vh = hypot(v[0], v[1]);
+    printf("dragarc footprint%s%s\n", sp->base.name[0] ? ": " : "", sp->base.name);
+    printf("  breakup         %.5f%s %.5f%s at %.0f m, %.1f m/s at %.1f deg, heading %.0f deg\n", fabs(b->latitude),
+           b->latitude >= 0 ? "N" : "S", fabs(dragarc_geo_normalize_longitude(b->longitude)),
+           dragarc_geo_normalize_longitude(b->longitude) >= 0 ? "E" : "W", b->altitude, hypot(vh, v[2]),
+           atan2(v[2], vh) / DRAGARC_DEG, fmod(s->azimuth / DRAGARC_DEG + 360.0, 360.0));
+    const dragarc_footprint_group *all = &s->groups[sp->nclasses];
+    printf("  samples         %zu per class, seed %llu: %zu flights, %zu landed\n", sp->samples,
+           (unsigned long long)sp->seed, all->flights, all->landed);
+    printf("  %-16s %9s %13s %17s %19s %7s %9s %8s%s\n", "class", "fragments", "landed", "mean E, N m",
+           "1 sigma a x b m, az", "v50 m/s", "E50 J", "hazard", s->casualty_done ? "       E_c" : "");
+    for (size_t i = 0; i < sp->nclasses; i++) {
+        char name[32];
+        snprintf(name, sizeof name, "%zu %s", i + 1, sp->classes[i].name);
+        print_group(name, &s->groups[i], s->casualty_done);
+    }
+    print_group("all", all, s->casualty_done);
+    if (all->landed > 0) {
+        printf("  downrange       99 %% between %.0f and %.0f m, 99.9 %% between %.0f and %.0f m (along %.0f deg)\n",
+               all->down[1], all->down[5], all->down[0], all->down[6], fmod(s->azimuth / DRAGARC_DEG + 360.0, 360.0));
+        printf("  crossrange      99 %% between %.0f and %.0f m, 99.9 %% between %.0f and %.0f m (right positive)\n",
+               all->cross[1], all->cross[5], all->cross[0], all->cross[6]);
+        printf("  impacts         speed up to %.1f m/s, energy up to %.4g J; %.1f %% of the fragments land with %.3g J "
+               "or more\n", all->speed_max, all->energy_max, 100.0 * all->hazardous_share, sp->hazard.energy_threshold);
+    }
+    if (s->grid_ok) {
+        printf("  contours       ");
+        for (int k = 0; k < DRAGARC_FOOTPRINT_NREGIONS; k++)
+            printf(" %g %%: %.4g km2 in %zu piece%s%s", 100.0 * s->region[k].probability, s->region[k].area * 1e-6,
+                   s->region[k].npolygons, s->region[k].npolygons == 1 ? "" : "s",
+                   k + 1 < DRAGARC_FOOTPRINT_NREGIONS ? ";" : "");
+        printf(" (cells of %.4g m)\n", s->grid.cell);
+    }
+    if (s->note[0])
+        printf("  note            %s\n", s->note);
+    if (s->casualty_done) {
+        const dragarc_hazard_options *h = &sp->hazard;
+        printf("  casualties      E_c = %.3e expected (", s->casualty.expected_casualties);
+        if (h->population_file[0])
+            printf("population from %s", h->population_file);
+        else
+            printf("%g people/km2 everywhere", h->density);
+        printf(h->sheltered_share > 0.0 ? ", %.0f %% sheltered at %.0f %% protection)\n" : ", everyone in the open)\n",
+               100.0 * h->sheltered_share, 100.0 * h->shelter_protection);
+        if (h->criterion > 0.0)
+            printf("  criterion       %.3g given: E_c is %s it\n", h->criterion,
+                   s->casualty.expected_casualties <= h->criterion ? "within" : "ABOVE");
+    } else {
+        printf("  casualties      not estimated: the scenario gives no hazard.population\n");
+    }
+    size_t nref = 0;
+    const dragarc_risk_reference *refs = dragarc_casualty_references(&nref);
+    printf("  published criteria, for comparison only (not an approval):\n");
+    for (size_t i = 0; i < nref; i++)
+        printf("    %-50s %-8.3g %s\n", refs[i].quantity, refs[i].limit, refs[i].source);
+    dragarc_cautions_print(stdout, DRAGARC_NOTE_DEBRIS, 100);
+}
+
+static int count_arg(const char *cmd, const char *opt, const char *text, double lo, double hi, double *out)
+{
+    double v;
+    if (!text)
+        return cli_usage_error(cmd, "%s needs a number", opt);
+    if (cli_parse_double(text, &v) != 0 || !(v >= lo && v <= hi && v == floor(v)))
+        return cli_usage_error(cmd, "%s must be a whole number from %.0f to %.0f (got '%s')", opt, lo, hi, text);
+    *out = v;
+    return 0;
+}
+
+int cmd_footprint(int argc, char **argv)
+{
+    const char *path = NULL, *points = NULL, *geojson = NULL;
+    int json = 0, quiet = 0, st;
+    double samples = -1.0, seed = -1.0;
+    for (int i = 1; i < argc; i++) {
+        const char *a = argv[i];
+        if (cli_help_asked(a, HELP))
+            return EXIT_OK;
+        if (strcmp(a, "--json") == 0)
+            json = 1;
+        else if (strcmp(a, "--quiet") == 0)
+            quiet = 1;
+        else if (strcmp(a, "--samples") == 0) {
+            if ((st = count_arg("footprint", a, i + 1 < argc ? argv[++i] : NULL, 1, DRAGARC_FOOTPRINT_MAX_SAMPLES,
+                                &samples)) != 0)
+                return st;
+        } else if (strcmp(a, "--seed") == 0) {
+            if ((st = count_arg("footprint", a, i + 1 < argc ? argv[++i] : NULL, 0, 9007199254740992.0, &seed)) != 0)
+                return st;
+        } else if (strcmp(a, "--points") == 0 || strcmp(a, "--geojson") == 0) {
+            if (++i >= argc)
+                return cli_usage_error("footprint", "%s needs a file name", a);
+            *(a[2] == 'p' ? &points : &geojson) = argv[i];
+        } else if ((st = cli_file_argument("footprint", "scenario file", a, &path)) != 0) {
+            return st;
+        }
+    }
+    if (!path)
+        return cli_usage_error("footprint", "needs a scenario file");
+    dragarc_footprint_spec spec;
+    dragarc_error err;
+    if (dragarc_footprint_spec_read(path, &spec, &err) != DRAGARC_OK)
+        return cli_report(path, &err);
+    if (samples > 0.0)
+        spec.samples = (size_t)samples;
+    if (seed >= 0.0)
+        spec.seed = (uint64_t)seed;
+    int status = EXIT_OK;
+    dragarc_population pop;
+    memset(&pop, 0, sizeof pop);
+    dragarc_footprint_summary sum;
+    memset(&sum, 0, sizeof sum);
+    dragarc_impact *im = NULL;
+    const dragarc_hazard_options *h = &spec.hazard;
+    if (dragarc_footprint_check(&spec, &err) != DRAGARC_OK)
+        status = cli_report(path, &err);
+    else if (h->population_given &&
+             (h->population_file[0] ? dragarc_population_read(h->population_file, &pop, &err)
+                                    : dragarc_population_uniform(&pop, h->density, &err)) != DRAGARC_OK)
+        status = cli_report(h->population_file[0] ? NULL : path, &err);
+    else if (h->population_file[0] && dragarc_population_set_background(&pop, h->background, &err) != DRAGARC_OK)
+        status = cli_report(path, &err);
+    else if (!(im = malloc(spec.nclasses * spec.samples * sizeof *im))) {
+        dragarc_error_set(&err, DRAGARC_ENOMEM, "", "out of memory for %zu flights", spec.nclasses * spec.samples);
+        status = cli_report(path, &err);
+    }
+    if (status == EXIT_OK) {
+        bar b = {time(NULL), 0};
+        int show = !quiet && isatty(STDERR_FILENO);
+        int rc = dragarc_footprint_run(&spec, im, show ? progress : NULL, &b, &err);
+        if (b.shown)
+            fputs("\r\033[K", stderr);
+        if (rc != DRAGARC_OK)
+            status = cli_report(path, &err);
+        else if (dragarc_footprint_summarise(&spec, im, h->population_given ? &pop : NULL, &sum, &err) != DRAGARC_OK)
+            status = cli_report(path, &err);
+    }
+    if (status == EXIT_OK && points) {
+        const void *ctx[2] = {&spec, im};
+        status = cli_write_output("--points", points, write_points, ctx);
+    }
+    if (status == EXIT_OK && geojson && dragarc_footprint_write_geojson(geojson, &spec, im, &sum, &err) != DRAGARC_OK)
+        status = cli_report("--geojson", &err);
+    if (status == EXIT_OK && json)
+        status = cli_emit_json(dragarc_footprint_json(&spec, im, &sum), path);
+    else if (status == EXIT_OK) {
+        print_summary(&spec, &sum);
+    }
+    dragarc_footprint_summary_clear(&sum);
+    dragarc_population_clear(&pop);
+    free(im);
+    dragarc_footprint_spec_clear(&spec);
+    return status;
+}
