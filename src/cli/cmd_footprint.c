@@ -138,7 +138,7 @@ static void print_summary(const dragarc_footprint_spec *sp, const dragarc_footpr
     const dragarc_risk_reference *refs = dragarc_casualty_references(&nref);
     printf("  published criteria, for comparison only (not an approval):\n");
     for (size_t i = 0; i < nref; i++)
-        printf("    %-50s %-8.3g %s\n", refs[i].quantity, refs[i].limit, refs[i].source);
+        printf("    - %s: %.3g (%s)\n", refs[i].quantity, refs[i].limit, refs[i].source);
     dragarc_cautions_print(stdout, DRAGARC_NOTE_DEBRIS, 100);
 }
 
