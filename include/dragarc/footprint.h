@@ -117,6 +117,26 @@ typedef struct dragarc_impact {
     double area;                /* m^2, this sample's reference area (the class's, scaled by the beta draw) */
 } dragarc_impact;
 
+/* The distribution named "none", "fixed", "uniform" or "maxwellian" ("" is none); DRAGARC_EINVAL otherwise. */
+int dragarc_dv_distribution_from_name(const char *name, dragarc_dv_distribution *out);
+
+/* Check one fragment class; err->field relative to it ("mass", "drag.cd"). */
+int dragarc_fragment_class_check(const dragarc_fragment_class *c, dragarc_error *err);
+
+/* A named drag law that catalogue rows may refer to (the scenario's `drag_laws`). */
+typedef struct dragarc_named_drag {
+    char name[64];
+    dragarc_drag drag; /* borrowed */
+} dragarc_named_drag;
+
+/* A fragment catalogue as CSV (docs/footprint.md): a header naming mass, drag and one of area or
+ * ballistic_coefficient, and optionally name, count, beta_spread, dv_distribution, dv_speed, cone (degrees); one
+ * class a row, at most DRAGARC_FOOTPRINT_MAX_CLASSES. `drag` is a number (a constant C_D) or the name of one of
+ * the laws[0..nlaws). The text is modified in place. On success *classes (n of them; the caller frees each
+ * class's drag with dragarc_drag_clear, then the array) is filled; errors name "line N: column". */
+int dragarc_fragment_catalogue_parse(char *text, const dragarc_named_drag *laws, size_t nlaws,
+                                     dragarc_fragment_class **classes, size_t *n, dragarc_error *err);
+
 /* Check the spec (the base scenario, breakup, classes, spreads, sample counts); err->field is its path in the
  * scenario file ("breakup.altitude", "fragments[2].mass"). */
 int dragarc_footprint_check(const dragarc_footprint_spec *spec, dragarc_error *err);

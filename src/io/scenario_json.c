@@ -1701,15 +1701,7 @@ static int read_fragment(const cJSON *j, const char *p, dragarc_fragment_class *
         TRY(check_keys(dv, f, dkeys, err));
         const char *dist = NULL;
         TRY(get_string(dv, f, "distribution", 1, &dist, err));
-        if (strcmp(dist, "none") == 0)
-            c->dv = DRAGARC_DV_NONE;
-        else if (strcmp(dist, "fixed") == 0)
-            c->dv = DRAGARC_DV_FIXED;
-        else if (strcmp(dist, "uniform") == 0)
-            c->dv = DRAGARC_DV_UNIFORM;
-        else if (strcmp(dist, "maxwellian") == 0)
-            c->dv = DRAGARC_DV_MAXWELLIAN;
-        else {
+        if (!dist[0] || dragarc_dv_distribution_from_name(dist, &c->dv) != DRAGARC_OK) {
             char ff[PATH_MAX_LEN];
             join(ff, sizeof ff, f, "distribution");
             return dragarc_error_set(err, DRAGARC_EINVAL, ff,
@@ -1736,12 +1728,8 @@ static int read_fragment(const cJSON *j, const char *p, dragarc_fragment_class *
     return DRAGARC_OK;
 }
 
-static int read_footprint(const cJSON *root, dragarc_footprint_spec *sp, const char *base_dir, dragarc_error *err)
+static int read_fragment_array(const cJSON *fr, dragarc_footprint_spec *sp, dragarc_error *err)
 {
-    TRY(read_breakup(cJSON_GetObjectItemCaseSensitive(root, "breakup"), &sp->breakup, err));
-    const cJSON *fr = cJSON_GetObjectItemCaseSensitive(root, "fragments");
-    if (!cJSON_IsArray(fr) || cJSON_GetArraySize(fr) < 1)
-        return dragarc_error_set(err, DRAGARC_EINVAL, "fragments", "must be a non-empty array of fragment classes");
     int n = cJSON_GetArraySize(fr);
     if (n > DRAGARC_FOOTPRINT_MAX_CLASSES)
         return dragarc_error_set(err, DRAGARC_EINVAL, "fragments", "holds %d classes: at most %d", n,
@@ -1756,6 +1744,68 @@ static int read_footprint(const cJSON *root, dragarc_footprint_spec *sp, const c
         snprintf(f, sizeof f, "fragments[%d]", i);
         TRY(read_fragment(c, f, &sp->classes[i], err));
     }
+    return DRAGARC_OK;
+}
+
+/* `path` resolved against the scenario's folder into out (n bytes); field names it in the error. */
+static int resolve(const char *base_dir, const char *path, char *out, size_t n, const char *field, dragarc_error *err)
+{
+    int k = path[0] == '/' || !base_dir || !base_dir[0] ? snprintf(out, n, "%s", path)
+                                                        : snprintf(out, n, "%s/%s", base_dir, path);
+    if (k < 0 || (size_t)k >= n)
+        return dragarc_error_set(err, DRAGARC_EINVAL, field, "path too long");
+    return DRAGARC_OK;
+}
+
+/* The scenario's drag_laws (named drag objects) and a CSV fragment catalogue at `file` read with them. */
+static int read_catalogue(const cJSON *root, const char *file, const char *base_dir, dragarc_footprint_spec *sp,
+                          dragarc_error *err)
+{
+    const cJSON *dl = cJSON_GetObjectItemCaseSensitive(root, "drag_laws");
+    int nl = dl ? cJSON_GetArraySize(dl) : 0;
+    if (dl && (!cJSON_IsObject(dl) || nl > 1000))
+        return dragarc_error_set(err, DRAGARC_EINVAL, "drag_laws", "must be an object of at most 1000 named drag laws");
+    dragarc_named_drag *laws = calloc((size_t)nl + 1, sizeof *laws);
+    char path[4096], *text = NULL;
+    int rc = laws ? DRAGARC_OK : dragarc_error_set(err, DRAGARC_ENOMEM, "drag_laws", "out of memory");
+    int done = 0;
+    for (const cJSON *c = dl ? dl->child : NULL; c && rc == DRAGARC_OK; c = c->next, done++) {
+        char f[PATH_MAX_LEN];
+        join(f, sizeof f, "drag_laws", c->string);
+        snprintf(laws[done].name, sizeof laws[done].name, "%s", c->string);
+        rc = read_drag(c, f, &laws[done].drag, err);
+    }
+    if (rc == DRAGARC_OK)
+        rc = resolve(base_dir, file, path, sizeof path, "fragments", err);
+    if (rc == DRAGARC_OK)
+        rc = dragarc_text_file_read(path, 64u << 20, &text, err);
+    if (rc == DRAGARC_OK)
+        rc = dragarc_fragment_catalogue_parse(text, laws, (size_t)nl, &sp->classes, &sp->nclasses, err);
+    if (rc != DRAGARC_OK && err && strncmp(err->field, path, strlen(path)) != 0) {
+        char field[sizeof err->field];
+        snprintf(field, sizeof field, "%s%s%s", path, err->field[0] ? ": " : "", err->field);
+        memcpy(err->field, field, sizeof field);
+    }
+    for (int i = 0; i < done && laws; i++)
+        dragarc_drag_clear(&laws[i].drag);
+    free(laws);
+    free(text);
+    return rc;
+}
+
+static int read_footprint(const cJSON *root, dragarc_footprint_spec *sp, const char *base_dir, dragarc_error *err)
+{
+    TRY(read_breakup(cJSON_GetObjectItemCaseSensitive(root, "breakup"), &sp->breakup, err));
+    const cJSON *fr = cJSON_GetObjectItemCaseSensitive(root, "fragments");
+    if (cJSON_IsString(fr) && fr->valuestring)
+        TRY(read_catalogue(root, fr->valuestring, base_dir, sp, err));
+    else if (cJSON_GetObjectItemCaseSensitive(root, "drag_laws"))
+        return dragarc_error_set(err, DRAGARC_EINVAL, "drag_laws", "is for a CSV catalogue: give fragments as a file");
+    else if (cJSON_IsArray(fr) && cJSON_GetArraySize(fr) >= 1)
+        TRY(read_fragment_array(fr, sp, err));
+    else
+        return dragarc_error_set(err, DRAGARC_EINVAL, "fragments", "must be a non-empty array of fragment classes, "
+                                 "or the name of a CSV catalogue");
     const cJSON *u = cJSON_GetObjectItemCaseSensitive(root, "uncertainty");
     if (u) {
         static const char *const ukeys[] = {"wind", NULL};
@@ -1852,13 +1902,9 @@ static int read_footprint(const cJSON *root, dragarc_footprint_spec *sp, const c
             if (!(h->background >= 0.0 && h->background <= 1e6))
                 return dragarc_error_set(err, DRAGARC_EINVAL, "hazard.population.background",
                                          "must be 0 to 1e6 people per km^2 (got %g)", h->background);
-            if (file) {
-                int n2 = file[0] == '/' || !base_dir || !base_dir[0]
-                             ? snprintf(h->population_file, sizeof h->population_file, "%s", file)
-                             : snprintf(h->population_file, sizeof h->population_file, "%s/%s", base_dir, file);
-                if (n2 < 0 || (size_t)n2 >= sizeof h->population_file)
-                    return dragarc_error_set(err, DRAGARC_EINVAL, "hazard.population.file", "path too long");
-            }
+            if (file)
+                TRY(resolve(base_dir, file, h->population_file, sizeof h->population_file, "hazard.population.file",
+                            err));
             h->population_given = 1;
         }
     }
@@ -1867,8 +1913,8 @@ static int read_footprint(const cJSON *root, dragarc_footprint_spec *sp, const c
 
 static int parse_footprint(const char *json, const char *base_dir, dragarc_footprint_spec *out, dragarc_error *err)
 {
-    static const char *const keys[] = {"name", "description", "breakup", "fragments", "uncertainty", "footprint",
-                                       "hazard", "environment", "ground", "solver", NULL};
+    static const char *const keys[] = {"name", "description", "breakup", "fragments", "drag_laws", "uncertainty",
+                                       "footprint", "hazard", "environment", "ground", "solver", NULL};
     memset(out, 0, sizeof *out);
     dragarc_scenario_default(&out->base);
     cJSON *root = NULL;

@@ -56,32 +56,45 @@ void dragarc_footprint_spec_clear(dragarc_footprint_spec *spec)
     memset(spec, 0, sizeof *spec);
 }
 
-static int class_check(const dragarc_fragment_class *c, size_t i, dragarc_error *err)
+int dragarc_dv_distribution_from_name(const char *name, dragarc_dv_distribution *out)
 {
-    char f[64];
-    snprintf(f, sizeof f, "fragments[%zu]", i);
-#define BAD(key, ...) (snprintf(f, sizeof f, "fragments[%zu].%s", i, key), dragarc_error_set(err, DRAGARC_EINVAL, f, __VA_ARGS__))
-    if (!(c->count > 0.0 && c->count <= 1e9))
-        return BAD("count", "must be above 0 and at most 1e9 (got %g)", c->count);
-    if (!(c->mass > 0.0 && c->mass <= 1e6))
-        return BAD("mass", "must be above 0 and at most 1e6 kg (got %g)", c->mass);
-    if (!(c->area > 0.0 && c->area <= 1e4))
-        return BAD("area", "must be above 0 and at most 10000 m^2 (got %g)", c->area);
-    if (!(c->beta_sd >= 0.0 && c->beta_sd <= 3.0))
-        return BAD("beta_spread", "must be 0 to 3 (the sd of ln beta; got %g)", c->beta_sd);
-    if (!(c->dv_speed >= 0.0 && c->dv_speed <= 1e4))
-        return BAD("delta_v.speed", "must be 0 to 10000 m/s (got %g)", c->dv_speed);
-    if (!(c->cone_half_angle > 0.0 && c->cone_half_angle <= DRAGARC_PI + 1e-12))
-        return BAD("delta_v.cone", "must be above 0 and at most 180 degrees (got %g)", c->cone_half_angle / DRAGARC_DEG);
-    if (c->cone_axis_given && !(fabs(hypot(hypot(c->cone_axis[0], c->cone_axis[1]), c->cone_axis[2]) - 1.0) < 1e-9))
-        return BAD("delta_v.axis", "must be a unit vector");
-#undef BAD
-    dragarc_error e;
-    if (dragarc_drag_check(&c->drag, &e) != DRAGARC_OK) {
-        snprintf(f, sizeof f, "fragments[%zu].drag%s%s", i, e.field[0] ? "." : "", e.field);
-        return dragarc_error_set(err, DRAGARC_EINVAL, f, "%s", e.message);
+    static const char *const NAMES[] = {"none", "fixed", "uniform", "maxwellian"};
+    if (!name[0]) {
+        *out = DRAGARC_DV_NONE;
+        return DRAGARC_OK;
     }
-    return DRAGARC_OK;
+    for (int k = 0; k < 4; k++)
+        if (strcmp(name, NAMES[k]) == 0) {
+            *out = (dragarc_dv_distribution)k;
+            return DRAGARC_OK;
+        }
+    return DRAGARC_EINVAL;
+}
+
+int dragarc_fragment_class_check(const dragarc_fragment_class *c, dragarc_error *err)
+{
+    if (!(c->count > 0.0 && c->count <= 1e9))
+        return dragarc_error_set(err, DRAGARC_EINVAL, "count", "must be above 0 and at most 1e9 (got %g)", c->count);
+    if (!(c->mass > 0.0 && c->mass <= 1e6))
+        return dragarc_error_set(err, DRAGARC_EINVAL, "mass", "must be above 0 and at most 1e6 kg (got %g)", c->mass);
+    if (!(c->area > 0.0 && c->area <= 1e4))
+        return dragarc_error_set(err, DRAGARC_EINVAL, "area", "must be above 0 and at most 10000 m^2 (got %g)",
+                                 c->area);
+    if (!(c->beta_sd >= 0.0 && c->beta_sd <= 3.0))
+        return dragarc_error_set(err, DRAGARC_EINVAL, "beta_spread", "must be 0 to 3 (the sd of ln beta; got %g)",
+                                 c->beta_sd);
+    if (!(c->dv_speed >= 0.0 && c->dv_speed <= 1e4))
+        return dragarc_error_set(err, DRAGARC_EINVAL, "delta_v.speed", "must be 0 to 10000 m/s (got %g)",
+                                 c->dv_speed);
+    if (!(c->cone_half_angle > 0.0 && c->cone_half_angle <= DRAGARC_PI + 1e-12))
+        return dragarc_error_set(err, DRAGARC_EINVAL, "delta_v.cone", "must be above 0 and at most 180 degrees (got %g)",
+                                 c->cone_half_angle / DRAGARC_DEG);
+    if (c->cone_axis_given && !(fabs(hypot(hypot(c->cone_axis[0], c->cone_axis[1]), c->cone_axis[2]) - 1.0) < 1e-9))
+        return dragarc_error_set(err, DRAGARC_EINVAL, "delta_v.axis", "must be a unit vector");
+    int rc = dragarc_drag_check(&c->drag, err);
+    if (rc != DRAGARC_OK)
+        dragarc_error_prefix(err, "drag");
+    return rc;
 }
 
 int dragarc_footprint_check(const dragarc_footprint_spec *spec, dragarc_error *err)
@@ -127,9 +140,13 @@ int dragarc_footprint_check(const dragarc_footprint_spec *spec, dragarc_error *e
         return dragarc_error_set(err, DRAGARC_EINVAL, "fragments", "must hold 1 to %d classes (got %zu)",
                                  DRAGARC_FOOTPRINT_MAX_CLASSES, spec->nclasses);
     for (size_t i = 0; i < spec->nclasses; i++) {
-        int rc = class_check(&spec->classes[i], i, err);
-        if (rc != DRAGARC_OK)
+        int rc = dragarc_fragment_class_check(&spec->classes[i], err);
+        if (rc != DRAGARC_OK) {
+            char f[48];
+            snprintf(f, sizeof f, "fragments[%zu]", i);
+            dragarc_error_prefix(err, f);
             return rc;
+        }
     }
     if (spec->samples < 1 || spec->samples > DRAGARC_FOOTPRINT_MAX_SAMPLES)
         return dragarc_error_set(err, DRAGARC_EINVAL, "footprint.samples", "must be 1 to %d per class (got %zu)",

@@ -164,11 +164,38 @@ TEST(bad_footprint_scenarios_name_the_field)
     dragarc_footprint_spec_clear(&sp);
 }
 
+TEST(a_csv_catalogue_flies_as_the_same_classes_in_the_scenario)
+{
+    /* The same two classes (one with a drag law named in drag_laws) from a CSV file and from the scenario's own
+     * array: the same classes, so the same impacts bit for bit. */
+    dragarc_footprint_spec a, b;
+    dragarc_error e;
+    CHECK(dragarc_footprint_spec_read(DATA_DIR "/footprint-catalogue.json", &a, &e) == DRAGARC_OK);
+    CHECK(dragarc_footprint_spec_read(DATA_DIR "/footprint-array.json", &b, &e) == DRAGARC_OK);
+    CHECK(a.nclasses == 2 && b.nclasses == 2 && strcmp(a.classes[1].name, "case") == 0);
+    CHECK(a.classes[1].cone_half_angle == b.classes[1].cone_half_angle && a.classes[0].dv == DRAGARC_DV_MAXWELLIAN);
+    dragarc_impact *ia = fly(&a), *ib = fly(&b);
+    CHECK(memcmp(ia, ib, a.nclasses * a.samples * sizeof *ia) == 0);
+    free(ia), free(ib);
+    dragarc_footprint_spec_clear(&a);
+    dragarc_footprint_spec_clear(&b);
+    /* a bad row is named by file, line and column */
+    char text[] = "mass,area,drag\n1,0.1,1\n-2,0.1,1\n";
+    dragarc_fragment_class *c = NULL;
+    size_t n = 0;
+    CHECK(dragarc_fragment_catalogue_parse(text, NULL, 0, &c, &n, &e) == DRAGARC_EINVAL);
+    CHECK(strcmp(e.field, "line 3: mass") == 0);
+    char text2[] = "mass,area,drag\n1,0.1,steel\n";
+    CHECK(dragarc_fragment_catalogue_parse(text2, NULL, 0, &c, &n, &e) == DRAGARC_EINVAL);
+    CHECK(strcmp(e.field, "line 2: drag") == 0);
+}
+
 int main(void)
 {
     dragarc_init();
     RUN(the_same_seed_gives_the_same_impacts_on_any_thread_count);
     RUN(small_spreads_scatter_as_the_linearised_propagation_says);
     RUN(bad_footprint_scenarios_name_the_field);
+    RUN(a_csv_catalogue_flies_as_the_same_classes_in_the_scenario);
     return check_summary();
 }
