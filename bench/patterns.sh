@@ -1,8 +1,9 @@
 #!/bin/bash
 # SPDX-License-Identifier: GPL-3.0-or-later
 # bench/patterns.sh DRAGARC OUT_JSON [REPEATS]: time a full wind-distorted sprinkler pattern (40 drop classes x 72
-# directions, with evaporation) and a 40-class drift profile, each on 2 threads and on 1 (the reference: the same
-# flights one after another), REPEATS times (default 5); write the medians (s) as JSON.
+# directions, with evaporation), a 40-class drift profile and a debris footprint (3 classes x 2000 samples), each on
+# 2 threads and on 1 (the reference: the same flights one after another), REPEATS times (default 5); write the
+# medians (s) as JSON.
 set -euo pipefail
 bin=$1 out=$2 n=${3:-5}
 cd "$(dirname "$0")/.."
@@ -21,6 +22,8 @@ s2=$(time_it 2 sprinkler docs/examples/sprinkler-garden.json)
 s1=$(time_it 1 sprinkler docs/examples/sprinkler-garden.json)
 d2=$(time_it 2 drift docs/examples/drift-boom.json)
 d1=$(time_it 1 drift docs/examples/drift-boom.json)
-printf '{"sprinkler": {"threads2": %s, "threads1": %s, "flights": 2880}, "drift": {"threads2": %s, "threads1": %s, "flights": 40}}\n' \
-  "$s2" "$s1" "$d2" "$d1" >"$out"
+f2=$(time_it 2 footprint docs/examples/footprint-rocket.json --samples 2000 --quiet)
+f1=$(time_it 1 footprint docs/examples/footprint-rocket.json --samples 2000 --quiet)
+printf '{"sprinkler": {"threads2": %s, "threads1": %s, "flights": 2880}, "drift": {"threads2": %s, "threads1": %s, "flights": 40}, "footprint": {"threads2": %s, "threads1": %s, "flights": 6000}}\n' \
+  "$s2" "$s1" "$d2" "$d1" "$f2" "$f1" >"$out"
 cat "$out"

@@ -233,9 +233,16 @@ def main():
                 sp["threads2"], sp["flights"], sp["threads1"], sp["threads1"] / sp["threads2"]), sp["threads2"] < 1.0)
         row("a drift profile (40 drop classes) in under a second",
             "%.3f s on 2 threads (%.3f s on 1)" % (dr["threads2"], dr["threads1"]), dr["threads2"] < 1.0)
+        if "footprint" in pat:
+            fp = pat["footprint"]
+            row("a debris footprint scales with threads (3 classes x 2000 samples from 18 km)",
+                "%.2f s on 2 threads, %.2f s on 1: %.2fx; %.2f ms a flight on 1 thread, summary and output included" % (
+                    fp["threads2"], fp["threads1"], fp["threads1"] / fp["threads2"],
+                    1e3 * fp["threads1"] / fp["flights"]), fp["threads1"] / fp["threads2"] > 1.5)
         L.append("")
         L.append("The pattern times are wall times of the whole command (`dragarc sprinkler "
-                 "docs/examples/sprinkler-garden.json --json`, `dragarc drift docs/examples/drift-boom.json --json`), "
+                 "docs/examples/sprinkler-garden.json --json`, `dragarc drift docs/examples/drift-boom.json --json`, "
+                 "`dragarc footprint docs/examples/footprint-rocket.json --samples 2000 --json`), "
                  "medians of 5 runs, measured by `bench/patterns.sh`; the 1-thread run is the same work one flight "
                  "after another.")
     L.append("")
