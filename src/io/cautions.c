@@ -12,8 +12,8 @@ static const char DECIDE[] =
     "Safety distances, spectator and worker exclusion zones, spray buffer zones and debris hazard areas are set "
     "by local codes, product labels, regulations and licensed practice, not by this estimate.";
 static const char ENERGY[] =
-    "The impact energy is at or above 15 J, a level often used as a threshold for serious injury from falling "
-    "objects (common practice, no source): keep people out of the landing area.";
+    "The impact energy is at or above 15 J, about the 11 ft-lbf (14.9 J) that U.S. launch-safety rules count as "
+    "able to cause a casualty (14 CFR 417.107(c)(1)): keep people out of the landing area.";
 static const char TRANSONIC[] =
     "The flight goes faster than Mach 0.6 but the drag law ignores Mach number: drag rises steeply near Mach 1, "
     "so use a Mach table for this projectile.";
