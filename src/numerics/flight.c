@@ -16,6 +16,9 @@
  *   g0 = z - z_ground (impact, descending), g1 = vz (apex, descending), g2 = z - z_top (leaving the top of
  *   the atmosphere model, ascending: an error); samples from CVODE's dense output (CVodeGetDky).
  * Every path runs one step at a time, so sampling never shortens the steps.
+ * On a spherical Earth (earth.h) every event, the step limit at kinks and the apex watch the height above the
+ * sphere h = |r| - R and its rate (r . v) / |r| in place of z and vz; samples and the impact are reported as
+ * dragarc_earth_report gives them (great-circle offsets, h, the velocity in the local frame there).
  */
 #include <float.h>
 #include <math.h>
