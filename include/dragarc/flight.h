@@ -4,7 +4,10 @@
  *
  * Integrated by DOP853 (explicit, the default for non-stiff flights), GSL's rk8pd, or SUNDIALS CVODE (BDF
  * for stiff flights, Adams-Moulton on request): see src/numerics/flight.c and docs/models.md. Ground impact
- * is where z falls through z_ground, the apex where vz falls through 0.
+ * is where the height (z on a flat Earth, |r| - R on a sphere: earth.h) falls through z_ground, the apex where
+ * its rate falls through 0. On a sphere the positions and velocities reported (samples, impact) are those of
+ * dragarc_earth_report: east and north along the great circle from the origin, the height, and the velocity in
+ * the local frame there; the range, downrange and crossrange follow from those offsets.
  */
 #ifndef DRAGARC_FLIGHT_H
 #define DRAGARC_FLIGHT_H
@@ -43,7 +46,9 @@ enum {
     DRAGARC_NOTE_BALL = 1u << 5,          /* a spinning or bouncing ball: a sports flight near people */
     DRAGARC_NOTE_IRRIGATION = 1u << 6,    /* a sprinkler's pattern: irrigation design */
     DRAGARC_NOTE_SPRAY_DRIFT = 1u << 7,   /* a spray drift estimate: pesticide and buffer-zone rules */
-    DRAGARC_NOTE_DEBRIS = 1u << 8         /* a debris footprint: range-safety authority and regulations decide */
+    DRAGARC_NOTE_DEBRIS = 1u << 8,          /* a debris footprint: range-safety authority and regulations decide */
+    DRAGARC_NOTE_SPHERICAL_EARTH = 1u << 9, /* flown over a spherical Earth (environment.earth) */
+    DRAGARC_NOTE_ROTATING_EARTH = 1u << 10  /* ... turning: Coriolis and centrifugal terms */
 };
 
 /* One landing of a ball on a ground surface (ground.surface): the state just before and just after it. */

@@ -10,11 +10,16 @@
  *   dm/dt   = -pi d D_v Sh drho  while any water is left (projectile.evaporation); d, area and volume follow m
  * gravity, buoyancy (Archimedes), drag (D is the drag factor of drag.h, u the wind) and, for a spinning body
  * with a lift model, the lift F_L = 1/2 rho C_L(S) A |v_rel|^2 (w^ x v_rel) / |w^ x v_rel| (Magnus; lift.h).
+ * On a spherical Earth (dragarc_forces_earth; earth.h) the weight is m g0 (R/|r|)^2 toward the centre, r = (x, y,
+ * z + R), the Earth's turning adds -2 m Omega x v - m Omega x (Omega x r), the buoyancy is the displaced air's
+ * share of gravitation and centrifugal acceleration, and the air and wind are those at the height h = |r| - R;
+ * the wind blows horizontally in the frame of the origin.
  */
 #ifndef DRAGARC_FORCES_H
 #define DRAGARC_FORCES_H
 
 #include "dragarc/atmosphere.h"
+#include "dragarc/earth.h"
 #include "dragarc/projectile.h"
 #include "dragarc/wind.h"
 
@@ -41,6 +46,10 @@ typedef struct dragarc_forces {
     int evaporating;         /* the body is a water drop whose mass is the state's eighth value */
     double residue_volume;   /* m^3: what stays when the water is gone */
     double relative_humidity; /* of the air around an evaporating drop, 0 to 1 */
+    int spherical;           /* a spherical Earth (dragarc_forces_earth); 0: flat, gravity -g z^ */
+    double earth_radius;     /* m, the sphere's */
+    double omega[3];         /* rad/s, the Earth's rotation (east, north, up); zero when it does not turn */
+    double height_cap;       /* m: on the sphere, heights above this see the air and wind there (INFINITY: none) */
 } dragarc_forces;
 
 /* What the right-hand side saw at one state, for diagnostics and output. */
@@ -74,6 +83,12 @@ void dragarc_forces_spin(dragarc_forces *f, const double axis[3], double decay_t
  * at each evaluation its temperature from its heat balance in the local air, the vapour density excess at its
  * surface from that, and its residue (evaporation.h). */
 void dragarc_forces_evaporation(dragarc_forces *f, double relative_humidity);
+
+/* Fly over this Earth (earth.h; borrowed values are copied): flat changes nothing; on a sphere, gravity falls off
+ * with the distance from the centre, the rotation (if any) adds the Coriolis and centrifugal terms, and the air
+ * and wind are taken at the height above the sphere, held at `ceiling` (m above the datum; INFINITY: not held)
+ * for the trial states of a step that poke above the top of the atmosphere model. */
+void dragarc_forces_earth(dragarc_forces *f, const dragarc_earth *earth, double ceiling);
 
 /* dy/dt at state y (DRAGARC_STATE_DIM values) into dydt (as many); fills *flow if not NULL. Returns
  * DRAGARC_OK, or the atmosphere's error (e.g. DRAGARC_ERANGE above 86 km) with err filled. Pure: no I/O, no

@@ -14,6 +14,7 @@
 #include "dragarc/atmosphere.h"
 #include "dragarc/bounce.h"
 #include "dragarc/dragarc.h"
+#include "dragarc/earth.h"
 #include "dragarc/projectile.h"
 #include "dragarc/wind.h"
 
@@ -53,7 +54,8 @@ typedef struct dragarc_scenario {
     char name[128];
     dragarc_projectile projectile; /* owned */
     dragarc_launch launch;
-    double gravity;                /* m/s^2, > 0 (default 9.80665) */
+    double gravity;                /* m/s^2, > 0 (default 9.80665); on a spherical Earth the gravitation at its surface */
+    dragarc_earth earth;           /* environment.earth (default flat) */
     dragarc_atmosphere atmosphere;
     dragarc_wind wind;             /* owned */
     double ground_elevation;       /* m above the site datum: the impact plane */
@@ -68,6 +70,10 @@ void dragarc_scenario_default(dragarc_scenario *s);
 
 /* Validate a whole scenario; err->field is the full path ("launch.elevation"). */
 int dragarc_scenario_check(const dragarc_scenario *s, dragarc_error *err);
+
+/* Set the geodetic latitude (rad) of the frame's origin, which a turning spherical Earth needs (e.g. per breakup
+ * of a footprint); DRAGARC_EINVAL (field "environment.earth.latitude") outside [-pi/2, pi/2]. */
+int dragarc_scenario_set_latitude(dragarc_scenario *s, double latitude, dragarc_error *err);
 
 /* Deep copy. */
 int dragarc_scenario_copy(dragarc_scenario *dst, const dragarc_scenario *src, dragarc_error *err);

@@ -8,6 +8,14 @@ static const char LIMITS[] =
     "Model limits: a point mass with drag, gravity, buoyancy and (only where a lift model is given) spin lift "
     "about a fixed axis, on a flat, non-rotating Earth; no gusts or turbulence, no tumbling. Treat results as "
     "estimates and check them against measurement before relying on them.";
+static const char LIMITS_SPHERE[] =
+    "Model limits: a point mass with drag, gravity, buoyancy and (only where a lift model is given) spin lift "
+    "about a fixed axis, on a spherical, non-rotating Earth with inverse-square gravity; no gusts or turbulence, no "
+    "tumbling. Treat results as estimates and check them against measurement before relying on them.";
+static const char LIMITS_TURNING[] =
+    "Model limits: a point mass with drag, gravity, buoyancy and (only where a lift model is given) spin lift "
+    "about a fixed axis, on a spherical, rotating Earth with inverse-square gravity; no gusts or turbulence, no "
+    "tumbling. Treat results as estimates and check them against measurement before relying on them.";
 static const char DECIDE[] =
     "Safety distances, spectator and worker exclusion zones, spray buffer zones and debris hazard areas are set "
     "by local codes, product labels, regulations and licensed practice, not by this estimate.";
@@ -75,7 +83,9 @@ size_t dragarc_cautions_notes(unsigned notes, const char **out, size_t max)
 {
     const char *all[DRAGARC_CAUTIONS_MAX];
     size_t n = 0;
-    all[n++] = LIMITS;
+    all[n++] = notes & DRAGARC_NOTE_ROTATING_EARTH     ? LIMITS_TURNING
+               : notes & DRAGARC_NOTE_SPHERICAL_EARTH ? LIMITS_SPHERE
+                                                       : LIMITS;
     all[n++] = DECIDE;
     if (notes & DRAGARC_NOTE_HIGH_ENERGY)
         all[n++] = ENERGY;

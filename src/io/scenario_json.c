@@ -222,6 +222,8 @@ static const struct {
     {"environment.atmosphere.scale_height", DRAGARC_Q_LENGTH},
     {"environment.atmosphere.pressure", DRAGARC_Q_PRESSURE},
     {"environment.atmosphere.relative_humidity", DRAGARC_Q_NUMBER},
+    {"environment.earth.latitude", DRAGARC_Q_ANGLE},
+    {"environment.earth.radius", DRAGARC_Q_LENGTH},
     {"environment.wind.speed", DRAGARC_Q_SPEED},
     {"environment.wind.from", DRAGARC_Q_ANGLE},
     {"environment.wind.ref_height", DRAGARC_Q_LENGTH},
@@ -1061,12 +1063,51 @@ static int read_wind(const cJSON *j, dragarc_wind *w, dragarc_error *err)
     return read_wind_at(j, "environment.wind", w, err);
 }
 
+/* environment.earth: {"model": "flat"} or {"model": "spherical", "rotation", "latitude" (degrees), "radius" (m),
+ * "rotation_rate" (rad/s)}. */
+static int read_earth(const cJSON *j, dragarc_earth *e, dragarc_error *err)
+{
+    const char *path = "environment.earth";
+    TRY(want_object(j, path, err));
+    const char *model = NULL;
+    TRY(get_string(j, path, "model", 1, &model, err));
+    dragarc_earth_default(e);
+    if (strcmp(model, "flat") == 0) {
+        static const char *const keys[] = {"model", NULL};
+        return check_keys(j, path, keys, err);
+    }
+    if (strcmp(model, "spherical") != 0)
+        return dragarc_error_set(err, DRAGARC_EINVAL, "environment.earth.model",
+                                 "unknown Earth model \"%s\" (flat, spherical)", model);
+    static const char *const keys[] = {"model", "rotation", "latitude", "radius", "rotation_rate", NULL};
+    TRY(check_keys(j, path, keys, err));
+    e->model = DRAGARC_EARTH_SPHERICAL;
+    const cJSON *rot = cJSON_GetObjectItemCaseSensitive(j, "rotation");
+    if (rot && !cJSON_IsBool(rot))
+        return dragarc_error_set(err, DRAGARC_EINVAL, "environment.earth.rotation", "must be true or false, not %s",
+                                 type_name(rot));
+    if (rot)
+        e->rotation = cJSON_IsTrue(rot);
+    double deg = 0.0;
+    TRY(get_number(j, path, "latitude", 0, &deg, &e->latitude_given, err));
+    e->latitude = deg * DRAGARC_DEG;
+    TRY(get_number(j, path, "radius", 0, &e->radius, NULL, err));
+    TRY(get_number(j, path, "rotation_rate", 0, &e->rotation_rate, NULL, err));
+    int rc = dragarc_earth_check(e, err);
+    if (rc != DRAGARC_OK)
+        dragarc_error_prefix(err, path);
+    return rc;
+}
+
 static int read_environment(const cJSON *j, dragarc_scenario *s, dragarc_error *err)
 {
-    static const char *const keys[] = {"gravity", "atmosphere", "wind", NULL};
+    static const char *const keys[] = {"gravity", "atmosphere", "wind", "earth", NULL};
     TRY(want_object(j, "environment", err));
     TRY(check_keys(j, "environment", keys, err));
     TRY(get_number(j, "environment", "gravity", 0, &s->gravity, NULL, err));
+    const cJSON *ea = cJSON_GetObjectItemCaseSensitive(j, "earth");
+    if (ea)
+        TRY(read_earth(ea, &s->earth, err));
     const cJSON *a = cJSON_GetObjectItemCaseSensitive(j, "atmosphere");
     if (a)
         TRY(read_atmosphere(a, &s->atmosphere, err));

@@ -16,6 +16,9 @@
  *   g0 = z - z_ground (impact, descending), g1 = vz (apex, descending), g2 = z - z_top (leaving the top of
  *   the atmosphere model, ascending: an error); samples from CVODE's dense output (CVodeGetDky).
  * Every path runs one step at a time, so sampling never shortens the steps.
+ * On a spherical Earth (earth.h) every event, the step limit at kinks and the apex watch the height above the
+ * sphere h = |r| - R and its rate (r . v) / |r| in place of z and vz; samples and the impact are reported as
+ * dragarc_earth_report gives them (great-circle offsets, h, the velocity in the local frame there).
  */
 #include <float.h>
 #include <math.h>
@@ -72,6 +75,24 @@ typedef struct flight_ctx {
  * (continuous, and all but vacuum there), while the events stop a flight that really climbs past it. */
 static void full_state(const struct flight_ctx *c, const double *y, double ys[NS]);
 
+/* The height above the datum that the events watch: z on the flat Earth, |r| - R on the sphere (earth.h). */
+static double height(const flight_ctx *c, const double *y)
+{
+    return c->forces.spherical ? dragarc_earth_height(c->forces.earth_radius, y) : y[2];
+}
+
+/* Its rate of change: vz, or (r . v) / |r|. */
+static double climb(const flight_ctx *c, const double *y)
+{
+    return c->forces.spherical ? dragarc_earth_climb(c->forces.earth_radius, y, y + 3) : y[5];
+}
+
+/* What an event watches, by the state index it is named after: 2 the height, 5 its rate, 7 the mass. */
+static double event_value(const flight_ctx *c, const double *y, int k)
+{
+    return k == 2 ? height(c, y) : k == 5 ? climb(c, y) : y[k];
+}
+
 static int rhs(sunrealtype t, N_Vector y, N_Vector ydot, void *user)
 {
     (void)t;
@@ -109,9 +130,10 @@ static int roots(sunrealtype t, N_Vector y, sunrealtype *g, void *user)
     (void)t;
     const flight_ctx *c = user;
     const double *yv = N_VGetArrayPointer(y);
-    g[0] = yv[2] - c->forces.ground_elevation;
-    g[1] = yv[5];
-    g[2] = isfinite(c->ceiling) ? yv[2] - c->ceiling : -1.0;
+    const double h = height(c, yv);
+    g[0] = h - c->forces.ground_elevation;
+    g[1] = climb(c, yv);
+    g[2] = isfinite(c->ceiling) ? h - c->ceiling : -1.0;
     g[3] = c->n == NS && c->mass_stop > 0.0 ? yv[7] - c->mass_stop : 1.0;
     return 0;
 }
@@ -189,9 +211,16 @@ static int push_point(dragarc_flight *f, size_t *cap, const flight_ctx *c, doubl
     double d[NS];
     dragarc_flow flow;
     p->t = t;
-    for (int i = 0; i < 3; i++) {
-        p->pos[i] = y[i];
-        p->vel[i] = y[i + 3];
+    if (c->forces.spherical) {
+        double rep[6];
+        dragarc_earth_report(c->forces.earth_radius, y, y + 3, rep);
+        memcpy(p->pos, rep, sizeof p->pos);
+        memcpy(p->vel, rep + 3, sizeof p->vel);
+    } else {
+        for (int i = 0; i < 3; i++) {
+            p->pos[i] = y[i];
+            p->vel[i] = y[i + 3];
+        }
     }
     p->speed = sqrt(y[3] * y[3] + y[4] * y[4] + y[5] * y[5]);
     double ys[NS];
@@ -317,7 +346,7 @@ static double *widen(const flight_ctx *cx, const double *y, double out[NS])
 static void full_state(const flight_ctx *c, const double *y, double ys[NS])
 {
     widen(c, y, ys);
-    if (!(ys[2] < c->ceiling))
+    if (!c->forces.spherical && !(ys[2] < c->ceiling)) /* on the sphere the forces hold the height (height_cap) */
         ys[2] = c->ceiling;
 }
 
@@ -431,12 +460,13 @@ static int integrate_cvode(const dragarc_scenario *s, flight_ctx *cx, dragarc_me
                 rc = err_left_atmosphere(cx, err, t);
                 goto done;
             }
-            if (found[1] && yv[2] > out->apex_height) {
-                out->apex_height = yv[2];
+            const double h = height(cx, yv);
+            if (found[1] && h > out->apex_height) {
+                out->apex_height = h;
                 out->apex_time = t;
             }
-            if (found[1] && yv[2] < s->ground_elevation) {
-                rc = err_peaks_below(err, yv[2], s->ground_elevation);
+            if (found[1] && h < s->ground_elevation) {
+                rc = err_peaks_below(err, h, s->ground_elevation);
                 goto done;
             }
             if (found[3])
@@ -444,11 +474,11 @@ static int integrate_cvode(const dragarc_scenario *s, flight_ctx *cx, dragarc_me
             if (found[0] || found[3])
                 landed = 1;
         } else if (flag == CV_TSTOP_RETURN || t >= s->solver.max_time) {
-            rc = err_no_impact(err, s, yv[2]);
+            rc = err_no_impact(err, s, height(cx, yv));
             goto done;
         }
-        if (!landed && yv[2] > out->apex_height) { /* a flight that climbs to the end of a step */
-            out->apex_height = yv[2];
+        if (!landed && height(cx, yv) > out->apex_height) { /* a flight that climbs to the end of a step */
+            out->apex_height = height(cx, yv);
             out->apex_time = t;
         }
     }
@@ -456,7 +486,7 @@ static int integrate_cvode(const dragarc_scenario *s, flight_ctx *cx, dragarc_me
     widen(cx, N_VGetArrayPointer(y), out->impact);
     if (out->evaporated)
         out->impact[7] = cx->mass_stop; /* the root finder leaves it at round-off level */
-    else
+    else if (!cx->forces.spherical)
         out->impact[2] = s->ground_elevation; /* the root finder leaves |z - z_g| at round-off level */
     if ((rc = push_point(out, cap_, cx, t, out->impact)) != DRAGARC_OK)
         goto nomem;
@@ -569,7 +599,8 @@ static int rk_locate(gsl_odeiv2_step *st, const gsl_odeiv2_system *sys, double t
                      const double ya[NS], double t1, const double y1[NS], int k, double level, double sign,
                      double *tstar, double ystar[NS])
 {
-    bracket br = {ta, sign * (ya[k] - level), t1, sign * (y1[k] - level), 0};
+    const flight_ctx *c = sys->params;
+    bracket br = {ta, sign * (event_value(c, ya, k) - level), t1, sign * (event_value(c, y1, k) - level), 0};
     memcpy(ystar, y1, NS * sizeof *ystar);
     *tstar = t1;
     /* Close enough when g is within 1e-12 of its change over the bracket: the crossing time is then known to
@@ -579,7 +610,7 @@ static int rk_locate(gsl_odeiv2_step *st, const gsl_odeiv2_system *sys, double t
         double m = bracket_trial(&br), ym[NS];
         if (rk_partial(st, sys, t0, y0, m - t0, ym) != GSL_SUCCESS)
             return -1;
-        double fm = sign * (ym[k] - level);
+        double fm = sign * (event_value(c, ym, k) - level);
         if (fm <= 0.0 || fabs(fm) <= gtol) {
             memcpy(ystar, ym, NS * sizeof *ystar);
             *tstar = m;
@@ -641,10 +672,11 @@ static int integrate_rk(const dragarc_scenario *s, flight_ctx *cx, double dt, co
         double t_top = INFINITY, t_apex = INFINITY, t_hit = INFINITY;
         double y_apex[NS], y_hit[NS], y_top[NS];
         const double zg = s->ground_elevation;
-        if (isfinite(cx->ceiling) && y[2] > cx->ceiling && yprev[2] <= cx->ceiling &&
+        const double zh = height(cx, y), zhprev = height(cx, yprev);
+        if (isfinite(cx->ceiling) && zh > cx->ceiling && zhprev <= cx->ceiling &&
             rk_locate(part, &sys, tprev, yprev, tprev, yprev, t, y, 2, cx->ceiling, -1.0, &t_top, y_top) != 0)
             goto partial_failed;
-        if (yprev[5] > 0.0 && y[5] <= 0.0 &&
+        if (climb(cx, yprev) > 0.0 && climb(cx, y) <= 0.0 &&
             rk_locate(part, &sys, tprev, yprev, tprev, yprev, t, y, 5, 0.0, 1.0, &t_apex, y_apex) != 0)
             goto partial_failed;
         /* The descent through the ground plane: from the apex when the step holds one (a long step may climb
@@ -652,7 +684,7 @@ static int integrate_rk(const dragarc_scenario *s, flight_ctx *cx, double dt, co
         {
             double ta = isfinite(t_apex) ? t_apex : tprev;
             const double *ya = isfinite(t_apex) ? y_apex : yprev;
-            if (ya[2] > zg && y[2] <= zg &&
+            if (height(cx, ya) > zg && zh <= zg &&
                 rk_locate(part, &sys, tprev, yprev, ta, ya, t, y, 2, zg, 1.0, &t_hit, y_hit) != 0)
                 goto partial_failed;
         }
@@ -687,12 +719,13 @@ static int integrate_rk(const dragarc_scenario *s, flight_ctx *cx, double dt, co
             goto done;
         }
         if (t_apex < t_hit) {
-            if (y_apex[2] > out->apex_height) {
-                out->apex_height = y_apex[2];
+            const double ha = height(cx, y_apex);
+            if (ha > out->apex_height) {
+                out->apex_height = ha;
                 out->apex_time = t_apex;
             }
-            if (y_apex[2] < s->ground_elevation) {
-                rc = err_peaks_below(err, y_apex[2], s->ground_elevation);
+            if (ha < s->ground_elevation) {
+                rc = err_peaks_below(err, ha, s->ground_elevation);
                 goto done;
             }
         }
@@ -701,7 +734,7 @@ static int integrate_rk(const dragarc_scenario *s, flight_ctx *cx, double dt, co
             memcpy(out->impact, y_hit, sizeof out->impact);
             if (out->evaporated)
                 out->impact[7] = cx->mass_stop;
-            else
+            else if (!cx->forces.spherical)
                 out->impact[2] = s->ground_elevation; /* the crossing is located to round-off */
             if ((rc = push_point(out, cap, cx, t_hit, out->impact)) != DRAGARC_OK)
                 goto done;
@@ -709,12 +742,12 @@ static int integrate_rk(const dragarc_scenario *s, flight_ctx *cx, double dt, co
             break;
         }
         observe(out, cx, y);
-        if (y[2] > out->apex_height) {
-            out->apex_height = y[2];
+        if (zh > out->apex_height) {
+            out->apex_height = zh;
             out->apex_time = t;
         }
         if (t >= s->solver.max_time) {
-            rc = err_no_impact(err, s, y[2]);
+            rc = err_no_impact(err, s, zh);
             goto done;
         }
     }
@@ -776,7 +809,15 @@ static double kink_limit(double t, const double y[NS], const double f[NS], doubl
 {
     (void)t;
     const flight_ctx *c = user;
-    const double z = y[2], vz = y[5], a = 0.5 * f[5];
+    double z = y[2], vz = y[5], a = 0.5 * f[5];
+    if (c->forces.spherical) {
+        /* h, dh/dt and d2h/dt2 = (|v|^2 - (dh/dt)^2 + r . a) / |r| on the sphere */
+        const double R = c->forces.earth_radius, r[3] = {y[0], y[1], y[2] + R};
+        const double rn = sqrt(r[0] * r[0] + r[1] * r[1] + r[2] * r[2]);
+        z = height(c, y);
+        vz = climb(c, y);
+        a = 0.5 * ((y[3] * y[3] + y[4] * y[4] + y[5] * y[5] - vz * vz + r[0] * f[3] + r[1] * f[4] + r[2] * f[5]) / rn);
+    }
     const double reach = fabs(vz) * h + fabs(a) * h * h;
     double best = INFINITY, gap = 0.0;
     for (size_t i = 0; i < c->nbreaks; i++) {
@@ -811,11 +852,20 @@ static double kink_limit(double t, const double y[NS], const double f[NS], doubl
 /* The time in (ta, t] of the last step where g = sign (y_k - level) falls through zero, by the Illinois
  * variant of regula falsi (Dowell & Jarratt 1971, BIT 11:168) on the continuous extension, to round-off:
  * each trial costs a polynomial, not a step. g(ta) > 0 >= g(t) on entry. */
-static double dense_locate(const dop853 *st, double ta, int k, double level, double sign)
+static double dense_value(const flight_ctx *c, const dop853 *st, double t, int k)
 {
-    bracket br = {ta, sign * (dop853_dense_component(st, ta, k) - level), st->t, sign * (st->y[k] - level), 0};
+    if (!c->forces.spherical)
+        return dop853_dense_component(st, t, k);
+    double y[NS];
+    dop853_dense_eval(st, t, y);
+    return event_value(c, y, k);
+}
+
+static double dense_locate(const flight_ctx *c, const dop853 *st, double ta, int k, double level, double sign)
+{
+    bracket br = {ta, sign * (dense_value(c, st, ta, k) - level), st->t, sign * (event_value(c, st->y, k) - level), 0};
     for (int it = 0; it < 200 && br.b - br.a > 4.0 * DBL_EPSILON * fmax(fabs(br.a), fabs(br.b)); it++) {
-        double m = bracket_trial(&br), fm = sign * (dop853_dense_component(st, m, k) - level);
+        double m = bracket_trial(&br), fm = sign * (dense_value(c, st, m, k) - level);
         bracket_update(&br, m, fm);
         if (fm == 0.0)
             break;
@@ -834,7 +884,8 @@ static int polish_impact(const dop853 *st, flight_ctx *cx, double zg, double *t_
     double ys[NS], f[NS];
     if (dop853_partial(st, *t_hit - st->t_old, ys) != DOP853_OK || dop_rhs(*t_hit, ys, f, cx) != 0)
         return -1;
-    double dtc = ys[5] < 0.0 ? -(ys[2] - zg) / ys[5] : 0.0;
+    const double vh = climb(cx, ys);
+    double dtc = vh < 0.0 ? -(height(cx, ys) - zg) / vh : 0.0;
     if (!(fabs(dtc) <= 1e-6 * (st->t - st->t_old)))
         return 0; /* a grazing crossing: keep the interpolated state */
     *t_hit += dtc;
@@ -866,18 +917,18 @@ static int dop_step_events(const dragarc_scenario *s, flight_ctx *cx, dop853 *st
     double t_top = INFINITY, t_apex = INFINITY, t_hit = INFINITY;
     double y_apex[NS], y_hit[NS];
     if (crosses_top)
-        t_top = dense_locate(st, st->t_old, 2, cx->ceiling, -1.0);
+        t_top = dense_locate(cx, st, st->t_old, 2, cx->ceiling, -1.0);
     if (apex) {
-        t_apex = dense_locate(st, st->t_old, 5, 0.0, 1.0);
+        t_apex = dense_locate(cx, st, st->t_old, 5, 0.0, 1.0);
         dop853_dense_eval(st, t_apex, y_apex);
     }
     /* The descent through the ground plane: from the apex when the step holds one (a long step may climb
      * from the plane, or from below it, and come back down through it), else from the step's start. */
     {
         double ta = isfinite(t_apex) ? t_apex : st->t_old;
-        double za = isfinite(t_apex) ? y_apex[2] : yp[2];
-        if (za > zg && y[2] <= zg) {
-            t_hit = dense_locate(st, ta, 2, zg, 1.0);
+        double za = height(cx, isfinite(t_apex) ? y_apex : yp);
+        if (za > zg && height(cx, y) <= zg) {
+            t_hit = dense_locate(cx, st, ta, 2, zg, 1.0);
             dop853_dense_eval(st, t_hit, y_hit);
             if (polish_impact(st, cx, zg, &t_hit, y_hit) != 0)
                 return dop_failure(cx, DOP853_ERHS, t_hit, err);
@@ -885,7 +936,7 @@ static int dop_step_events(const dragarc_scenario *s, flight_ctx *cx, dop853 *st
     }
     /* An evaporating drop that shrinks away before it lands ends the flight there. */
     if (cx->n == NS && cx->mass_stop > 0.0 && y[7] <= cx->mass_stop && yp[7] > cx->mass_stop) {
-        double t_van = dense_locate(st, st->t_old, 7, cx->mass_stop, 1.0);
+        double t_van = dense_locate(cx, st, st->t_old, 7, cx->mass_stop, 1.0);
         if (t_van < t_hit) {
             t_hit = t_van;
             dop853_dense_eval(st, t_hit, y_hit);
@@ -908,19 +959,20 @@ static int dop_step_events(const dragarc_scenario *s, flight_ctx *cx, dop853 *st
     if (isfinite(t_top) && t_top <= fmin(t_hit, t_apex))
         return err_left_atmosphere(cx, err, t_top);
     if (t_apex < t_hit) {
-        if (y_apex[2] > out->apex_height) {
-            out->apex_height = y_apex[2];
+        const double ha = height(cx, y_apex);
+        if (ha > out->apex_height) {
+            out->apex_height = ha;
             out->apex_time = t_apex;
         }
-        if (y_apex[2] < zg)
-            return err_peaks_below(err, y_apex[2], zg);
+        if (ha < zg)
+            return err_peaks_below(err, ha, zg);
     }
     if (isfinite(t_hit)) {
         observe(out, cx, y_hit);
         memcpy(out->impact, y_hit, sizeof out->impact);
         if (out->evaporated)
             out->impact[7] = cx->mass_stop;
-        else
+        else if (!cx->forces.spherical)
             out->impact[2] = zg; /* the crossing is located to round-off */
         if ((rc = push_point(out, cap, cx, t_hit, out->impact)) != DRAGARC_OK)
             return rc;
@@ -966,7 +1018,7 @@ static int integrate_dop853(const dragarc_scenario *s, flight_ctx *cx, double dt
     for (;;) {
         ds = dop853_step(&st, s->solver.max_time);
         if (ds == DOP853_EEND) {
-            return err_no_impact(err, s, st.y[2]);
+            return err_no_impact(err, s, height(cx, st.y));
         }
         if (ds != DOP853_OK)
             return dop_failure(cx, ds, st.t, err);
@@ -979,24 +1031,25 @@ static int integrate_dop853(const dragarc_scenario *s, flight_ctx *cx, double dt
                                      s->solver.max_steps, st.t);
         const double *yp = st.y_old, *y = st.y;
         const dragarc_flow step_flow = cx->flow; /* the flow at the step's end */
-        int crosses_top = isfinite(cx->ceiling) && y[2] > cx->ceiling && yp[2] <= cx->ceiling;
-        int apex = yp[5] > 0.0 && y[5] <= 0.0;
-        int may_land = fmax(yp[2], y[2]) > zg || apex;
+        const double h = height(cx, y), hp = height(cx, yp);
+        int crosses_top = isfinite(cx->ceiling) && h > cx->ceiling && hp <= cx->ceiling;
+        int apex = climb(cx, yp) > 0.0 && climb(cx, y) <= 0.0;
+        int may_land = fmax(hp, h) > zg || apex;
         int sample = dt > 0.0 && k * dt < st.t;
         int vanishes = cx->n == NS && cx->mass_stop > 0.0 && y[7] <= cx->mass_stop;
-        if (crosses_top || apex || (may_land && y[2] <= zg) || sample || vanishes) {
+        if (crosses_top || apex || (may_land && h <= zg) || sample || vanishes) {
             int landed = 0;
             rc = dop_step_events(s, cx, &st, dt, &k, crosses_top, apex, out, cap, &landed, t_end, err);
             if (rc != DRAGARC_OK || landed)
                 return rc;
         }
         observe_flow(out, cx, step_flow);
-        if (y[2] > out->apex_height) {
-            out->apex_height = y[2];
+        if (h > out->apex_height) {
+            out->apex_height = h;
             out->apex_time = st.t;
         }
         if (st.t >= s->solver.max_time)
-            return err_no_impact(err, s, y[2]);
+            return err_no_impact(err, s, h);
     }
 }
 
@@ -1183,6 +1236,11 @@ int dragarc_flight_run(const dragarc_scenario *s, double dt, dragarc_flight *out
         set_spin(s, &c, NULL, 0.0);
     }
     c.ceiling = dragarc_atmosphere_ceiling(&s->atmosphere);
+    dragarc_forces_earth(&c.forces, &s->earth, c.ceiling);
+    if (c.forces.spherical)
+        out->notes |= DRAGARC_NOTE_SPHERICAL_EARTH;
+    if (c.forces.omega[1] != 0.0 || c.forces.omega[2] != 0.0)
+        out->notes |= DRAGARC_NOTE_ROTATING_EARTH;
 
     double y0[NS];
     launch_state(s, y0);
@@ -1217,6 +1275,17 @@ int dragarc_flight_run(const dragarc_scenario *s, double dt, dragarc_flight *out
     rc = integrate(s, &c, method, dt, y0, out, &cap, &t, err);
     if (rc != DRAGARC_OK)
         return rc;
+    if (c.forces.spherical) {
+        /* the impact as reported on the sphere (earth.h): offsets along the great circle, the height, the velocity
+         * in the local frame there; the last row (the impact's) on the ground exactly, as on the flat Earth */
+        double cart[6];
+        memcpy(cart, out->impact, sizeof cart);
+        dragarc_earth_report(c.forces.earth_radius, cart, cart + 3, out->impact);
+        if (!out->evaporated) {
+            out->impact[2] = s->ground_elevation;
+            out->points[out->npoints - 1].pos[2] = s->ground_elevation;
+        }
+    }
     double ex = out->impact[0], ny = out->impact[1];
     double az = s->launch.azimuth;
     out->time_of_flight = t;

@@ -13,8 +13,15 @@
  * neglected); the rate decays exponentially (an e-folding time tau) or by the air's friction torque,
  * dw/dt = -k w v / r (Smits, A. J. & Smith, D. R. 1994, "A new aerodynamic model of a golf ball in flight",
  * Science and Golf II, 340-347, k about 2e-5 for a golf ball, as used by Penner, A. R. 2001, "The physics of
- * golf: the optimum loft of a driver", Am. J. Phys. 69:563; recalled). No added mass, Basset history force or
- * Earth rotation in this model (see docs/models.md).
+ * golf: the optimum loft of a driver", Am. J. Phys. 69:563; recalled). No added mass or Basset history force in
+ * this model (see docs/models.md).
+ * On a spherical Earth (earth.h), with r = (x, y, z + R) from the centre and Omega the Earth's rotation in the local
+ * frame (zero when it does not turn):
+ *   dv/dt = (1 - rho_f V / m) (-g0 R^2 r / |r|^3 - Omega x (Omega x r)) - 2 Omega x v - (D / m)(v - u) + F_L / m
+ * the equation of motion in a frame turning at the constant rate Omega about the Earth's centre (Landau, L. D. &
+ * Lifshitz, E. M. 1976, Mechanics, 3rd ed., Pergamon, section 39, eq. 39.7; recalled), v the velocity relative
+ * to the Earth. The buoyancy is that of air at rest on the turning Earth, whose pressure gradient balances both the
+ * gravitation and the centrifugal acceleration; the air's state and the wind u are those at h = |r| - R.
  */
 #include <math.h>
 
@@ -32,7 +39,19 @@ void dragarc_forces_init(dragarc_forces *f, const dragarc_projectile *projectile
     dragarc_wind_toward(wind->from, &f->wind_toward[0], &f->wind_toward[1]);
     f->inv_mass = 1.0 / projectile->mass;
     f->spin_axis[0] = f->spin_axis[1] = f->spin_axis[2] = 0.0;
+    f->spherical = 0;
+    f->earth_radius = 0.0;
+    f->omega[0] = f->omega[1] = f->omega[2] = 0.0;
+    f->height_cap = INFINITY;
     f->prepared = 1;
+}
+
+void dragarc_forces_earth(dragarc_forces *f, const dragarc_earth *earth, double ceiling)
+{
+    f->spherical = earth->model == DRAGARC_EARTH_SPHERICAL;
+    f->earth_radius = f->spherical ? earth->radius : 0.0;
+    dragarc_earth_omega(earth, f->omega);
+    f->height_cap = f->spherical ? ceiling : INFINITY;
 }
 
 void dragarc_spin_axis(double tilt, double azimuth, double axis[3])
@@ -66,11 +85,14 @@ int dragarc_forces_eval(const dragarc_forces *f, const double y[DRAGARC_STATE_DI
 {
     const dragarc_projectile *p = f->projectile;
     dragarc_air air;
-    int rc = dragarc_atmosphere_eval(f->atmosphere, y[2], &air, err);
+    double z = y[2]; /* the height the air and wind are taken at */
+    if (f->spherical)
+        z = fmin(dragarc_earth_height(f->earth_radius, y), f->height_cap);
+    int rc = dragarc_atmosphere_eval(f->atmosphere, z, &air, err);
     if (rc != DRAGARC_OK)
         return rc;
     double w[3];
-    dragarc_wind_eval_toward(f->wind, y[2] - f->ground_elevation, f->prepared ? f->wind_toward : NULL, w);
+    dragarc_wind_eval_toward(f->wind, z - f->ground_elevation, f->prepared ? f->wind_toward : NULL, w);
     double rel[3] = {y[3] - w[0], y[4] - w[1], y[5] - w[2]};
     double speed = sqrt(rel[0] * rel[0] + rel[1] * rel[1] + rel[2] * rel[2]);
     double inv_m = f->prepared ? f->inv_mass : 1.0 / p->mass;
@@ -119,9 +141,25 @@ int dragarc_forces_eval(const dragarc_forces *f, const double y[DRAGARC_STATE_DI
     dydt[0] = y[3];
     dydt[1] = y[4];
     dydt[2] = y[5];
-    dydt[3] = -dm * rel[0] + lift_k * c[0];
-    dydt[4] = -dm * rel[1] + lift_k * c[1];
-    dydt[5] = -f->gravity + buoy - dm * rel[2] + lift_k * c[2];
+    if (!f->spherical) {
+        dydt[3] = -dm * rel[0] + lift_k * c[0];
+        dydt[4] = -dm * rel[1] + lift_k * c[1];
+        dydt[5] = -f->gravity + buoy - dm * rel[2] + lift_k * c[2];
+    } else {
+        const double R = f->earth_radius, *om = f->omega, *v = y + 3;
+        const double r[3] = {y[0], y[1], y[2] + R};
+        const double rn2 = r[0] * r[0] + r[1] * r[1] + r[2] * r[2], rn = sqrt(rn2);
+        const double gk = -f->gravity * R * R / (rn2 * rn);    /* gravitation gk r */
+        const double om2 = om[0] * om[0] + om[1] * om[1] + om[2] * om[2];
+        const double omr = om[0] * r[0] + om[1] * r[1] + om[2] * r[2];
+        const double cor[3] = {-2.0 * (om[1] * v[2] - om[2] * v[1]), -2.0 * (om[2] * v[0] - om[0] * v[2]),
+                               -2.0 * (om[0] * v[1] - om[1] * v[0])};
+        const double sink = 1.0 - air.density * volume * inv_m; /* weight less buoyancy, per unit weight */
+        for (int i = 0; i < 3; i++) {
+            double cf = om2 * r[i] - om[i] * omr; /* -Omega x (Omega x r) */
+            dydt[3 + i] = sink * (gk * r[i] + cf) + cor[i] - dm * rel[i] + lift_k * c[i];
+        }
+    }
     dydt[6] = dspin;
     dydt[7] = dmass / p->mass;
     if (flow) {

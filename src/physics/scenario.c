@@ -13,6 +13,7 @@ void dragarc_scenario_default(dragarc_scenario *s)
     s->gravity = DRAGARC_ISA_G0;
     dragarc_atmosphere_default(&s->atmosphere);
     dragarc_wind_default(&s->wind);
+    dragarc_earth_default(&s->earth);
     s->solver.rtol = 1e-8;
     s->solver.atol = 1e-6;
     s->solver.max_time = 3600.0;
@@ -89,6 +90,14 @@ int dragarc_scenario_check(const dragarc_scenario *s, dragarc_error *err)
         dragarc_error_prefix(err, "environment.atmosphere");
         return rc;
     }
+    if ((rc = dragarc_earth_check(&s->earth, err)) != DRAGARC_OK) {
+        dragarc_error_prefix(err, "environment.earth");
+        return rc;
+    }
+    if (s->earth.model == DRAGARC_EARTH_SPHERICAL && s->ground_surface_given)
+        return dragarc_error_set(err, DRAGARC_EINVAL, "ground.surface",
+                                 "bouncing and rolling are modelled on a flat Earth only: remove ground.surface or use "
+                                 "environment.earth.model \"flat\"");
     if (s->atmosphere.model == DRAGARC_ATMOSPHERE_ISA) {
         double top = s->atmosphere.site_elevation + l->height, bottom = s->atmosphere.site_elevation + s->ground_elevation;
         if (top > DRAGARC_ISA_Z_MAX)
@@ -127,6 +136,16 @@ int dragarc_scenario_check(const dragarc_scenario *s, dragarc_error *err)
     if (!(o->max_steps >= 10 && o->max_steps <= 100000000L))
         return dragarc_error_set(err, DRAGARC_EINVAL, "solver.max_steps", "must be between 10 and 1e8 (got %ld)",
                                  o->max_steps);
+    return DRAGARC_OK;
+}
+
+int dragarc_scenario_set_latitude(dragarc_scenario *s, double latitude, dragarc_error *err)
+{
+    if (!(fabs(latitude) <= 0.5 * DRAGARC_PI + 1e-12))
+        return dragarc_error_set(err, DRAGARC_EINVAL, "environment.earth.latitude",
+                                 "must be between -90 and 90 degrees (got %g)", latitude / DRAGARC_DEG);
+    s->earth.latitude = latitude;
+    s->earth.latitude_given = 1;
     return DRAGARC_OK;
 }
 
