@@ -8,7 +8,8 @@
  * (log-normal), plus the velocity the breakup imparts (Delta V: fixed, uniform or Maxwellian in magnitude,
  * isotropic or in a cone in direction), through a wind drawn about the nominal profile (a speed scale and a
  * turn) or picked from a set of profiles. Frame: the flight's local one, x east and y north of the point below
- * the breakup, z up, on a flat Earth with constant gravity (docs/footprint.md says when that is adequate).
+ * the breakup, z up, over the scenario's Earth (earth.h: flat by default, or a sphere turning about the breakup's
+ * latitude; docs/footprint.md says when each is adequate).
  *
  * Random numbers: each sample has its own stream, a GSL MT19937 generator seeded from the run's seed, the class
  * and the sample index (SplitMix64 mixing, 32 bits used by the generator), and draws the same numbers in the same

@@ -1974,6 +1974,22 @@ static int parse_footprint(const char *json, const char *base_dir, dragarc_footp
     if ((rc = read_footprint(root, out, base_dir, err)) != DRAGARC_OK)
         goto done;
     out->base.launch.height = out->breakup.altitude;
+    /* a spherical Earth turns about the breakup's latitude: it is taken from there, not given twice */
+    cJSON *env = cJSON_GetObjectItemCaseSensitive(root, "environment");
+    cJSON *earth = cJSON_IsObject(env) ? cJSON_GetObjectItemCaseSensitive(env, "earth") : NULL;
+    if (cJSON_IsObject(earth)) {
+        if (cJSON_GetObjectItemCaseSensitive(earth, "latitude")) {
+            rc = dragarc_error_set(err, DRAGARC_EINVAL, "environment.earth.latitude",
+                                   "is the breakup's in a footprint scenario: leave it out");
+            goto done;
+        }
+        const cJSON *model = cJSON_GetObjectItemCaseSensitive(earth, "model");
+        if (cJSON_IsString(model) && model->valuestring && strcmp(model->valuestring, "spherical") == 0 &&
+            !cJSON_AddNumberToObject(earth, "latitude", out->breakup.latitude)) {
+            rc = dragarc_error_set(err, DRAGARC_ENOMEM, "environment.earth", "out of memory");
+            goto done;
+        }
+    }
     if ((rc = read_drop_rest(root, "breakup", &out->base, err)) != DRAGARC_OK)
         goto done;
     out->base.projectile.evaporation.enabled = 0;
