@@ -161,6 +161,9 @@ uint64_t dragarc_footprint_stream_seed(uint64_t seed, uint32_t cls, uint32_t sam
 /* Probabilities of the downrange and crossrange quantiles: the central 90 %, 99 % and 99.9 % and the median. */
 #define DRAGARC_FOOTPRINT_NQ 7
 extern const double dragarc_footprint_quantile_probs[DRAGARC_FOOTPRINT_NQ]; /* 0.0005, 0.005, 0.05, 0.5, ... */
+/* Probabilities of the impact speed and energy quantiles. */
+#define DRAGARC_FOOTPRINT_NVQ 4
+extern const double dragarc_footprint_value_probs[DRAGARC_FOOTPRINT_NVQ]; /* 0.05, 0.5, 0.95, 0.99 */
 /* The contours: the highest-density regions holding these shares of the fragments. */
 #define DRAGARC_FOOTPRINT_NREGIONS 3
 extern const double dragarc_footprint_region_probs[DRAGARC_FOOTPRINT_NREGIONS]; /* 0.9, 0.99, 0.999 */
@@ -177,6 +180,7 @@ typedef struct dragarc_footprint_group {
     double inside[3];            /* the weighted share of the impacts inside each ellipse */
     double down[DRAGARC_FOOTPRINT_NQ], cross[DRAGARC_FOOTPRINT_NQ]; /* m, along the breakup heading and right of it */
     double speed_median, speed_max;   /* m/s */
+    double speed_q[DRAGARC_FOOTPRINT_NVQ], energy_q[DRAGARC_FOOTPRINT_NVQ]; /* m/s, J: weighted quantiles */
     double energy_mean, energy_median, energy_max; /* J */
     double time_median;          /* s */
     double hazardous_share;      /* of the landed fragments, at or above the hazard energy */

@@ -154,6 +154,11 @@ char *dragarc_footprint_json(const struct dragarc_footprint_spec *spec, const st
  * energy_j,time_s,fragments (the empty string where a flight did not land). */
 int dragarc_footprint_write_csv(FILE *fp, const struct dragarc_footprint_spec *spec,
                                 const struct dragarc_impact *impacts, dragarc_error *err);
+/* The density of impacts on the summary's grid as CSV, a cell a row (all cells, rows south to north, west to east
+ * within a row): east_m,north_m (the cell's centre),longitude,latitude,fragments_per_km2,probability_per_km2. */
+struct dragarc_footprint_summary;
+int dragarc_footprint_write_grid_csv(FILE *fp, const struct dragarc_footprint_spec *spec,
+                                     const struct dragarc_footprint_summary *s, dragarc_error *err);
 /* The footprint as an RFC 7946 FeatureCollection written to path (src/io/footprint_geojson.c): the breakup point,
  * the impact points (at most DRAGARC_FOOTPRINT_GEOJSON_POINTS, evenly taken), the 1 and 3 sigma ellipses of every
  * class and of all fragments, and the contours. */

@@ -17,8 +17,8 @@
 #include "dragarc/output.h"
 
 static const char HELP[] =
-    "usage: dragarc footprint SCENARIO [--samples N] [--seed S] [--json] [--points FILE.csv] [--geojson FILE]\n"
-    "                                  [--quiet]\n"
+    "usage: dragarc footprint SCENARIO [--samples N] [--seed S] [--json] [--points FILE.csv] [--grid FILE.csv]\n"
+    "                                  [--geojson FILE] [--quiet]\n"
     "\n"
     "Fly every fragment class of a breakup (its place, altitude and velocity with their spreads, each class's\n"
     "ballistic coefficient, drag law and the velocity the breakup gives it, through the scenario's air and wind;\n"
@@ -31,8 +31,8 @@ static const char HELP[] =
     "  --seed S         the run's seed (default the scenario's footprint.seed, else 1): the same seed gives the\n"
     "                   same result on any number of threads\n"
     "  --json           print one JSON object instead of the summary\n"
-    "  --points FILE    every sample's impact as CSV; --geojson FILE the footprint as GeoJSON (RFC 7946); each\n"
-    "                   written whole or not at all\n"
+    "  --points FILE    every sample's impact as CSV; --grid FILE the density of impacts on the grid as CSV;\n"
+    "                   --geojson FILE the footprint as GeoJSON (RFC 7946); each written whole or not at all\n"
     "  --quiet          no progress bar (it shows only when stderr is a terminal)\n"
     "  -h, --help       this help\n";
 
@@ -58,6 +58,12 @@ static int write_points(FILE *fp, const void *ctx, dragarc_error *err)
 {
     const void *const *c = ctx;
     return dragarc_footprint_write_csv(fp, c[0], c[1], err);
+}
+
+static int write_grid(FILE *fp, const void *ctx, dragarc_error *err)
+{
+    const void *const *c = ctx;
+    return dragarc_footprint_write_grid_csv(fp, c[0], c[1], err);
 }
 
 static void print_group(const char *name, const dragarc_footprint_group *g, int hazard)
@@ -155,7 +161,7 @@ static int count_arg(const char *cmd, const char *opt, const char *text, double 
 
 int cmd_footprint(int argc, char **argv)
 {
-    const char *path = NULL, *points = NULL, *geojson = NULL;
+    const char *path = NULL, *points = NULL, *geojson = NULL, *grid = NULL;
     int json = 0, quiet = 0, st;
     double samples = -1.0, seed = -1.0;
     for (int i = 1; i < argc; i++) {
@@ -173,10 +179,10 @@ int cmd_footprint(int argc, char **argv)
         } else if (strcmp(a, "--seed") == 0) {
             if ((st = count_arg("footprint", a, i + 1 < argc ? argv[++i] : NULL, 0, 9007199254740992.0, &seed)) != 0)
                 return st;
-        } else if (strcmp(a, "--points") == 0 || strcmp(a, "--geojson") == 0) {
+        } else if (strcmp(a, "--points") == 0 || strcmp(a, "--geojson") == 0 || strcmp(a, "--grid") == 0) {
             if (++i >= argc)
                 return cli_usage_error("footprint", "%s needs a file name", a);
-            *(a[2] == 'p' ? &points : &geojson) = argv[i];
+            *(a[2] == 'p' ? &points : a[3] == 'e' ? &geojson : &grid) = argv[i];
         } else if ((st = cli_file_argument("footprint", "scenario file", a, &path)) != 0) {
             return st;
         }
@@ -224,6 +230,10 @@ int cmd_footprint(int argc, char **argv)
     if (status == EXIT_OK && points) {
         const void *ctx[2] = {&spec, im};
         status = cli_write_output("--points", points, write_points, ctx);
+    }
+    if (status == EXIT_OK && grid) {
+        const void *ctx[2] = {&spec, &sum};
+        status = cli_write_output("--grid", grid, write_grid, ctx);
     }
     if (status == EXIT_OK && geojson && dragarc_footprint_write_geojson(geojson, &spec, im, &sum, &err) != DRAGARC_OK)
         status = cli_report("--geojson", &err);

@@ -153,3 +153,26 @@ int dragarc_footprint_write_csv(FILE *fp, const dragarc_footprint_spec *spec, co
     }
     return csv_done(fp, err);
 }
+
+int dragarc_footprint_write_grid_csv(FILE *fp, const dragarc_footprint_spec *spec, const dragarc_footprint_summary *s,
+                                     dragarc_error *err)
+{
+    fputs("east_m,north_m,longitude,latitude,fragments_per_km2,probability_per_km2\n", fp);
+    const dragarc_scatter_grid *g = &s->grid;
+    for (size_t j = 0; s->grid_ok && j < g->ny; j++)
+        for (size_t i = 0; i < g->nx; i++) {
+            double e = g->x0 + (i + 0.5) * g->cell, n = g->y0 + (j + 0.5) * g->cell, lat = NAN, lon = NAN;
+            if (dragarc_geo_from_local(spec->breakup.latitude, spec->breakup.longitude, e, n, &lat, &lon, NULL) !=
+                DRAGARC_OK)
+                lat = lon = NAN;
+            double v = g->value[j * g->nx + i];
+            double row[6] = {e, n, lon, lat, v, g->total_weight > 0.0 ? v / g->total_weight : NAN};
+            for (int k = 0; k < 6; k++) {
+                if (k)
+                    fputc(',', fp);
+                dragarc_number_write(fp, row[k]);
+            }
+            fputc('\n', fp);
+        }
+    return csv_done(fp, err);
+}

@@ -546,6 +546,14 @@ static cJSON *footprint_group(const dragarc_footprint_spec *spec, const dragarc_
         add_num(e, "crossrange", g->cross[k]);
         cJSON_AddItemToArray(q, e);
     }
+    cJSON *vq = cJSON_AddArrayToObject(o, "impact_quantiles");
+    for (int k = 0; k < DRAGARC_FOOTPRINT_NVQ && g->landed > 0; k++) {
+        cJSON *e = cJSON_CreateObject();
+        add_num(e, "probability", dragarc_footprint_value_probs[k]);
+        add_num(e, "impact_speed", g->speed_q[k]);
+        add_num(e, "impact_energy", g->energy_q[k]);
+        cJSON_AddItemToArray(vq, e);
+    }
     add_num(o, "impact_speed_median", g->speed_median);
     add_num(o, "impact_speed_max", g->speed_max);
     add_num(o, "impact_energy_mean", g->energy_mean);
@@ -632,7 +640,7 @@ char *dragarc_footprint_json(const dragarc_footprint_spec *spec, const dragarc_i
         {"covariance", "m^2"}, {"semi_major", "m"}, {"semi_minor", "m"}, {"azimuth", "degree"},
         {"downrange", "m"}, {"crossrange", "m"}, {"impact_speed_median", "m/s"}, {"impact_speed_max", "m/s"},
         {"impact_energy_mean", "J"}, {"impact_energy_median", "J"}, {"impact_energy_max", "J"},
-        {"time_median", "s"}, {"mass", "kg"}, {"area", "m^2"}, {"ballistic_coefficient", "kg/m^2"},
+        {"time_median", "s"}, {"impact_speed", "m/s"}, {"impact_energy", "J"}, {"mass", "kg"}, {"area", "m^2"}, {"ballistic_coefficient", "kg/m^2"},
         {"density_threshold", "1/km^2"}, {"grid_cell", "m"}};
     add_units(doc, U, sizeof U / sizeof U[0]);
     add_cautions(doc, DRAGARC_NOTE_DEBRIS);

@@ -17,6 +17,7 @@
 #include "dragarc/footprint.h"
 
 const double dragarc_footprint_quantile_probs[DRAGARC_FOOTPRINT_NQ] = {0.0005, 0.005, 0.05, 0.5, 0.95, 0.995, 0.9995};
+const double dragarc_footprint_value_probs[DRAGARC_FOOTPRINT_NVQ] = {0.05, 0.5, 0.95, 0.99};
 const double dragarc_footprint_region_probs[DRAGARC_FOOTPRINT_NREGIONS] = {0.9, 0.99, 0.999};
 
 void dragarc_footprint_summary_clear(dragarc_footprint_summary *s)
@@ -89,8 +90,14 @@ static void group_stats(const dragarc_footprint_spec *spec, const columns *c, do
     for (int q = 0; q < DRAGARC_FOOTPRINT_NQ; q++)
         g->down[q] = g->cross[q] = NAN;
     g->speed_median = g->energy_mean = g->energy_median = g->time_median = NAN;
+    for (int q = 0; q < DRAGARC_FOOTPRINT_NVQ; q++)
+        g->speed_q[q] = g->energy_q[q] = NAN;
     if (c->n == 0)
         return;
+    dragarc_scatter_quantiles(c->n, c->speed, c->w, dragarc_footprint_value_probs, DRAGARC_FOOTPRINT_NVQ, g->speed_q,
+                              NULL);
+    dragarc_scatter_quantiles(c->n, c->energy, c->w, dragarc_footprint_value_probs, DRAGARC_FOOTPRINT_NVQ,
+                              g->energy_q, NULL);
     g->speed_median = median(c, c->speed), g->speed_max = largest(c, c->speed);
     g->energy_median = median(c, c->energy), g->energy_max = largest(c, c->energy);
     g->time_median = median(c, c->time);
