@@ -49,10 +49,15 @@ def check(ok, name, why=""):
         print(f"FAIL {name}: {why}")
 
 
-def close(a, b, scale=None):
+worst = {}  # the largest relative difference met, by what was compared
+
+
+def close(a, b, scale=None, what="other"):
     """a and b agree to REL relative (of scale, when given: for values that may be near 0)."""
     s = max(abs(b), abs(a)) if scale is None else scale
-    return abs(a - b) <= REL * s
+    d = abs(a - b) / s if s > 0 else abs(a - b)
+    worst[what] = max(worst.get(what, 0.0), d)
+    return d <= REL
 
 
 def reject_constant(name):
@@ -125,22 +130,22 @@ def check_statistics(tag, doc, rows, scenario):
         name = f"{tag}: class {i + 1} ({c['name']})"
         check(landed == c["landed"] and len(mine) == c["flights"], f"{name}: flights and landed",
               f"CSV {len(mine)} and {landed}, JSON {c['flights']} and {c['landed']}")
-        check(close(w, c["fragments"]), f"{name}: fragments", f"CSV {w!r}, JSON {c['fragments']!r}")
+        check(close(w, c["fragments"], what="fragments"), f"{name}: fragments", f"CSV {w!r}, JSON {c['fragments']!r}")
         if landed == c["flights"]:
             want = scenario["fragments"][i].get("count", 1)
             check(close(w, want), f"{name}: fragments = the class count", f"{w!r} against {want}")
-        check(close(e, c["mean_impact"]["east"], spread) and close(n, c["mean_impact"]["north"], spread),
+        check(close(e, c["mean_impact"]["east"], spread, "mean impact") and close(n, c["mean_impact"]["north"], spread, "mean impact"),
               f"{name}: mean impact", f"CSV ({e!r}, {n!r}), JSON ({c['mean_impact']['east']!r}, "
               f"{c['mean_impact']['north']!r})")
-        check(close(hz, c["hazardous_share"], 1.0), f"{name}: hazardous share", f"CSV {hz!r}, JSON {c['hazardous_share']!r}")
+        check(close(hz, c["hazardous_share"], 1.0, "hazardous share"), f"{name}: hazardous share", f"CSV {hz!r}, JSON {c['hazardous_share']!r}")
     landed, w, e, n, hz = stats(rows, thr)
     a = doc["all"]
-    check(close(w, a["fragments"]) and close(w, doc["summary"]["fragments"]), f"{tag}: all fragments",
+    check(close(w, a["fragments"], what="fragments") and close(w, doc["summary"]["fragments"], what="fragments"), f"{tag}: all fragments",
           f"CSV {w!r}, JSON {a['fragments']!r}")
-    check(close(e, a["mean_impact"]["east"], spread) and close(n, a["mean_impact"]["north"], spread),
+    check(close(e, a["mean_impact"]["east"], spread, "mean impact") and close(n, a["mean_impact"]["north"], spread, "mean impact"),
           f"{tag}: all-fragment mean impact, weighted by fragments",
           f"CSV ({e!r}, {n!r}), JSON ({a['mean_impact']['east']!r}, {a['mean_impact']['north']!r})")
-    check(close(hz, a["hazardous_share"], 1.0) and close(hz, doc["summary"]["hazardous_share"], 1.0),
+    check(close(hz, a["hazardous_share"], 1.0, "hazardous share") and close(hz, doc["summary"]["hazardous_share"], 1.0, "hazardous share"),
           f"{tag}: hazardous share of all fragments", f"CSV {hz!r}, JSON {doc['summary']['hazardous_share']!r}")
     print(f"     {tag}: {landed} landed, {w:.6g} fragments, mean ({e:.2f}, {n:.2f}) m, hazardous share {hz:.4f}, "
           f"E_c {doc['summary']['expected_casualties']:.6e}")
@@ -233,16 +238,17 @@ def main(argv):
             check(scenario["fragments"][i].get("beta_spread", 0) == 0, f"{tag}: class {i + 1} has no beta spread")
         per, ec = straight_down_ec(rows, doc, scenario["hazard"]["population"]["density"])
         for i, c in enumerate(doc["classes"]):
-            check(close(per[i], c["expected_casualties"], ec), f"{tag}: class {i + 1} ({c['name']}): E_c",
+            check(close(per[i], c["expected_casualties"], ec, "E_c"), f"{tag}: class {i + 1} ({c['name']}): E_c",
                   f"recomputed {per[i]!r}, JSON {c['expected_casualties']!r}")
         got = doc["summary"]["expected_casualties"]
-        check(close(ec, got) and close(ec, doc["all"]["expected_casualties"]), f"{tag}: E_c of all fragments",
+        check(close(ec, got, what="E_c") and close(ec, doc["all"]["expected_casualties"], what="E_c"), f"{tag}: E_c of all fragments",
               f"recomputed {ec!r}, JSON {got!r}")
         print(f"     {tag}: E_c recomputed {ec!r}, JSON {got!r}, relative difference {abs(ec - got) / got:.1e}")
         hz = [c["hazardous_share"] for c in doc["classes"]]
         check(hz[0] == 1.0 and 0.0 < hz[1] < 1.0 and hz[2] == 0.0,
               f"{tag}: one class above the hazard energy, one across it, one below", repr(hz))
 
+    print("     largest relative differences: " + ", ".join(f"{k} {v:.1e}" for k, v in sorted(worst.items())))
     print(f"{passed} passed, {failed} failed")
     return 1 if failed else 0
 
