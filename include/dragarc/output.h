@@ -151,7 +151,8 @@ struct dragarc_impact;
 char *dragarc_footprint_json(const struct dragarc_footprint_spec *spec, const struct dragarc_impact *impacts,
                              const struct dragarc_footprint_summary *s);
 /* Every sample's impact as CSV: class,sample,outcome,east_m,north_m,longitude,latitude,impact_speed_m_s,
- * energy_j,time_s,fragments (the empty string where a flight did not land). */
+ * impact_angle_deg (below the horizontal),energy_j,time_s,fragments (the empty string where a flight did not
+ * land). */
 int dragarc_footprint_write_csv(FILE *fp, const struct dragarc_footprint_spec *spec,
                                 const struct dragarc_impact *impacts, dragarc_error *err);
 /* The density of impacts on the summary's grid as CSV, a cell a row (all cells, rows south to north, west to east

@@ -66,12 +66,18 @@ static int write_grid(FILE *fp, const void *ctx, dragarc_error *err)
     return dragarc_footprint_write_grid_csv(fp, c[0], c[1], err);
 }
 
+/* v for printing with no decimals: what rounds to zero prints as 0, never -0 */
+static double whole(double v)
+{
+    return fabs(v) < 0.5 ? 0.0 : v;
+}
+
 static void print_group(const char *name, const dragarc_footprint_group *g, int hazard)
 {
     char landed[24], mean[32] = "-", ell[40] = "-", v50[16] = "-", e50[16] = "-", share[16] = "-";
     snprintf(landed, sizeof landed, "%zu/%zu", g->landed, g->flights);
     if (g->moments_ok)
-        snprintf(mean, sizeof mean, "%.0f, %.0f", g->mean[0], g->mean[1]);
+        snprintf(mean, sizeof mean, "%.0f, %.0f", whole(g->mean[0]), whole(g->mean[1]));
     if (g->ellipses_ok)
         snprintf(ell, sizeof ell, "%.0f x %.0f, %.0f", g->ellipse[0].semi_major, g->ellipse[0].semi_minor,
                  fmod(g->ellipse[0].azimuth / DRAGARC_DEG + 360.0, 180.0));
@@ -109,9 +115,10 @@ static void print_summary(const dragarc_footprint_spec *sp, const dragarc_footpr
     print_group("all", all, s->casualty_done);
     if (all->landed > 0) {
         printf("  downrange       99 %% between %.0f and %.0f m, 99.9 %% between %.0f and %.0f m (along %.0f deg)\n",
-               all->down[1], all->down[5], all->down[0], all->down[6], fmod(s->azimuth / DRAGARC_DEG + 360.0, 360.0));
+               whole(all->down[1]), whole(all->down[5]), whole(all->down[0]), whole(all->down[6]),
+               fmod(s->azimuth / DRAGARC_DEG + 360.0, 360.0));
         printf("  crossrange      99 %% between %.0f and %.0f m, 99.9 %% between %.0f and %.0f m (right positive)\n",
-               all->cross[1], all->cross[5], all->cross[0], all->cross[6]);
+               whole(all->cross[1]), whole(all->cross[5]), whole(all->cross[0]), whole(all->cross[6]));
         printf("  impacts         speed up to %.1f m/s, energy up to %.4g J; %.1f %% of the fragments land with %.3g J "
                "or more\n", all->speed_max, all->energy_max, 100.0 * all->hazardous_share, sp->hazard.energy_threshold);
     }

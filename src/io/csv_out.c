@@ -131,7 +131,8 @@ int dragarc_drift_write_csv(FILE *fp, const dragarc_drift_result *r, dragarc_err
 int dragarc_footprint_write_csv(FILE *fp, const dragarc_footprint_spec *spec, const dragarc_impact *impacts,
                                 dragarc_error *err)
 {
-    fputs("class,sample,outcome,east_m,north_m,longitude,latitude,impact_speed_m_s,energy_j,time_s,fragments\n", fp);
+    fputs("class,sample,outcome,east_m,north_m,longitude,latitude,impact_speed_m_s,impact_angle_deg,energy_j,time_s,"
+          "fragments\n", fp);
     const size_t total = spec->nclasses * spec->samples;
     for (size_t k = 0; k < total; k++) {
         const dragarc_impact *o = &impacts[k];
@@ -143,9 +144,9 @@ int dragarc_footprint_write_csv(FILE *fp, const dragarc_footprint_spec *spec, co
             lat = lon = NAN;
         fprintf(fp, "%u,%u,%s", (unsigned)o->cls + 1, (unsigned)o->sample + 1, outcome);
         double landed = o->status == DRAGARC_OK ? 1.0 : NAN;
-        double v[8] = {o->east * landed, o->north * landed, lon, lat, o->speed * landed, o->energy * landed,
-                       o->time * landed, o->weight};
-        for (int i = 0; i < 8; i++) {
+        double v[9] = {o->east * landed, o->north * landed, lon, lat, o->speed * landed,
+                       o->angle / DRAGARC_DEG * landed, o->energy * landed, o->time * landed, o->weight};
+        for (int i = 0; i < 9; i++) {
             fputc(',', fp);
             dragarc_number_write(fp, v[i]);
         }

@@ -1891,10 +1891,10 @@ static int read_footprint(const cJSON *root, dragarc_footprint_spec *sp, const c
         TRY(get_number(fp, "footprint", "cell", 0, &sp->cell, NULL, err));
         if (!(ns >= 1.0 && ns <= DRAGARC_FOOTPRINT_MAX_SAMPLES && ns == floor(ns)))
             return dragarc_error_set(err, DRAGARC_EINVAL, "footprint.samples", "must be a whole number from 1 to %d "
-                                     "(got %g)", DRAGARC_FOOTPRINT_MAX_SAMPLES, ns);
+                                     "(got %.15g)", DRAGARC_FOOTPRINT_MAX_SAMPLES, ns);
         if (!(seed >= 0.0 && seed <= 9007199254740992.0 && seed == floor(seed)))
             return dragarc_error_set(err, DRAGARC_EINVAL, "footprint.seed", "must be a whole number from 0 to 2^53 "
-                                     "(got %g)", seed);
+                                     "(got %.15g)", seed);
         if (!(sp->cell >= 0.0 && sp->cell <= 1e5))
             return dragarc_error_set(err, DRAGARC_EINVAL, "footprint.cell", "must be 0 (automatic) to 100 km (got %g m)",
                                      sp->cell);
@@ -1990,8 +1990,14 @@ static int parse_footprint(const char *json, const char *base_dir, dragarc_footp
             goto done;
         }
     }
-    if ((rc = read_drop_rest(root, "breakup", &out->base, err)) != DRAGARC_OK)
+    if ((rc = read_drop_rest(root, "breakup", &out->base, err)) != DRAGARC_OK) {
+        /* the shared check words an altitude problem for a launch (which has no speed here): the breakup's own
+         * rule names breakup.altitude */
+        dragarc_error fe;
+        if (err && strcmp(err->field, "breakup") == 0 && dragarc_footprint_check(out, &fe) != DRAGARC_OK)
+            *err = fe, rc = fe.code;
         goto done;
+    }
     out->base.projectile.evaporation.enabled = 0;
     rc = dragarc_footprint_check(out, err);
 done:

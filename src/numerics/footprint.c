@@ -108,8 +108,8 @@ int dragarc_footprint_check(const dragarc_footprint_spec *spec, dragarc_error *e
                                  "must be between -180 and 360 degrees (got %g)", b->longitude);
     if (!(b->altitude > spec->base.ground_elevation && b->altitude <= 86000.0))
         return dragarc_error_set(err, DRAGARC_EINVAL, "breakup.altitude",
-                                 "must be above the ground and at most 86 km, the top of the standard atmosphere "
-                                 "(got %g m)", b->altitude);
+                                 "must be above the ground (at %g m) and at most 86 km, the top of the standard "
+                                 "atmosphere (got %g m)", spec->base.ground_elevation, b->altitude);
     for (int i = 0; i < 3; i++)
         if (!(isfinite(b->velocity[i]) && fabs(b->velocity[i]) <= 2e4))
             return dragarc_error_set(err, DRAGARC_EINVAL, "breakup.velocity", "components must be finite and at most "

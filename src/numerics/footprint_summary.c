@@ -102,11 +102,14 @@ static void group_stats(const dragarc_footprint_spec *spec, const columns *c, do
     g->energy_median = median(c, c->energy), g->energy_max = largest(c, c->energy);
     g->time_median = median(c, c->time);
     dragarc_scatter_mean(c->n, c->energy, c->w, &g->energy_mean, NULL);
-    double below = 0.0;
-    for (size_t i = 0; i < c->n; i++)
-        if (!dragarc_fragment_is_hazardous(c->energy[i], spec->hazard.energy_threshold))
-            below += c->w[i];
-    g->hazardous_share = c->n > 0 ? 1.0 - below / (double)c->n : 0.0; /* the scaled weights sum to n */
+    /* hazardous over all by weight: 1 - below / n went a rounding below 0 when no fragment was hazardous */
+    double above = 0.0, all = 0.0;
+    for (size_t i = 0; i < c->n; i++) {
+        all += c->w[i];
+        if (dragarc_fragment_is_hazardous(c->energy[i], spec->hazard.energy_threshold))
+            above += c->w[i];
+    }
+    g->hazardous_share = all > 0.0 ? above / all : 0.0;
     if (dragarc_scatter_extent(c->n, c->e, c->nn, c->w, azimuth, dragarc_footprint_quantile_probs, DRAGARC_FOOTPRINT_NQ,
                                g->down, g->cross, &e) != DRAGARC_OK)
         note(s, name, &e);
