@@ -46,8 +46,9 @@
 #define VP_XMAX 0.96
 #define VP_YMIN 0.17
 #define VP_YMAX 0.78
-/* The least height of an equal-scale viewport, as a share of the height there is room for. */
+/* The least height and width of an equal-scale viewport, as shares of the room there is. */
 #define MIN_HEIGHT 0.45
+#define MIN_WIDTH 0.6
 
 static const unsigned char OKABE_ITO[DRAGARC_PLOT_NCOLOURS][3] = {
     {0, 0, 0}, {230, 159, 0}, {86, 180, 233}, {0, 158, 115}, {240, 228, 66}, {0, 114, 178}, {213, 94, 0}, {204, 121, 167},
@@ -351,12 +352,17 @@ static void draw_panel(const dragarc_plot_panel *p, PLFLT *x, PLFLT *y, PLFLT ch
     plvpor(VP_XMIN, VP_XMAX, VP_YMIN, VP_YMAX);
     if (p->equal_scale) {
         /* A long, flat path at equal scales would leave a sliver too thin for its axis: the window then reaches
-         * higher above the path (the scales stay equal), up to MIN_HEIGHT of the room there is. */
+         * higher above the path (the scales stay equal), up to MIN_HEIGHT of the room there is; a tall, narrow one
+         * reaches wider, up to MIN_WIDTH. */
         PLFLT nx0, nx1, ny0, ny1;
         plgvpd(&nx0, &nx1, &ny0, &ny1);
         double room = (ny1 - ny0) * PAGE_H_PT / ((nx1 - nx0) * PAGE_W_PT); /* height / width on the page */
         if ((lim[3] - lim[2]) / (lim[1] - lim[0]) < MIN_HEIGHT * room)
             lim[3] = lim[2] + MIN_HEIGHT * room * (lim[1] - lim[0]);
+        if ((lim[3] - lim[2]) / (lim[1] - lim[0]) > room / MIN_WIDTH) { /* a tall one widens about its middle */
+            double mid = 0.5 * (lim[0] + lim[1]), half = 0.5 * MIN_WIDTH * (lim[3] - lim[2]) / room;
+            lim[0] = mid - half, lim[1] = mid + half;
+        }
         plvpas(VP_XMIN, VP_XMAX, VP_YMIN, VP_YMAX, (lim[3] - lim[2]) / (lim[1] - lim[0]));
     }
     double y0 = p->y_reversed ? lim[3] : lim[2], y1 = p->y_reversed ? lim[2] : lim[3];
