@@ -89,7 +89,10 @@ void cli_print_params(FILE *fp);
 typedef struct cli_fly_options {
     int json;
     const char *trajectory; /* CSV path or NULL */
-    double dt;              /* s, sampling interval for the trajectory */
+    double dt;              /* s, sampling interval for the trajectory (and the plot) */
+    int dt_given;           /* 1: --dt was given (else the plot samples about 600 points of its own) */
+    const char *plot;       /* SVG, PNG or PDF path, or NULL */
+    int plot_free_scale;    /* 1: --plot-scale free */
     dragarc_display display; /* output units */
 } cli_fly_options;
 int cli_fly_scenario(const char *where, const dragarc_scenario *s, const cli_fly_options *o);

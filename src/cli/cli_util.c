@@ -9,6 +9,7 @@
 #include "cli/cli.h"
 #include "dragarc/cautions.h"
 #include "dragarc/output.h"
+#include "dragarc/plot.h"
 #include "dragarc/sweep.h"
 #include "dragarc/units.h"
 
@@ -335,6 +336,36 @@ void cli_print_params(FILE *fp)
                 p[i].unit[0] ? ")" : "");
 }
 
+/* The --plot file of flight f. Its samples are f's when --trajectory asked for them; otherwise the flight is flown
+ * again, sampled every --dt or about 600 times, so that the numbers printed are those of a run without --plot. */
+static int fly_plot(const dragarc_scenario *s, const dragarc_flight *f, const cli_fly_options *o)
+{
+    dragarc_flight sampled;
+    memset(&sampled, 0, sizeof sampled);
+    const dragarc_flight *use = f;
+    dragarc_error err;
+    int rc = DRAGARC_OK;
+    if (!o->trajectory) {
+        double span = s->ground_surface_given ? f->rest_time : f->time_of_flight;
+        double dt = o->dt_given ? o->dt : span / 600.0;
+        if (!(dt > 0.0))
+            dt = 1e-3; /* a flight that ends where it starts: launch and impact rows suffice */
+        rc = dragarc_flight_run(s, dt, &sampled, &err);
+        use = &sampled;
+    }
+    if (rc == DRAGARC_OK) {
+        dragarc_flight_plot_options po = {.title = NULL, .free_scale = o->plot_free_scale};
+        rc = dragarc_flight_plot(o->plot, s, use, &o->display, &po, &err);
+    }
+    dragarc_flight_clear(&sampled);
+    if (rc != DRAGARC_OK) {
+        const char *where = strcmp(err.field, "dt") == 0 ? "--dt" : "--plot"; /* the option, not the scenario */
+        err.field[0] = '\0';
+        return cli_report(where, &err);
+    }
+    return EXIT_OK;
+}
+
 int cli_fly_scenario(const char *where, const dragarc_scenario *s, const cli_fly_options *o)
 {
     dragarc_flight f;
@@ -349,21 +380,29 @@ int cli_fly_scenario(const char *where, const dragarc_scenario *s, const cli_fly
         }
         return cli_report(where, &err);
     }
+    /* The trajectory is written to its temporary file and committed only after the plot is drawn: a failure of
+     * either leaves neither file behind (nor changed). */
+    dragarc_output out;
     if (o->trajectory) {
-        dragarc_output out;
         rc = dragarc_output_open(&out, o->trajectory, &err);
-        if (rc == DRAGARC_OK) {
-            rc = dragarc_flight_write_csv(out.fp, &f, &o->display, &err);
-            if (rc == DRAGARC_OK)
-                rc = dragarc_output_commit(&out, &err);
-            else
-                dragarc_output_abort(&out);
-        }
+        if (rc == DRAGARC_OK && (rc = dragarc_flight_write_csv(out.fp, &f, &o->display, &err)) != DRAGARC_OK)
+            dragarc_output_abort(&out);
         if (rc != DRAGARC_OK) {
             dragarc_flight_clear(&f);
             err.field[0] = '\0';
             return cli_report("--trajectory", &err);
         }
+    }
+    if (o->plot && (rc = fly_plot(s, &f, o)) != EXIT_OK) {
+        if (o->trajectory)
+            dragarc_output_abort(&out);
+        dragarc_flight_clear(&f);
+        return rc;
+    }
+    if (o->trajectory && (rc = dragarc_output_commit(&out, &err)) != DRAGARC_OK) {
+        dragarc_flight_clear(&f);
+        err.field[0] = '\0';
+        return cli_report("--trajectory", &err);
     }
     if (o->json) {
         char *text = dragarc_flight_json(s, &f, &o->display);

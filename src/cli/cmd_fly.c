@@ -1,4 +1,4 @@
-/* cmd_fly.c: `dragarc fly SCENARIO [--json] [--trajectory FILE.csv] [--dt SECONDS]`.
+/* cmd_fly.c: `dragarc fly SCENARIO [--json] [--trajectory FILE.csv] [--dt SECONDS] [--plot FILE.svg|png|pdf]`.
  * SPDX-License-Identifier: GPL-3.0-or-later
  */
 #include <stdio.h>
@@ -6,10 +6,11 @@
 #include <string.h>
 
 #include "cli/cli.h"
+#include "dragarc/plot.h"
 
 static const char HELP[] =
-    "usage: dragarc fly SCENARIO [--json] [--trajectory FILE.csv] [--dt SECONDS] [--units si|us]\n"
-    "                            [--unit KEY=UNIT ...]\n"
+    "usage: dragarc fly SCENARIO [--json] [--trajectory FILE.csv] [--dt SECONDS] [--plot FILE.svg|png|pdf]\n"
+    "                            [--plot-scale equal|free] [--units si|us] [--unit KEY=UNIT ...]\n"
     "\n"
     "Fly the scenario file SCENARIO (JSON, see docs/scenario.md) from launch to ground impact and print\n"
     "range (the carry), downrange and crossrange (the lateral deviation), time of flight, apex, impact\n"
@@ -20,7 +21,11 @@ static const char HELP[] =
     "  --trajectory FILE    write t,x,y,z,vx,vy,vz,speed,mach,reynolds,spin,spin_factor,cl,cd (units in the\n"
     "                       column names) every --dt seconds, plus the exact impact row; written whole or\n"
     "                       not at all\n"
-    "  --dt SECONDS         sampling interval for --trajectory (default 0.05; or with a unit, \"50 ms\")\n"
+    "  --dt SECONDS         sampling interval for --trajectory (default 0.05; or with a unit, \"50 ms\") and\n"
+    "                       --plot (default: about 600 points)\n"
+    "  --plot FILE          draw the side view (with the vacuum path), the plan view (with the wind) and\n"
+    "                       the speed against time into FILE, an .svg, .png or .pdf file (docs/plots.md)\n"
+    "  --plot-scale equal|free  equal: the side view's axes share one scale (default); free: each fits\n"
     "  --units si|us        the units of every output: SI (default) or US customary (ft, mph, lb, ft.lbf)\n"
     "  --unit KEY=UNIT      one quantity (length=yd, speed=kt, energy=J) or one field (range=yd,\n"
     "                       impact_speed=mph) in a unit of its own; repeat for more (docs/units.md)\n"
@@ -33,10 +38,10 @@ static const char HELP[] =
 
 int cmd_fly(int argc, char **argv)
 {
-    cli_fly_options o = {.json = 0, .trajectory = NULL, .dt = 0.05};
+    cli_fly_options o = {.json = 0, .trajectory = NULL, .dt = 0.05, .plot = NULL};
     cli_common c = {0};
     int st;
-    int dt_given = 0;
+    int dt_given = 0, scale_given = 0;
     for (int i = 1; i < argc; i++) {
         const char *a = argv[i];
         if (cli_help_asked(a, HELP)) {
@@ -49,6 +54,19 @@ int cmd_fly(int argc, char **argv)
             o.trajectory = argv[i];
             if (strcmp(o.trajectory, "-") == 0)
                 return cli_usage_error("fly", "--trajectory needs a file name: standard output carries the summary");
+        } else if (strcmp(a, "--plot") == 0) {
+            if (++i >= argc || !*argv[i])
+                return cli_usage_error("fly", "--plot needs a file name ending in .svg, .png or .pdf");
+            o.plot = argv[i];
+            dragarc_plot_format fmt;
+            dragarc_error err;
+            if (dragarc_plot_format_from_path(o.plot, &fmt, &err) != DRAGARC_OK)
+                return cli_usage_error("fly", "--plot: %s", err.message);
+        } else if (strcmp(a, "--plot-scale") == 0) {
+            if (++i >= argc || (strcmp(argv[i], "equal") != 0 && strcmp(argv[i], "free") != 0))
+                return cli_usage_error("fly", "--plot-scale needs 'equal' or 'free'");
+            o.plot_free_scale = strcmp(argv[i], "free") == 0;
+            scale_given = 1;
         } else if (strcmp(a, "--dt") == 0) {
             char why[256] = "";
             if (++i >= argc || cli_parse_value(argv[i], DRAGARC_Q_TIME, &o.dt, why, sizeof why) != 0 || !(o.dt > 0.0))
@@ -61,8 +79,13 @@ int cmd_fly(int argc, char **argv)
     }
     if (!c.file || !*c.file)
         return cli_usage_error("fly", "needs a scenario file");
-    if (dt_given && !o.trajectory)
-        return cli_usage_error("fly", "--dt sets the --trajectory interval; give --trajectory FILE too");
+    if (dt_given && !o.trajectory && !o.plot)
+        return cli_usage_error("fly", "--dt sets the --trajectory and --plot interval; give either too");
+    if (scale_given && !o.plot)
+        return cli_usage_error("fly", "--plot-scale shapes the --plot picture; give --plot FILE too");
+    if (o.plot && o.trajectory && strcmp(o.plot, o.trajectory) == 0)
+        return cli_usage_error("fly", "--plot and --trajectory name the same file '%s'", o.plot);
+    o.dt_given = dt_given;
     dragarc_scenario s;
     if ((st = cli_common_load("fly", &c, &o.display, &s)) != 0)
         return st;

@@ -12,7 +12,7 @@ static const char USAGE[] =
     "Predicts where things launched, sprayed or shed through the air come down.\n"
     "\n"
     "commands:\n"
-    "  fly SCENARIO          fly one scenario file to ground impact; summary, JSON or trajectory CSV\n"
+    "  fly SCENARIO          fly one scenario file to ground impact; summary, JSON, trajectory CSV, plot\n"
     "  aim SCENARIO --range M  find the launch elevations (or speed) that land on a target\n"
     "  table SCENARIO --vary NAME=START:STOP:STEP ...\n"
     "                        fly it for every combination of varied values; text, CSV, JSON, Markdown\n"

@@ -1,0 +1,142 @@
+/* plot.h: pictures of results, drawn by PLplot into SVG, PNG or PDF files.
+ *
+ * Copyright (C) 2026 the dragarc developers. SPDX-License-Identifier: GPL-3.0-or-later
+ *
+ * A figure is described in plain structs (panels, each with series of points and an optional arrow) and drawn
+ * whole by dragarc_plot_write, the one call that touches PLplot (src/io/plot.c). The format follows the file
+ * name's extension: .svg, .png or .pdf (PLplot's svgcairo, pngcairo and pdfcairo drivers). Series take their
+ * colours from the palette of Okabe and Ito (2008), which stays apart for the common colour-vision deficiencies,
+ * and each also has its own line style or marker shape, so that they stay apart printed in grey.
+ *
+ * PLplot keeps global state: plotting is not thread-safe. Draw one figure at a time, on the main thread (a
+ * second call while one is drawing is refused with DRAGARC_EINVAL).
+ */
+#ifndef DRAGARC_PLOT_H
+#define DRAGARC_PLOT_H
+
+#include <stddef.h>
+
+#include "dragarc/dragarc.h"
+#include "dragarc/flight.h"
+#include "dragarc/scenario.h"
+#include "dragarc/units.h"
+
+#ifdef __cplusplus
+extern "C" {
+#endif
+
+typedef enum dragarc_plot_format {
+    DRAGARC_PLOT_SVG = 0,
+    DRAGARC_PLOT_PNG,
+    DRAGARC_PLOT_PDF
+} dragarc_plot_format;
+
+/* The format of a file name by its extension (.svg, .png, .pdf, in any case). DRAGARC_EINVAL naming the
+ * extension and the three allowed when it is none of them; err->field is left empty for the caller. */
+int dragarc_plot_format_from_path(const char *path, dragarc_plot_format *fmt, dragarc_error *err);
+
+/* How a series is drawn. */
+typedef enum dragarc_plot_style {
+    DRAGARC_PLOT_SOLID = 0, /* a solid line through the points */
+    DRAGARC_PLOT_DASHED,    /* a dashed line */
+    DRAGARC_PLOT_DOTTED,    /* a dotted line */
+    DRAGARC_PLOT_MARKERS    /* a marker at each point, no line */
+} dragarc_plot_style;
+
+/* The palette of Okabe and Ito (2008), in their order; DRAGARC_PLOT_BLACK is the axes' colour. */
+typedef enum dragarc_plot_colour {
+    DRAGARC_PLOT_BLACK = 0,
+    DRAGARC_PLOT_ORANGE,
+    DRAGARC_PLOT_SKY_BLUE,
+    DRAGARC_PLOT_BLUISH_GREEN,
+    DRAGARC_PLOT_YELLOW,
+    DRAGARC_PLOT_BLUE,
+    DRAGARC_PLOT_VERMILLION,
+    DRAGARC_PLOT_REDDISH_PURPLE,
+    DRAGARC_PLOT_NCOLOURS
+} dragarc_plot_colour;
+
+/* Marker shapes (filled unless said), for DRAGARC_PLOT_MARKERS. */
+typedef enum dragarc_plot_marker {
+    DRAGARC_PLOT_CIRCLE = 0,
+    DRAGARC_PLOT_TRIANGLE,
+    DRAGARC_PLOT_SQUARE,
+    DRAGARC_PLOT_DIAMOND,
+    DRAGARC_PLOT_CROSS, /* an x, not filled */
+    DRAGARC_PLOT_NMARKERS
+} dragarc_plot_marker;
+
+/* Red, green and blue (0-255) of palette colour c (NULL outside the palette). */
+const unsigned char *dragarc_plot_palette(dragarc_plot_colour c);
+
+/* One series: n points (x[i], y[i]) in the panel's axis units. Borrows the arrays. Points that are not finite are
+ * left out. */
+typedef struct dragarc_plot_series {
+    const char *label; /* legend text; NULL: not in the legend */
+    const double *x, *y;
+    size_t n;
+    dragarc_plot_style style;
+    dragarc_plot_colour colour;
+    dragarc_plot_marker marker; /* DRAGARC_PLOT_MARKERS only */
+} dragarc_plot_series;
+
+/* An arrow of fixed length on the page, drawn at a corner of a panel, pointing along (dx, dy) in the axis
+ * directions as the ground has them (an axis drawn reversed reverses it; unequal axis scales do not bend it). */
+typedef struct dragarc_plot_arrow {
+    double dx, dy;     /* direction, in any units alike on both axes */
+    const char *label; /* printed beside it ("wind 4.0 m/s"); NULL: none */
+    dragarc_plot_colour colour;
+} dragarc_plot_arrow;
+
+/* One panel: axes with labels, a title, series, a legend when more than one series is labelled. Borrows
+ * everything. The axis limits enclose every series with a margin unless given. */
+typedef struct dragarc_plot_panel {
+    const char *title, *xlabel, *ylabel;
+    const dragarc_plot_series *series;
+    size_t nseries;
+    int equal_scale; /* 1: one unit of y as long on the page as one unit of x (the viewport shrinks to fit) */
+    int y_reversed;  /* 1: y grows downward */
+    int limits_given; /* 1: xmin .. ymax below are the axis limits */
+    double xmin, xmax, ymin, ymax;
+    const dragarc_plot_arrow *arrow; /* NULL: none */
+} dragarc_plot_panel;
+
+/* A figure: one page of panels stacked top to bottom. Borrows the panels. */
+typedef struct dragarc_plot_figure {
+    const dragarc_plot_panel *panels;
+    size_t npanels; /* 1 .. DRAGARC_PLOT_MAX_PANELS */
+} dragarc_plot_figure;
+
+#define DRAGARC_PLOT_MAX_PANELS 6
+
+/* Draw figure fig into the file at path, in the format of its extension, written to a temporary file beside it
+ * and renamed onto path only when complete (the temporary file is removed on failure, path left as it was).
+ * PLplot's errors come back as return codes; it prints nothing. Errors: DRAGARC_EINVAL (the extension, an empty
+ * figure, no finite point in a panel, a plot already being drawn), DRAGARC_EIO (the file cannot be written, or
+ * PLplot or its driver failed: the message says which). Not thread-safe (see above). */
+int dragarc_plot_write(const char *path, const dragarc_plot_figure *fig, dragarc_error *err);
+
+/* ---- the pictures of a flight (src/io/flight_plot.c; described in docs/plots.md) ---- */
+
+/* The same launch as scenario s without air, over flat ground at s's ground elevation: n points (n >= 2) evenly in
+ * time from launch to the ground, downrange along the launch azimuth (m) and height above the ground (m), in
+ * closed form. Returns n, or 0 when the launch never reaches the ground (then nothing is written). */
+size_t dragarc_vacuum_path(const dragarc_scenario *s, size_t n, double *downrange, double *height);
+
+typedef struct dragarc_flight_plot_options {
+    const char *title;   /* names the scenario in every panel's title (NULL: the scenario's name) */
+    int free_scale;      /* 0: the side view has equal scales on both axes; 1: each axis fits its own data */
+} dragarc_flight_plot_options;
+
+/* The `fly --plot` figure of flight f of scenario s, sampled (dragarc_flight_run with dt > 0), into path: the side
+ * view (height above the ground against downrange, with the vacuum path of the same launch, the apex and the
+ * impact marked), the plan view (crossrange against downrange, the wind at the launch height as an arrow), and
+ * the speed against time; lengths in the length unit of display d, speeds in its speed unit, times in its time
+ * unit (NULL: SI). Errors as dragarc_plot_write; DRAGARC_EINVAL when f holds fewer than two samples. */
+int dragarc_flight_plot(const char *path, const dragarc_scenario *s, const dragarc_flight *f,
+                        const dragarc_display *d, const dragarc_flight_plot_options *o, dragarc_error *err);
+
+#ifdef __cplusplus
+}
+#endif
+#endif

@@ -1,0 +1,236 @@
+/* test_plot.c: the plotting layer (formats by extension, files written whole or not at all, PLplot's failures as
+ * return codes) and the vacuum path the side view compares with, against the closed forms of projectile motion.
+ * SPDX-License-Identifier: GPL-3.0-or-later
+ *
+ * Source of the closed forms: a point mass under constant gravity g alone, launched at speed v and elevation e from
+ * the ground, lands at R = v^2 sin(2e) / g after T = 2 v sin(e) / g, and climbs to H = v^2 sin^2(e) / (2 g) at T / 2
+ * (e.g. Halliday, Resnick and Walker, "Fundamentals of Physics", projectile motion; recalled). Tolerances: the
+ * path is a few double operations from these, so 1e-12 relative is round-off with a wide margin.
+ */
+#define _POSIX_C_SOURCE 200809L
+#include <dirent.h>
+#include <math.h>
+#include <stdio.h>
+#include <stdlib.h>
+#include <string.h>
+#include <unistd.h>
+
+#include "check.h"
+#include "dragarc/flight.h"
+#include "dragarc/plot.h"
+
+#define PI 3.14159265358979323846
+
+static char dir[64]; /* a fresh folder for this run's files */
+
+/* How many entries the folder holds (besides . and ..). */
+static int entries(void)
+{
+    DIR *d = opendir(dir);
+    if (!d)
+        return -1;
+    int n = 0;
+    for (struct dirent *e; (e = readdir(d)) != NULL;)
+        if (strcmp(e->d_name, ".") != 0 && strcmp(e->d_name, "..") != 0)
+            n++;
+    closedir(d);
+    return n;
+}
+
+/* The first bytes of a file, and its size (-1 when it cannot be read). */
+static long head(const char *path, unsigned char *buf, size_t n)
+{
+    FILE *f = fopen(path, "rb");
+    if (!f)
+        return -1;
+    size_t got = fread(buf, 1, n, f);
+    fseek(f, 0, SEEK_END);
+    long size = ftell(f);
+    fclose(f);
+    return got == n ? size : -1;
+}
+
+TEST(formats_follow_the_extension_in_any_case)
+{
+    dragarc_plot_format f = DRAGARC_PLOT_PDF;
+    dragarc_error e;
+    CHECK(dragarc_plot_format_from_path("out.svg", &f, &e) == DRAGARC_OK && f == DRAGARC_PLOT_SVG);
+    CHECK(dragarc_plot_format_from_path("a/b.c/OUT.PNG", &f, &e) == DRAGARC_OK && f == DRAGARC_PLOT_PNG);
+    CHECK(dragarc_plot_format_from_path("x.Pdf", &f, &e) == DRAGARC_OK && f == DRAGARC_PLOT_PDF);
+    CHECK_ERROR(dragarc_plot_format_from_path("out.gif", &f, &e), DRAGARC_EINVAL, e, "",
+                "'out.gif' ends in '.gif': a plot is drawn into an .svg, .png or .pdf file");
+    CHECK_ERROR(dragarc_plot_format_from_path("a.svg/plot", &f, &e), DRAGARC_EINVAL, e, "", "has no extension");
+    CHECK_ERROR(dragarc_plot_format_from_path(".svg", &f, &e), DRAGARC_EINVAL, e, "", "has no extension");
+}
+
+TEST(the_palette_is_okabe_and_ito)
+{
+    /* Okabe and Ito 2008, Color Universal Design: orange 230/159/0, blue 0/114/178, vermillion 213/94/0 (recalled) */
+    const unsigned char *o = dragarc_plot_palette(DRAGARC_PLOT_ORANGE), *b = dragarc_plot_palette(DRAGARC_PLOT_BLUE);
+    const unsigned char *v = dragarc_plot_palette(DRAGARC_PLOT_VERMILLION);
+    CHECK(o && o[0] == 230 && o[1] == 159 && o[2] == 0);
+    CHECK(b && b[0] == 0 && b[1] == 114 && b[2] == 178);
+    CHECK(v && v[0] == 213 && v[1] == 94 && v[2] == 0);
+    CHECK(dragarc_plot_palette(DRAGARC_PLOT_NCOLOURS) == NULL);
+}
+
+TEST(the_vacuum_path_meets_the_closed_forms)
+{
+    dragarc_scenario s;
+    dragarc_scenario_default(&s);
+    s.launch.speed = 20.0, s.launch.elevation = 50.0 * PI / 180.0, s.launch.height = 0.0;
+    enum { N = 241 }; /* odd: the middle point is at T / 2, the apex */
+    double x[N], h[N];
+    CHECK(dragarc_vacuum_path(&s, N, x, h) == N);
+    double v = 20.0, e = 50.0 * PI / 180.0, g = s.gravity;
+    double R = v * v * sin(2.0 * e) / g, H = v * v * sin(e) * sin(e) / (2.0 * g);
+    CHECK_REL(x[N - 1], R, 1e-12);
+    CHECK_REL(x[N - 1], dragarc_vacuum_range(&s), 1e-12); /* flight.c works it out apart */
+    CHECK_ABS(h[N - 1], 0.0, 0.0);
+    CHECK_REL(h[N / 2], H, 1e-12);
+    CHECK_REL(x[N / 2], R / 2.0, 1e-12);
+    double top = 0.0;
+    for (int i = 0; i < N; i++)
+        top = fmax(top, h[i]);
+    CHECK(top == h[N / 2]);
+    /* from a height above the ground plane: lands where h0 + v sin(e) t - g t^2 / 2 = 0 */
+    s.launch.height = 12.0, s.ground_elevation = 2.0;
+    CHECK(dragarc_vacuum_path(&s, N, x, h) == N);
+    CHECK_ABS(h[0], 10.0, 1e-12);
+    double T = (v * sin(e) + sqrt(v * v * sin(e) * sin(e) + 2.0 * g * 10.0)) / g;
+    CHECK_REL(x[N - 1], v * cos(e) * T, 1e-12);
+    CHECK_REL(x[N - 1], dragarc_vacuum_range(&s), 1e-12);
+    /* thrown down from below the ground plane: it never reaches it */
+    s.launch.height = -1.0, s.ground_elevation = 0.0, s.launch.elevation = -0.5;
+    CHECK(dragarc_vacuum_path(&s, N, x, h) == 0);
+    dragarc_scenario_clear(&s);
+}
+
+/* A small figure: two panels, a line, a dashed line, markers and an arrow. */
+static double fx[50], fy[50], gy[50], mx = 20.0, my = 5.0;
+static dragarc_plot_series two[3], one[1];
+static dragarc_plot_arrow arrow = {.dx = 1.0, .dy = -1.0, .label = "wind", .colour = DRAGARC_PLOT_BLACK};
+static dragarc_plot_panel panels[2];
+
+static dragarc_plot_figure small_figure(void)
+{
+    for (int i = 0; i < 50; i++)
+        fx[i] = i, fy[i] = 10.0 * sin(PI * i / 49.0), gy[i] = 12.0 * sin(PI * i / 49.0);
+    two[0] = (dragarc_plot_series){.label = "a", .x = fx, .y = fy, .n = 50, .colour = DRAGARC_PLOT_BLUE};
+    two[1] = (dragarc_plot_series){.label = "b", .x = fx, .y = gy, .n = 50, .style = DRAGARC_PLOT_DASHED,
+                                   .colour = DRAGARC_PLOT_VERMILLION};
+    two[2] = (dragarc_plot_series){.label = "c", .x = &mx, .y = &my, .n = 1, .style = DRAGARC_PLOT_MARKERS,
+                                   .marker = DRAGARC_PLOT_DIAMOND};
+    one[0] = (dragarc_plot_series){.x = fx, .y = gy, .n = 50, .style = DRAGARC_PLOT_DOTTED};
+    panels[0] = (dragarc_plot_panel){.title = "first", .xlabel = "x (m)", .ylabel = "y (m)", .series = two,
+                                     .nseries = 3, .equal_scale = 1};
+    panels[1] = (dragarc_plot_panel){.title = "second", .xlabel = "x", .ylabel = "y", .series = one, .nseries = 1,
+                                     .y_reversed = 1, .arrow = &arrow};
+    return (dragarc_plot_figure){.panels = panels, .npanels = 2};
+}
+
+TEST(each_format_is_written_whole_with_its_signature)
+{
+    dragarc_plot_figure fig = small_figure();
+    static const char *const ext[3] = {"svg", "png", "pdf"};
+    static const char *const magic[3] = {"<?xml", "\x89PNG\r\n\x1a\n", "%PDF-"};
+    for (int k = 0; k < 3; k++) {
+        char path[128];
+        snprintf(path, sizeof path, "%s/figure.%s", dir, ext[k]);
+        dragarc_error e;
+        int rc = dragarc_plot_write(path, &fig, &e);
+        CHECK(rc == DRAGARC_OK);
+        if (rc != DRAGARC_OK)
+            printf("  %s\n", e.message);
+        unsigned char buf[8];
+        long size = head(path, buf, strlen(magic[k]));
+        CHECK(size > 5000 && size < 5000000); /* a page of lines and text, not empty, not runaway */
+        CHECK(size > 0 && memcmp(buf, magic[k], strlen(magic[k])) == 0);
+        CHECK(entries() == k + 1); /* no temporary file left beside it */
+    }
+    for (int k = 0; k < 3; k++) {
+        char path[128];
+        snprintf(path, sizeof path, "%s/figure.%s", dir, ext[k]);
+        remove(path);
+    }
+}
+
+TEST(failures_leave_no_file)
+{
+    dragarc_plot_figure fig = small_figure();
+    dragarc_error e;
+    char path[128];
+    snprintf(path, sizeof path, "%s/no/such/folder/figure.svg", dir);
+    CHECK_ERROR(dragarc_plot_write(path, &fig, &e), DRAGARC_EIO, e, "", "No such file or directory");
+    snprintf(path, sizeof path, "%s/figure.gif", dir);
+    CHECK_ERROR(dragarc_plot_write(path, &fig, &e), DRAGARC_EINVAL, e, "", "ends in '.gif'");
+    CHECK_ERROR(dragarc_plot_write("-", &fig, &e), DRAGARC_EINVAL, e, "", "has no extension");
+    /* a panel with nothing finite to draw */
+    double nan = NAN;
+    dragarc_plot_series bad = {.x = &nan, .y = &nan, .n = 1};
+    dragarc_plot_panel p = {.title = "empty", .series = &bad, .nseries = 1};
+    dragarc_plot_figure empty = {.panels = &p, .npanels = 1};
+    snprintf(path, sizeof path, "%s/figure.png", dir);
+    CHECK_ERROR(dragarc_plot_write(path, &empty, &e), DRAGARC_EINVAL, e, "", "panel 1 ('empty') has no finite point");
+    dragarc_plot_figure none = {.panels = NULL, .npanels = 0};
+    CHECK_ERROR(dragarc_plot_write(path, &none, &e), DRAGARC_EINVAL, e, "", "a figure needs 1 to");
+    CHECK(entries() == 0);
+}
+
+TEST(a_file_in_place_is_replaced_only_when_the_new_one_is_complete)
+{
+    char path[128];
+    snprintf(path, sizeof path, "%s/kept.pdf", dir);
+    FILE *f = fopen(path, "w");
+    CHECK(f != NULL);
+    if (!f)
+        return;
+    fputs("old", f);
+    fclose(f);
+    double nan = NAN;
+    dragarc_plot_series bad = {.x = &nan, .y = &nan, .n = 1};
+    dragarc_plot_panel p = {.title = "empty", .series = &bad, .nseries = 1};
+    dragarc_plot_figure empty = {.panels = &p, .npanels = 1};
+    CHECK(dragarc_plot_write(path, &empty, NULL) == DRAGARC_EINVAL);
+    unsigned char buf[3];
+    CHECK(head(path, buf, 3) == 3 && memcmp(buf, "old", 3) == 0);
+    dragarc_plot_figure fig = small_figure();
+    CHECK(dragarc_plot_write(path, &fig, NULL) == DRAGARC_OK);
+    unsigned char pdf[5];
+    CHECK(head(path, pdf, 5) > 5000 && memcmp(pdf, "%PDF-", 5) == 0);
+    CHECK(entries() == 1);
+    remove(path);
+}
+
+TEST(a_flight_plot_needs_samples)
+{
+    dragarc_scenario s;
+    dragarc_scenario_default(&s);
+    dragarc_flight f;
+    memset(&f, 0, sizeof f);
+    dragarc_error e;
+    char path[128];
+    snprintf(path, sizeof path, "%s/flight.svg", dir);
+    CHECK_ERROR(dragarc_flight_plot(path, &s, &f, NULL, NULL, &e), DRAGARC_EINVAL, e, "", "needs a sampled flight");
+    CHECK(entries() == 0);
+    dragarc_scenario_clear(&s);
+}
+
+int main(void)
+{
+    dragarc_init();
+    snprintf(dir, sizeof dir, "%s/test_plot.XXXXXX", getenv("TMPDIR") ? getenv("TMPDIR") : "/tmp");
+    if (!mkdtemp(dir)) {
+        perror("mkdtemp");
+        return 2;
+    }
+    RUN(formats_follow_the_extension_in_any_case);
+    RUN(the_palette_is_okabe_and_ito);
+    RUN(the_vacuum_path_meets_the_closed_forms);
+    RUN(each_format_is_written_whole_with_its_signature);
+    RUN(failures_leave_no_file);
+    RUN(a_file_in_place_is_replaced_only_when_the_new_one_is_complete);
+    RUN(a_flight_plot_needs_samples);
+    rmdir(dir);
+    return check_summary();
+}
