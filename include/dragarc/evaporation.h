@@ -42,6 +42,7 @@ double dragarc_air_conductivity(double temperature);
 /* Latent heat of vaporisation of water (J/kg) at T (K): 2.501e6 - 2370 t, t in degC (a straight line through
  * Rogers & Yau 1989, Table 2.1: 2.501e6 at 0 degC, 2.454e6 at 20 degC; recalled). */
 double dragarc_latent_heat(double temperature);
+#define DRAGARC_LATENT_HEAT_SLOPE 2370.0 /* J/(kg K): -dL/dT of that line */
 
 /* Residual of a drop's heat balance at a trial surface temperature ts (K), air at T (K), p (Pa) and relative
  * humidity h, with nu_over_sh = Nu / Sh (1 in still air): (Nu/Sh) k(T) (T - ts) - D_v(T, p) L(ts) drho(ts).

@@ -32,7 +32,7 @@ double dragarc_air_conductivity(double temperature)
 
 double dragarc_latent_heat(double temperature)
 {
-    return 2.501e6 - 2370.0 * (temperature - 273.15);
+    return 2.501e6 - DRAGARC_LATENT_HEAT_SLOPE * (temperature - 273.15);
 }
 
 double dragarc_drop_heat_residual(double ts, double temperature, double pressure, double relative_humidity,
