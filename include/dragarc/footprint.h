@@ -149,8 +149,11 @@ int dragarc_footprint_check(const dragarc_footprint_spec *spec, dragarc_error *e
 int dragarc_footprint_run(const dragarc_footprint_spec *spec, dragarc_impact *out,
                           void (*progress)(size_t done, size_t total, void *user), void *user, dragarc_error *err);
 
-/* The nominal C_D of a class (its drag law at Mach 0.5 and Re 1e6, for the ballistic coefficient) and the
- * ballistic coefficient m / (C_D A). */
+/* The nominal C_D of a drag law, the one a ballistic coefficient refers to: at Mach 0.5, Re 1e6 (170 m/s for a
+ * table against speed). */
+double dragarc_fragment_nominal_cd(const dragarc_drag *drag);
+
+/* The ballistic coefficient m / (C_D A) of a class, C_D the nominal one. */
 double dragarc_fragment_beta(const dragarc_fragment_class *c);
 
 /* The stream seed of one sample (SplitMix64 of the run seed, class and sample; Steele, Lea & Flood 2014). */

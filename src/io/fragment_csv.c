@@ -108,7 +108,7 @@ static int read_row(char **field, const int *where, size_t line, void *ctx, drag
         return fail(line, "dv_distribution", err, "unknown distribution \"%s\" (none, fixed, uniform, maxwellian)",
                     dist);
     if (where[C_BETA] >= 0) {
-        double cdn = dragarc_drag_cd(&c->drag, 1e6, 0.5, 170.0);
+        double cdn = dragarc_fragment_nominal_cd(&c->drag);
         if (!(beta > 0.0 && beta <= 1e6 && cdn > 0.0 && isfinite(cdn)))
             return fail(line, "ballistic_coefficient", err, "%s", "must be above 0 and at most 1e6 kg/m^2, with a drag "
                         "law whose C_D at Mach 0.5 is positive");

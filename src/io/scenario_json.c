@@ -1726,7 +1726,7 @@ static int read_fragment(const cJSON *j, const char *p, dragarc_fragment_class *
         return dragarc_error_set(err, DRAGARC_EINVAL, f, "give either area or ballistic_coefficient (one of them)");
     if (has_beta) {
         join(f, sizeof f, p, "ballistic_coefficient");
-        double cd = dragarc_drag_cd(&c->drag, 1e6, 0.5, 170.0);
+        double cd = dragarc_fragment_nominal_cd(&c->drag);
         if (!(beta > 0.0 && beta <= 1e6))
             return dragarc_error_set(err, DRAGARC_EINVAL, f, "must be above 0 and at most 1e6 kg/m^2 (got %g)", beta);
         if (!(cd > 0.0 && isfinite(cd)))

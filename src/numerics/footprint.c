@@ -37,9 +37,14 @@ uint64_t dragarc_footprint_stream_seed(uint64_t seed, uint32_t cls, uint32_t sam
     return z;
 }
 
+double dragarc_fragment_nominal_cd(const dragarc_drag *drag)
+{
+    return dragarc_drag_cd(drag, 1e6, 0.5, 170.0);
+}
+
 double dragarc_fragment_beta(const dragarc_fragment_class *c)
 {
-    return c->mass / (dragarc_drag_cd(&c->drag, 1e6, 0.5, 170.0) * c->area);
+    return c->mass / (dragarc_fragment_nominal_cd(&c->drag) * c->area);
 }
 
 void dragarc_footprint_spec_clear(dragarc_footprint_spec *spec)
@@ -263,7 +268,7 @@ static void fly_sample(const run_ctx *ctx, gsl_rng *r, uint32_t ci, uint32_t si,
     s.projectile.volume = 0.0;
     s.projectile.density = 0.0;
     s.projectile.drag = c->drag;
-    o->beta = c->mass / (dragarc_drag_cd(&c->drag, 1e6, 0.5, 170.0) * area);
+    o->beta = c->mass / (dragarc_fragment_nominal_cd(&c->drag) * area);
     o->area = area;
     const dragarc_wind_spread *ws = &spec->wind_spread;
     const dragarc_wind *wsrc = &spec->base.wind;
