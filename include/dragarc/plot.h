@@ -40,7 +40,8 @@ typedef enum dragarc_plot_style {
     DRAGARC_PLOT_SOLID = 0, /* a solid line through the points */
     DRAGARC_PLOT_DASHED,    /* a dashed line */
     DRAGARC_PLOT_DOTTED,    /* a dotted line */
-    DRAGARC_PLOT_MARKERS    /* a marker at each point, no line */
+    DRAGARC_PLOT_MARKERS,   /* a marker at each point, no line */
+    DRAGARC_PLOT_FILLED     /* a closed polygon filled with a light tint of the colour, outlined in the colour */
 } dragarc_plot_style;
 
 /* The palette of Okabe and Ito (2008), in their order; DRAGARC_PLOT_BLACK is the axes' colour. */
@@ -69,8 +70,9 @@ typedef enum dragarc_plot_marker {
 /* Red, green and blue (0-255) of palette colour c (NULL outside the palette). */
 const unsigned char *dragarc_plot_palette(dragarc_plot_colour c);
 
-/* One series: n points (x[i], y[i]) in the panel's axis units. Borrows the arrays. Points that are not finite are
- * left out. */
+/* One series: n points (x[i], y[i]) in the panel's axis units. Borrows the arrays. A point that is not finite ends
+ * a line (or a filled polygon) and the next finite point starts a new one, so one series can hold several rings
+ * (ellipses, contours) separated by NaN; markers are not drawn at such points. */
 typedef struct dragarc_plot_series {
     const char *label; /* legend text; NULL: not in the legend */
     const double *x, *y;
@@ -88,8 +90,21 @@ typedef struct dragarc_plot_arrow {
     dragarc_plot_colour colour;
 } dragarc_plot_arrow;
 
+/* A grid of cell values drawn as a colour map under the series, with a colour bar at the panel's right. Cell
+ * (i, j), i = 0 .. nx-1 along x, j = 0 .. ny-1 along y, holds z[j * nx + i] and covers
+ * [x0 + i (x1 - x0)/nx, x0 + (i + 1)(x1 - x0)/nx] x [y0 + j (y1 - y0)/ny, ...]. Cells that are not finite, or below
+ * zmin, are left white. The colours run through the sequential map viridis (dark purple, blue, green, yellow),
+ * whose lightness rises steadily, so that it reads in grey and with the common colour-vision deficiencies. */
+typedef struct dragarc_plot_raster {
+    const double *z;
+    size_t nx, ny;
+    double x0, x1, y0, y1;
+    double zmin, zmax; /* the colour bar's range; zmin == zmax: from the finite cells */
+    const char *label; /* the colour bar's label, with its unit */
+} dragarc_plot_raster;
+
 /* One panel: axes with labels, a title, series, a legend when more than one series is labelled. Borrows
- * everything. The axis limits enclose every series with a margin unless given. */
+ * everything. The axis limits enclose every series (and the raster) with a margin unless given. */
 typedef struct dragarc_plot_panel {
     const char *title, *xlabel, *ylabel;
     const dragarc_plot_series *series;
@@ -99,12 +114,16 @@ typedef struct dragarc_plot_panel {
     int limits_given; /* 1: xmin .. ymax below are the axis limits */
     double xmin, xmax, ymin, ymax;
     const dragarc_plot_arrow *arrow; /* NULL: none */
+    const dragarc_plot_raster *raster; /* NULL: none */
+    const char *scale_bar_unit; /* non-NULL: a scale bar of a round length along x, in this unit, at the lower right */
+    int north_arrow;            /* 1: an arrow marked N at the upper right, pointing up the page (y is north) */
 } dragarc_plot_panel;
 
 /* A figure: one page of panels stacked top to bottom. Borrows the panels. */
 typedef struct dragarc_plot_figure {
     const dragarc_plot_panel *panels;
     size_t npanels; /* 1 .. DRAGARC_PLOT_MAX_PANELS */
+    double page_height; /* points (1/72 in) of the 600-point-wide page; 0: 900 (room for three panels) */
 } dragarc_plot_figure;
 
 #define DRAGARC_PLOT_MAX_PANELS 6

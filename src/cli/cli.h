@@ -5,6 +5,7 @@
 #define DRAGARC_CLI_H
 
 #include <stdio.h>
+#include <time.h>
 
 #include "dragarc/dragarc.h"
 #include "dragarc/flight.h"
@@ -118,5 +119,18 @@ int cmd_drift(int argc, char **argv);
 int cmd_footprint(int argc, char **argv);
 int cmd_optimize(int argc, char **argv);
 int cmd_uniformity(int argc, char **argv);
+
+/* A progress bar on stderr for long runs: shown only when stderr is a terminal and `quiet` is 0, first after a
+ * second of work, with the share done and an estimate of the time left; cli_progress_end clears its line. `unit`
+ * names what is counted ("flights", "rows"). cli_progress_tick has the signature of the library's progress
+ * callbacks (user: the cli_progress); it may be called from one thread at a time. */
+typedef struct cli_progress {
+    const char *unit;
+    time_t start;
+    int enabled, shown;
+} cli_progress;
+void cli_progress_begin(cli_progress *p, const char *unit, int quiet);
+void cli_progress_tick(size_t done, size_t total, void *user);
+void cli_progress_end(cli_progress *p);
 
 #endif

@@ -5,6 +5,7 @@
 #include <stdarg.h>
 #include <stdlib.h>
 #include <string.h>
+#include <unistd.h>
 
 #include "cli/cli.h"
 #include "dragarc/cautions.h"
@@ -467,3 +468,33 @@ int cli_scenario_args(const char *cmd, const char *help, int argc, char **argv, 
     return -1;
 }
 
+
+void cli_progress_begin(cli_progress *p, const char *unit, int quiet)
+{
+    p->unit = unit;
+    p->start = time(NULL);
+    p->enabled = !quiet && isatty(STDERR_FILENO);
+    p->shown = 0;
+}
+
+void cli_progress_tick(size_t done, size_t total, void *user)
+{
+    cli_progress *p = user;
+    if (!p->enabled || total == 0)
+        return;
+    double el = difftime(time(NULL), p->start);
+    if (el < 1.0 && done < total)
+        return;
+    double left = done > 0 ? el * (double)(total - done) / (double)done : 0.0;
+    int w = 30, f = (int)(w * (double)done / (double)total);
+    fprintf(stderr, "\r  [%.*s%*s] %zu/%zu %s, about %.0f s left ", f, "##############################", w - f, "",
+            done, total, p->unit, left);
+    p->shown = 1;
+}
+
+void cli_progress_end(cli_progress *p)
+{
+    if (p->shown)
+        fputs("\r\033[K", stderr);
+    p->shown = 0;
+}

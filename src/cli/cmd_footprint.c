@@ -6,8 +6,6 @@
 #include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
-#include <time.h>
-#include <unistd.h>
 
 #include "cli/cli.h"
 #include "core/constants.h"
@@ -35,24 +33,6 @@ static const char HELP[] =
     "                   --geojson FILE the footprint as GeoJSON (RFC 7946); each written whole or not at all\n"
     "  --quiet          no progress bar (it shows only when stderr is a terminal)\n"
     "  -h, --help       this help\n";
-
-typedef struct bar {
-    time_t start;
-    int shown;
-} bar;
-
-static void progress(size_t done, size_t total, void *user)
-{
-    bar *b = user;
-    double el = difftime(time(NULL), b->start);
-    if (el < 1.0 && done < total)
-        return;
-    double left = done > 0 ? el * (double)(total - done) / (double)done : 0.0;
-    int w = 30, f = (int)(w * (double)done / (double)total);
-    fprintf(stderr, "\r  [%.*s%*s] %zu/%zu flights, about %.0f s left ", f, "##############################", w - f, "",
-            done, total, left);
-    b->shown = 1;
-}
 
 static int write_points(FILE *fp, const void *ctx, dragarc_error *err)
 {
@@ -224,11 +204,10 @@ int cmd_footprint(int argc, char **argv)
         status = cli_report(path, &err);
     }
     if (status == EXIT_OK) {
-        bar b = {time(NULL), 0};
-        int show = !quiet && isatty(STDERR_FILENO);
-        int rc = dragarc_footprint_run(&spec, im, show ? progress : NULL, &b, &err);
-        if (b.shown)
-            fputs("\r\033[K", stderr);
+        cli_progress bar;
+        cli_progress_begin(&bar, "flights", quiet);
+        int rc = dragarc_footprint_run(&spec, im, bar.enabled ? cli_progress_tick : NULL, &bar, &err);
+        cli_progress_end(&bar);
         if (rc != DRAGARC_OK)
             status = cli_report(path, &err);
         else if (dragarc_footprint_summarise(&spec, im, h->population_given ? &pop : NULL, &sum, &err) != DRAGARC_OK)

@@ -31,24 +31,40 @@
 #include "dragarc/output.h"
 #include "dragarc/plot.h"
 
-/* cmap0 indices: 0 the background (white), 1 + c palette colour c, then a light grey for the grid. */
+/* cmap0 indices: 0 the background (white), 1 + c palette colour c, then a light grey for the grid, then the light
+ * tints of the palette colours that fill polygons (TINT_SHARE of the colour, the rest white). */
 #define PAL0 1
 #define GRID_COLOUR (PAL0 + DRAGARC_PLOT_NCOLOURS)
+#define TINT0 (GRID_COLOUR + 1)
+#define NCOL0 (TINT0 + DRAGARC_PLOT_NCOLOURS)
+#define TINT_SHARE 0.3
 
 /* Page size: 600 x 900 points (8.3 x 12.5 in) for SVG and PDF, the same at 108 pixels an inch for PNG. */
 #define PAGE_W_PT 600
-#define PAGE_H_PT 900
+#define PAGE_H_PT 900 /* the default; a figure may ask for another (dragarc_plot_figure.page_height) */
+#define PAGE_H_MIN 200.0
+#define PAGE_H_MAX 3000.0
 #define PNG_DPI 108.0
 
 /* The panel's viewport within its subpage (normalised): room for the title and legend above, labels left and
  * below. */
 #define VP_XMIN 0.13
 #define VP_XMAX 0.96
+#define VP_XMAX_RASTER 0.80 /* with a colour bar at the right */
 #define VP_YMIN 0.17
 #define VP_YMAX 0.78
 /* The least height and width of an equal-scale viewport, as shares of the room there is. */
 #define MIN_HEIGHT 0.45
 #define MIN_WIDTH 0.6
+
+/* The sequential colour map viridis of van der Walt and Smith (matplotlib, 2015), as RGB at nine evenly spaced
+ * stops, linearly interpolated between them by PLplot (plscmap1l) (recalled from matplotlib's table, rounded to
+ * whole numbers). Its lightness rises monotonically from dark purple to yellow. */
+#define NVIRIDIS 9
+static const unsigned char VIRIDIS[NVIRIDIS][3] = {
+    {68, 1, 84}, {71, 44, 122}, {59, 81, 139}, {44, 113, 142}, {33, 144, 141},
+    {39, 173, 129}, {92, 200, 99}, {170, 220, 50}, {253, 231, 37},
+};
 
 static const unsigned char OKABE_ITO[DRAGARC_PLOT_NCOLOURS][3] = {
     {0, 0, 0}, {230, 159, 0}, {86, 180, 233}, {0, 158, 115}, {240, 228, 66}, {0, 114, 178}, {213, 94, 0}, {204, 121, 167},
@@ -78,6 +94,7 @@ static struct {
     char message[512]; /* the first error PLplot reported */
     PLINT errcode;     /* set by plabort through plsError */
     char errmsg[1024]; /* plabort writes its text here (sprintf) instead of printing it */
+    double page_h;     /* the page's height, points */
 } g_plot;
 
 static int on_plexit(PLCHAR_VECTOR msg)
@@ -130,6 +147,11 @@ static int panel_limits(const dragarc_plot_panel *p, double lim[4])
     }
     lim[0] = lim[2] = INFINITY;
     lim[1] = lim[3] = -INFINITY;
+    if (p->raster) {
+        const dragarc_plot_raster *r = p->raster;
+        lim[0] = fmin(r->x0, r->x1), lim[1] = fmax(r->x0, r->x1);
+        lim[2] = fmin(r->y0, r->y1), lim[3] = fmax(r->y0, r->y1);
+    }
     for (size_t k = 0; k < p->nseries; k++) {
         const dragarc_plot_series *s = &p->series[k];
         for (size_t i = 0; i < s->n; i++) {
@@ -154,17 +176,25 @@ static int check_figure(const dragarc_plot_figure *fig, dragarc_error *err)
 {
     if (!fig || fig->npanels == 0 || fig->npanels > DRAGARC_PLOT_MAX_PANELS || !fig->panels)
         return dragarc_error_set(err, DRAGARC_EINVAL, "", "a figure needs 1 to %d panels", DRAGARC_PLOT_MAX_PANELS);
+    if (fig->page_height != 0.0 && !(fig->page_height >= PAGE_H_MIN && fig->page_height <= PAGE_H_MAX))
+        return dragarc_error_set(err, DRAGARC_EINVAL, "", "a page is %g to %g points high", PAGE_H_MIN, PAGE_H_MAX);
     for (size_t k = 0; k < fig->npanels; k++) {
         const dragarc_plot_panel *p = &fig->panels[k];
         double lim[4];
         for (size_t j = 0; j < p->nseries; j++) {
             const dragarc_plot_series *s = &p->series[j];
             if ((s->n > 0 && (!s->x || !s->y)) || (int)s->colour < 0 || s->colour >= DRAGARC_PLOT_NCOLOURS ||
-                (int)s->style < 0 || s->style > DRAGARC_PLOT_MARKERS || (int)s->marker < 0 ||
+                (int)s->style < 0 || s->style > DRAGARC_PLOT_FILLED || (int)s->marker < 0 ||
                 s->marker >= DRAGARC_PLOT_NMARKERS)
                 return dragarc_error_set(err, DRAGARC_EINVAL, "", "panel %zu, series %zu: no points, or an unknown style",
                                          k + 1, j + 1);
         }
+        const dragarc_plot_raster *r = p->raster;
+        if (r && (!r->z || r->nx == 0 || r->ny == 0 || r->nx > 100000 || r->ny > 100000 ||
+                  !(r->x1 > r->x0) || !(r->y1 > r->y0) || !isfinite(r->x0 + r->x1 + r->y0 + r->y1) ||
+                  !isfinite(r->zmin) || !isfinite(r->zmax) || r->zmax < r->zmin))
+            return dragarc_error_set(err, DRAGARC_EINVAL, "", "panel %zu: the colour map needs cells and finite, "
+                                     "increasing limits", k + 1);
         if (panel_limits(p, lim) != 0)
             return dragarc_error_set(err, DRAGARC_EINVAL, "", "panel %zu ('%s') has no finite point to draw", k + 1,
                                      p->title ? p->title : "");
@@ -209,7 +239,7 @@ static void frame_get(frame *fr, double wx0, double wx1, double wy0, double wy1)
     plgvpd(&nx0, &nx1, &ny0, &ny1); /* normalised coordinates of the whole page */
     fr->wx0 = wx0, fr->wx1 = wx1, fr->wy0 = wy0, fr->wy1 = wy1;
     fr->mx = (wx1 - wx0) / ((nx1 - nx0) * PAGE_W_PT * 25.4 / 72.0);
-    fr->my = (wy1 - wy0) / ((ny1 - ny0) * PAGE_H_PT * 25.4 / 72.0);
+    fr->my = (wy1 - wy0) / ((ny1 - ny0) * g_plot.page_h * 25.4 / 72.0);
 }
 
 /* A marker of radius r (mm) at world point (x, y): a filled polygon (or a cross of two lines), so that its centre is
@@ -253,23 +283,50 @@ static void draw_marker(const frame *fr, dragarc_plot_marker m, double x, double
     plfill(k, px, py);
 }
 
+/* One run of finite points of a line or filled series. */
+static void draw_run(const dragarc_plot_series *s, PLINT m, PLFLT *x, PLFLT *y)
+{
+    if (s->style == DRAGARC_PLOT_FILLED) {
+        if (m >= 3) {
+            plcol0(TINT0 + s->colour);
+            plfill(m, x, y);
+        }
+        plcol0(PAL0 + s->colour);
+        pllsty(1);
+        plwidth(1.5);
+    } else {
+        pllsty(LINE_STYLE[s->style]);
+        plwidth(2.5);
+    }
+    if (m > 1)
+        plline(m, x, y);
+    if (s->style == DRAGARC_PLOT_FILLED && m >= 3) { /* close the outline */
+        PLFLT cx[2] = {x[m - 1], x[0]}, cy[2] = {y[m - 1], y[0]};
+        plline(2, cx, cy);
+    }
+    pllsty(1);
+    plwidth(1.0);
+}
+
 static void draw_series(const frame *fr, const dragarc_plot_series *s, PLFLT *x, PLFLT *y)
 {
-    PLINT m = finite_points(s, x, y);
-    if (m == 0)
-        return;
     plcol0(PAL0 + s->colour);
     if (s->style == DRAGARC_PLOT_MARKERS) {
+        PLINT m = finite_points(s, x, y);
         for (PLINT i = 0; i < m; i++)
             draw_marker(fr, s->marker, x[i], y[i], MARKER_MM);
         return;
     }
-    pllsty(LINE_STYLE[s->style]);
-    plwidth(2.5);
-    if (m > 1)
-        plline(m, x, y);
-    pllsty(1);
-    plwidth(1.0);
+    PLINT m = 0; /* the run being gathered: a point that is not finite ends it */
+    for (size_t i = 0; i <= s->n; i++) {
+        if (i < s->n && isfinite(s->x[i]) && isfinite(s->y[i])) {
+            x[m] = s->x[i], y[m] = s->y[i], m++;
+            continue;
+        }
+        if (m > 0)
+            draw_run(s, m, x, y);
+        m = 0;
+    }
 }
 
 /* The arrow of a panel near the upper left corner of the viewport, ARROW_MM long on the page, pointing along
@@ -302,11 +359,132 @@ static void draw_arrow(const frame *fr, const dragarc_plot_arrow *a)
 #undef PY
 }
 
+/* A round length (1, 2 or 5 times a power of ten) near `want`. */
+static double round_length(double want)
+{
+    double p = pow(10.0, floor(log10(want))), m = want / p;
+    return (m < 1.5 ? 1.0 : m < 3.5 ? 2.0 : m < 7.5 ? 5.0 : 10.0) * p;
+}
+
+/* A scale bar at the lower right of the viewport: a round length near a fifth of the x span, with end ticks and its
+ * length above it, on a white ground so that points under it do not hide it. */
+static void draw_scale_bar(const frame *fr, const char *unit)
+{
+    double span = fabs(fr->wx1 - fr->wx0), len = round_length(0.2 * span);
+    if (!(len > 0.0) || !isfinite(len))
+        return;
+    double sx = fr->wx1 > fr->wx0 ? 1.0 : -1.0;
+    double xr = fr->wx1 - 6.0 * fr->mx, xl = xr - sx * len, yb = fr->wy0 + 6.0 * fr->my;
+    PLFLT bx[4] = {xl - 2.0 * fr->mx, xr + 2.0 * fr->mx, xr + 2.0 * fr->mx, xl - 2.0 * fr->mx};
+    PLFLT by[4] = {yb - 2.5 * fr->my, yb - 2.5 * fr->my, yb + 6.5 * fr->my, yb + 6.5 * fr->my};
+    plcol0(0);
+    plfill(4, bx, by);
+    plcol0(PAL0 + DRAGARC_PLOT_BLACK);
+    PLFLT lx[2] = {xl, xr}, ly[2] = {yb, yb};
+    plwidth(3.0);
+    plline(2, lx, ly);
+    for (int k = 0; k < 2; k++) {
+        PLFLT tx[2] = {lx[k], lx[k]}, ty[2] = {yb - 1.2 * fr->my, yb + 1.2 * fr->my};
+        plline(2, tx, ty);
+    }
+    plwidth(1.0);
+    char text[64];
+    snprintf(text, sizeof text, "%g %s", len, unit);
+    plptex(0.5 * (xl + xr), yb + 2.2 * fr->my, 1.0, 0.0, 0.5, text);
+}
+
+/* An arrow pointing up the page at the upper right of the viewport, N above its head. */
+static void draw_north_arrow(const frame *fr)
+{
+    double cx = fr->wx1 - 8.0 * fr->mx, cy = fr->wy1 - 14.0 * fr->my, h = 0.5 * ARROW_MM * 0.8;
+    PLFLT lx[2] = {cx, cx}, ly[2] = {cy - h * fr->my, cy + (h - 3.0) * fr->my};
+    PLFLT tx[3] = {cx, cx - 2.0 * fr->mx, cx + 2.0 * fr->mx};
+    PLFLT ty[3] = {cy + h * fr->my, cy + (h - 4.5) * fr->my, cy + (h - 4.5) * fr->my};
+    plcol0(PAL0 + DRAGARC_PLOT_BLACK);
+    plwidth(3.0);
+    plline(2, lx, ly);
+    plwidth(1.0);
+    plfill(3, tx, ty);
+    plptex(cx, cy + (h + 4.0) * fr->my, 0.0, 1.0, 0.5, "N");
+}
+
+/* The colour range of raster r: its own, or that of its finite cells (a unit around one value). */
+static void raster_range(const dragarc_plot_raster *r, double *zmin, double *zmax)
+{
+    if (r->zmax > r->zmin) {
+        *zmin = r->zmin, *zmax = r->zmax;
+        return;
+    }
+    double lo = INFINITY, hi = -INFINITY;
+    for (size_t i = 0; i < r->nx * r->ny; i++)
+        if (isfinite(r->z[i]))
+            lo = fmin(lo, r->z[i]), hi = fmax(hi, r->z[i]);
+    if (!(hi >= lo))
+        lo = 0.0, hi = 1.0;
+    if (!(hi > lo))
+        hi = lo + (lo != 0.0 ? 0.1 * fabs(lo) : 1.0);
+    *zmin = lo, *zmax = hi;
+}
+
+/* The raster of a panel as an image under the series, and its colour bar at the right of the viewport. Cells that
+ * are not finite or below the range get a value below it, which plimage leaves undrawn. */
+static void draw_raster(const dragarc_plot_raster *r)
+{
+    double zmin, zmax;
+    raster_range(r, &zmin, &zmax);
+    PLFLT *cells = malloc(r->nx * r->ny * sizeof *cells);
+    PLFLT **cols = malloc(r->nx * sizeof *cols);
+    PLFLT *xg = malloc((r->nx + 1 + r->ny + 1) * sizeof *xg);
+    if (!cells || !cols || !xg) {
+        free(cells);
+        free(cols);
+        free(xg);
+        if (!g_plot.message[0])
+            snprintf(g_plot.message, sizeof g_plot.message, "out of memory for the colour map");
+        return;
+    }
+    double below = zmin - 1.0 - fabs(zmin);
+    for (size_t i = 0; i < r->nx; i++) {
+        cols[i] = cells + i * r->ny;
+        for (size_t j = 0; j < r->ny; j++) {
+            double z = r->z[j * r->nx + i];
+            cols[i][j] = isfinite(z) && z >= zmin ? fmin(z, zmax) : below;
+        }
+    }
+    /* the cells' edges, through pltr1: plimagefr maps cell (i, j) onto [xg[i], xg[i+1]] x [yg[j], yg[j+1]] */
+    PLFLT *yg = xg + r->nx + 1;
+    for (size_t i = 0; i <= r->nx; i++)
+        xg[i] = r->x0 + (r->x1 - r->x0) * (double)i / (double)r->nx;
+    for (size_t j = 0; j <= r->ny; j++)
+        yg[j] = r->y0 + (r->y1 - r->y0) * (double)j / (double)r->ny;
+    PLcGrid grid = {.xg = xg, .yg = yg, .nx = (PLINT)r->nx + 1, .ny = (PLINT)r->ny + 1};
+    plimagefr((PLFLT_MATRIX)cols, (PLINT)r->nx, (PLINT)r->ny, r->x0, r->x1, r->y0, r->y1, zmin, zmax, zmin, zmax,
+              pltr1, &grid);
+    free(cells);
+    free(cols);
+    free(xg);
+
+    PLFLT w, h, range[2] = {zmin, zmax};
+    const PLFLT *values[1] = {range};
+    PLINT label_opts[1] = {PL_COLORBAR_LABEL_RIGHT}, sub_ticks[1] = {0}, n_values[1] = {2};
+    PLFLT ticks[1] = {0.0};
+    const char *labels[1] = {r->label ? r->label : ""}, *axis_opts[1] = {"bcvtm"};
+    plcol0(PAL0 + DRAGARC_PLOT_BLACK);
+    plcolorbar(&w, &h, PL_COLORBAR_IMAGE | PL_COLORBAR_LABEL_RIGHT,
+               PL_POSITION_RIGHT | PL_POSITION_OUTSIDE | PL_POSITION_VIEWPORT, 0.02, 0.0, 0.04, 1.0, 0,
+               PAL0 + DRAGARC_PLOT_BLACK, 1, 0.0, 0.0, 0, 0.0, 1, label_opts, labels, 1, axis_opts, ticks, sub_ticks,
+               n_values, (PLFLT_MATRIX)values);
+}
+
 /* The legend sits between the title and the viewport, in rows of at most this many entries. */
 #define LEGEND_COLUMNS 3
+/* pllegend's text and symbols scale with the subpage's character height differently from plmtex's: at this
+ * character scale (that of three panels) a text scale of 0.9 matches the axis labels, and it is kept in
+ * proportion for other numbers of panels. */
+#define LEGEND_CHR (0.55 * 1.7320508075688772)
 
 /* Returns the rows the legend takes (0: none). */
-static int draw_legend(const dragarc_plot_panel *p)
+static int draw_legend(const dragarc_plot_panel *p, PLFLT chr)
 {
     enum { MAXL = 16 };
     PLINT opt[MAXL], text_colours[MAXL], line_colours[MAXL], line_styles[MAXL], symbol_colours[MAXL],
@@ -318,14 +496,17 @@ static int draw_legend(const dragarc_plot_panel *p)
         const dragarc_plot_series *s = &p->series[k];
         if (!s->label)
             continue;
-        int markers = s->style == DRAGARC_PLOT_MARKERS;
-        opt[n] = markers ? PL_LEGEND_SYMBOL : PL_LEGEND_LINE;
+        int markers = s->style == DRAGARC_PLOT_MARKERS, filled = s->style == DRAGARC_PLOT_FILLED;
+        opt[n] = markers ? PL_LEGEND_SYMBOL : filled ? PL_LEGEND_COLOR_BOX : PL_LEGEND_LINE;
+        box_colours[n] = TINT0 + s->colour;
+        box_scales[n] = 0.8;
+        box_widths[n] = 1.0;
         text[n] = s->label;
         text_colours[n] = PAL0 + DRAGARC_PLOT_BLACK;
         line_colours[n] = symbol_colours[n] = PAL0 + s->colour;
-        line_styles[n] = LINE_STYLE[s->style];
+        line_styles[n] = filled ? 1 : LINE_STYLE[s->style];
         line_widths[n] = 2.5;
-        symbol_scales[n] = 1.0;
+        symbol_scales[n] = chr / LEGEND_CHR;
         symbol_numbers[n] = 1;
         symbols[n] = MARKER_GLYPH[markers ? s->marker : 0];
         n++;
@@ -337,7 +518,7 @@ static int draw_legend(const dragarc_plot_panel *p)
     pllegend(&w, &h, PL_LEGEND_BACKGROUND | PL_LEGEND_BOUNDING_BOX,
              PL_POSITION_TOP | PL_POSITION_OUTSIDE | PL_POSITION_VIEWPORT, 0.0, 0.02, 0.06, 0, PAL0, 1,
              rows, n < LEGEND_COLUMNS ? n : LEGEND_COLUMNS, n, opt,
-             0.8, 0.9, 1.8, 0.0, text_colours, text, box_colours, box_patterns, box_scales, box_widths,
+             0.8, 0.9 * chr / LEGEND_CHR, 1.8, 0.0, text_colours, text, box_colours, box_patterns, box_scales, box_widths,
              line_colours, line_styles, line_widths, symbol_colours, symbol_scales, symbol_numbers, symbols);
     return rows;
 }
@@ -349,24 +530,27 @@ static void draw_panel(const dragarc_plot_panel *p, PLFLT *x, PLFLT *y, PLFLT ch
     (void)panel_limits(p, lim); /* checked by check_figure */
     pladv(0);
     plschr(0.0, chr);
-    plvpor(VP_XMIN, VP_XMAX, VP_YMIN, VP_YMAX);
+    double vx1 = p->raster ? VP_XMAX_RASTER : VP_XMAX;
+    plvpor(VP_XMIN, vx1, VP_YMIN, VP_YMAX);
     if (p->equal_scale) {
         /* A long, flat path at equal scales would leave a sliver too thin for its axis: the window then reaches
          * higher above the path (the scales stay equal), up to MIN_HEIGHT of the room there is; a tall, narrow one
          * reaches wider, up to MIN_WIDTH. */
         PLFLT nx0, nx1, ny0, ny1;
         plgvpd(&nx0, &nx1, &ny0, &ny1);
-        double room = (ny1 - ny0) * PAGE_H_PT / ((nx1 - nx0) * PAGE_W_PT); /* height / width on the page */
+        double room = (ny1 - ny0) * g_plot.page_h / ((nx1 - nx0) * PAGE_W_PT); /* height / width on the page */
         if ((lim[3] - lim[2]) / (lim[1] - lim[0]) < MIN_HEIGHT * room)
             lim[3] = lim[2] + MIN_HEIGHT * room * (lim[1] - lim[0]);
         if ((lim[3] - lim[2]) / (lim[1] - lim[0]) > room / MIN_WIDTH) { /* a tall one widens about its middle */
             double mid = 0.5 * (lim[0] + lim[1]), half = 0.5 * MIN_WIDTH * (lim[3] - lim[2]) / room;
             lim[0] = mid - half, lim[1] = mid + half;
         }
-        plvpas(VP_XMIN, VP_XMAX, VP_YMIN, VP_YMAX, (lim[3] - lim[2]) / (lim[1] - lim[0]));
+        plvpas(VP_XMIN, vx1, VP_YMIN, VP_YMAX, (lim[3] - lim[2]) / (lim[1] - lim[0]));
     }
     double y0 = p->y_reversed ? lim[3] : lim[2], y1 = p->y_reversed ? lim[2] : lim[3];
     plwind(lim[0], lim[1], y0, y1);
+    if (p->raster)
+        draw_raster(p->raster);
     plcol0(GRID_COLOUR);
     plbox("g", 0.0, 0, "g", 0.0, 0);
     plcol0(PAL0 + DRAGARC_PLOT_BLACK);
@@ -379,8 +563,12 @@ static void draw_panel(const dragarc_plot_panel *p, PLFLT *x, PLFLT *y, PLFLT ch
         draw_series(&fr, &p->series[k], x, y);
     if (p->arrow)
         draw_arrow(&fr, p->arrow);
+    if (p->scale_bar_unit)
+        draw_scale_bar(&fr, p->scale_bar_unit);
+    if (p->north_arrow)
+        draw_north_arrow(&fr);
     plcol0(PAL0 + DRAGARC_PLOT_BLACK);
-    int rows = draw_legend(p);
+    int rows = draw_legend(p, chr);
     plschr(0.0, 1.15 * chr);
     plmtex("t", (2.0 + 1.6 * rows) / 1.15, 0.5, 0.5, p->title ? p->title : "");
     plschr(0.0, chr);
@@ -421,6 +609,7 @@ int dragarc_plot_write(const char *path, const dragarc_plot_figure *fig, dragarc
     /* PLplot opens the temporary file again by name and writes it; ours stays empty and is only closed. */
     memset(&g_plot, 0, sizeof g_plot);
     g_plot.busy = 1;
+    g_plot.page_h = fig->page_height > 0.0 ? fig->page_height : PAGE_H_PT;
     volatile int ended = 0; /* plend has been called: PLplot has let go of everything it took */
     plsexit(on_plexit);
     plsabort(on_plabort);
@@ -436,12 +625,27 @@ int dragarc_plot_write(const char *path, const dragarc_plot_figure *fig, dragarc
     plsdev(DRIVER[fmt]);
     plsfnam(out.tmp_path);
     double dpi = fmt == DRAGARC_PLOT_PNG ? PNG_DPI : 72.0;
-    plspage(dpi, dpi, (PLINT)lround(PAGE_W_PT * dpi / 72.0), (PLINT)lround(PAGE_H_PT * dpi / 72.0), 0, 0);
-    plscmap0n(GRID_COLOUR + 1);
+    plspage(dpi, dpi, (PLINT)lround(PAGE_W_PT * dpi / 72.0), (PLINT)lround(g_plot.page_h * dpi / 72.0), 0, 0);
+    plscmap0n(NCOL0);
     plscol0(0, 255, 255, 255);
     for (int c = 0; c < DRAGARC_PLOT_NCOLOURS; c++)
         plscol0(PAL0 + c, OKABE_ITO[c][0], OKABE_ITO[c][1], OKABE_ITO[c][2]);
     plscol0(GRID_COLOUR, 215, 215, 215);
+    for (int c = 0; c < DRAGARC_PLOT_NCOLOURS; c++) {
+        int tint[3];
+        for (int k = 0; k < 3; k++)
+            tint[k] = (int)lround(255.0 - TINT_SHARE * (255.0 - OKABE_ITO[c][k]));
+        plscol0(TINT0 + c, tint[0], tint[1], tint[2]);
+    }
+    {
+        PLFLT at[NVIRIDIS], rr[NVIRIDIS], gg[NVIRIDIS], bb[NVIRIDIS];
+        for (int k = 0; k < NVIRIDIS; k++) {
+            at[k] = (double)k / (NVIRIDIS - 1);
+            rr[k] = VIRIDIS[k][0] / 255.0, gg[k] = VIRIDIS[k][1] / 255.0, bb[k] = VIRIDIS[k][2] / 255.0;
+        }
+        plscmap1n(256);
+        plscmap1l(1, NVIRIDIS, at, rr, gg, bb, NULL);
+    }
     plssub(1, (PLINT)fig->npanels);
     plinit();
     plsfont(PL_FCI_SANS, PL_FCI_UPRIGHT, PL_FCI_MEDIUM);

@@ -216,6 +216,64 @@ TEST(a_flight_plot_needs_samples)
     dragarc_scenario_clear(&s);
 }
 
+/* A map: a colour map with a cell left blank, two rings in one series separated by NaN, a filled area, markers, a
+ * scale bar and a north arrow, on a page of its own height. */
+TEST(a_map_with_a_colour_map_rings_and_a_filled_area)
+{
+    enum { NX = 24, NY = 16 };
+    static double z[NX * NY], rx[2 * 41 + 1], ry[2 * 41 + 1];
+    for (int j = 0; j < NY; j++)
+        for (int i = 0; i < NX; i++)
+            z[j * NX + i] = (i == 2 && j == 2) ? NAN : (double)(i + j);
+    int k = 0;
+    for (int ring = 1; ring <= 2; ring++) {
+        for (int i = 0; i <= 40; i++, k++)
+            rx[k] = 30.0 * ring * cos(2.0 * PI * i / 40.0), ry[k] = 20.0 * ring * sin(2.0 * PI * i / 40.0);
+        if (ring == 1)
+            rx[k] = ry[k] = NAN, k++;
+    }
+    double hx[4] = {-40, 40, 40, -40}, hy[4] = {-70, -70, -50, -50}, px = 5.0, py = 5.0;
+    dragarc_plot_series s[3] = {
+        {.label = "rings", .x = rx, .y = ry, .n = (size_t)k, .style = DRAGARC_PLOT_DASHED, .colour = DRAGARC_PLOT_VERMILLION},
+        {.label = "area", .x = hx, .y = hy, .n = 4, .style = DRAGARC_PLOT_FILLED, .colour = DRAGARC_PLOT_ORANGE},
+        {.label = "point", .x = &px, .y = &py, .n = 1, .style = DRAGARC_PLOT_MARKERS},
+    };
+    dragarc_plot_raster r = {.z = z, .nx = NX, .ny = NY, .x0 = -120, .x1 = 120, .y0 = -80, .y1 = 80,
+                             .label = "value (units)"};
+    dragarc_plot_panel p = {.title = "map", .xlabel = "east (m)", .ylabel = "north (m)", .series = s, .nseries = 3,
+                            .equal_scale = 1, .raster = &r, .scale_bar_unit = "m", .north_arrow = 1};
+    dragarc_plot_figure fig = {.panels = &p, .npanels = 1, .page_height = 560.0};
+    char path[128];
+    snprintf(path, sizeof path, "%s/map.svg", dir);
+    dragarc_error e;
+    int rc = dragarc_plot_write(path, &fig, &e);
+    CHECK(rc == DRAGARC_OK);
+    if (rc != DRAGARC_OK)
+        printf("  %s\n", e.message);
+    unsigned char buf[5];
+    long size = head(path, buf, 5);
+    CHECK(size > 5000 && size < 5000000 && memcmp(buf, "<?xml", 5) == 0);
+    /* the page is 600 x 560 points, as asked */
+    FILE *f = fopen(path, "r");
+    char text[4096] = "";
+    if (f) {
+        size_t got = fread(text, 1, sizeof text - 1, f);
+        text[got] = '\0';
+        fclose(f);
+    }
+    CHECK(strstr(text, "width=\"600pt\"") != NULL && strstr(text, "height=\"560pt\"") != NULL);
+    remove(path);
+    /* refused: a page out of bounds, a raster with no cells or reversed limits */
+    fig.page_height = 100.0;
+    CHECK_ERROR(dragarc_plot_write(path, &fig, &e), DRAGARC_EINVAL, e, "", "a page is 200 to 3000 points high");
+    fig.page_height = 0.0;
+    r.nx = 0;
+    CHECK_ERROR(dragarc_plot_write(path, &fig, &e), DRAGARC_EINVAL, e, "", "the colour map needs cells");
+    r.nx = NX, r.x1 = r.x0;
+    CHECK_ERROR(dragarc_plot_write(path, &fig, &e), DRAGARC_EINVAL, e, "", "the colour map needs cells");
+    CHECK(entries() == 0);
+}
+
 int main(void)
 {
     dragarc_init();
@@ -231,6 +289,7 @@ int main(void)
     RUN(failures_leave_no_file);
     RUN(a_file_in_place_is_replaced_only_when_the_new_one_is_complete);
     RUN(a_flight_plot_needs_samples);
+    RUN(a_map_with_a_colour_map_rings_and_a_filled_area);
     rmdir(dir);
     return check_summary();
 }
