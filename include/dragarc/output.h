@@ -42,6 +42,14 @@ int dragarc_output_commit(dragarc_output *o, dragarc_error *err);
 /* Close and remove the temporary file; the destination is untouched. Safe after commit. */
 void dragarc_output_abort(dragarc_output *o);
 
+/* Remove every temporary file that an open dragarc_output holds (those opened and not yet committed or aborted):
+ * for a program's SIGINT / SIGTERM handler, so that an interrupted run leaves no partial file behind. It only
+ * calls unlink and reads lock-free atomics, so it is async-signal-safe; the library installs no handler itself.
+ * At most DRAGARC_OUTPUT_PENDING_MAX outputs are tracked at once (more are still written whole, but one that is
+ * interrupted may leave its temporary file). */
+#define DRAGARC_OUTPUT_PENDING_MAX 32
+void dragarc_output_remove_pending(void);
+
 /* The shortest "%.*g" (10 to 17 significant digits, C locale) that reads back to the same double, into
  * buf (32 bytes suffice); "" for a value that is not finite. The number form of every CSV and JSON table. */
 void dragarc_number_format(char *buf, size_t size, double v);

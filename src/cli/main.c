@@ -1,10 +1,14 @@
 /* main.c: the dragarc command-line program: dispatch to one command, decide the exit status.
  * SPDX-License-Identifier: GPL-3.0-or-later
  */
+#define _POSIX_C_SOURCE 200809L
+#include <signal.h>
 #include <stdio.h>
 #include <string.h>
+#include <unistd.h>
 
 #include "cli/cli.h"
+#include "dragarc/output.h"
 
 static const char USAGE[] =
     "usage: dragarc COMMAND [ARGS...]\n"
@@ -33,14 +37,47 @@ static const char USAGE[] =
     "  -V, --version         print the version\n"
     "\n"
     "exit status: 0 success, 1 no solution (aim: target out of reach; optimize: no launch lands),\n"
-    "2 bad usage or input, 3 the computation (or a table row) failed.\n"
+    "2 bad usage or input, 3 the computation (or a table row) failed; stopped by SIGINT, SIGTERM or SIGHUP:\n"
+    "the run ends by that signal (a shell shows 128 + its number) and leaves no partial file.\n"
     "Scenario files, models and sources: see docs/ in the source tree.\n";
 
 static int run(int argc, char **argv);
 
+/* SIGINT, SIGTERM, SIGHUP, SIGPIPE: remove the temporary files of the outputs still being written, say so, and
+ * end by the same signal with its default action, so that the caller sees how the run ended (a shell reports
+ * 128 + the signal's number) and no partial file is left. Only async-signal-safe calls. */
+static void on_stop_signal(int sig)
+{
+    dragarc_output_remove_pending();
+    static const char msg[] = "dragarc: stopped by a signal; files not yet complete were removed\n";
+    if (sig != SIGPIPE)
+        (void)!write(STDERR_FILENO, msg, sizeof msg - 1);
+    signal(sig, SIG_DFL);
+    raise(sig);
+}
+
+static void catch_stop_signals(void)
+{
+    static const int sigs[] = {SIGINT, SIGTERM, SIGHUP, SIGPIPE};
+    struct sigaction sa;
+    memset(&sa, 0, sizeof sa);
+    sa.sa_handler = on_stop_signal;
+    sigemptyset(&sa.sa_mask);
+    for (size_t i = 0; i < sizeof sigs / sizeof sigs[0]; i++)
+        sigaddset(&sa.sa_mask, sigs[i]); /* one handler at a time */
+    for (size_t i = 0; i < sizeof sigs / sizeof sigs[0]; i++) {
+        struct sigaction old;
+        /* a signal the parent chose to ignore (nohup's SIGHUP, a shell's background SIGINT) stays ignored */
+        if (sigaction(sigs[i], NULL, &old) == 0 && old.sa_handler == SIG_IGN)
+            continue;
+        sigaction(sigs[i], &sa, NULL);
+    }
+}
+
 /* A result that did not reach standard output (a full disk, a closed pipe) is a failure, not success. */
 int main(int argc, char **argv)
 {
+    catch_stop_signals();
     int status = run(argc, argv);
     cli_units_release();
     if (fflush(stdout) != 0 || ferror(stdout)) {

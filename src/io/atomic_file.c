@@ -3,6 +3,7 @@
  */
 #define _POSIX_C_SOURCE 200809L
 #include <errno.h>
+#include <stdatomic.h>
 #include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
@@ -60,6 +61,41 @@ int dragarc_text_file_read(const char *path, size_t max_bytes, char **out, draga
     return DRAGARC_OK;
 }
 
+/* The temporary files of the outputs open now, for dragarc_output_remove_pending: a slot holds a pointer to an open
+ * output's tmp_path (which lives as long as the output is open). Pointers are lock-free atomics on the platforms
+ * we build for (checked below), so a signal handler may read them at any moment. */
+static _Atomic(const char *) g_pending[DRAGARC_OUTPUT_PENDING_MAX];
+#if ATOMIC_POINTER_LOCK_FREE != 2
+#error "dragarc_output_remove_pending needs lock-free atomic pointers"
+#endif
+
+static void pending_add(const char *tmp)
+{
+    for (int i = 0; i < DRAGARC_OUTPUT_PENDING_MAX; i++) {
+        const char *none = NULL;
+        if (atomic_compare_exchange_strong(&g_pending[i], &none, tmp))
+            return;
+    }
+}
+
+static void pending_drop(const char *tmp)
+{
+    for (int i = 0; i < DRAGARC_OUTPUT_PENDING_MAX; i++) {
+        const char *mine = tmp;
+        if (atomic_compare_exchange_strong(&g_pending[i], &mine, NULL))
+            return;
+    }
+}
+
+void dragarc_output_remove_pending(void)
+{
+    for (int i = 0; i < DRAGARC_OUTPUT_PENDING_MAX; i++) {
+        const char *tmp = atomic_load(&g_pending[i]);
+        if (tmp && tmp[0])
+            unlink(tmp);
+    }
+}
+
 int dragarc_output_open(dragarc_output *o, const char *path, dragarc_error *err)
 {
     memset(o, 0, sizeof *o);
@@ -78,12 +114,14 @@ int dragarc_output_open(dragarc_output *o, const char *path, dragarc_error *err)
         o->tmp_path[0] = '\0';
         return dragarc_error_set(err, DRAGARC_EIO, "", "cannot write %s: %s", path, strerror(e));
     }
+    pending_add(o->tmp_path);
     /* mkstemp makes the file private (0600); results are ordinary documents, readable by others. */
     (void)fchmod(fd, 0644);
     o->fp = fdopen(fd, "w");
     if (!o->fp) {
         int e = errno;
         close(fd);
+        pending_drop(o->tmp_path);
         unlink(o->tmp_path);
         o->tmp_path[0] = '\0';
         return dragarc_error_set(err, DRAGARC_EIO, "", "cannot write %s: %s", path, strerror(e));
@@ -112,6 +150,7 @@ int dragarc_output_commit(dragarc_output *o, dragarc_error *err)
         bad = 1;
         e = errno;
     }
+    pending_drop(o->tmp_path); /* renamed, or about to be removed */
     if (bad) {
         unlink(o->tmp_path);
         o->tmp_path[0] = '\0';
@@ -126,7 +165,9 @@ void dragarc_output_abort(dragarc_output *o)
     if (o->fp && o->fp != stdout)
         fclose(o->fp);
     o->fp = NULL;
-    if (o->tmp_path[0])
+    if (o->tmp_path[0]) {
         unlink(o->tmp_path);
+        pending_drop(o->tmp_path);
+    }
     o->tmp_path[0] = '\0';
 }
