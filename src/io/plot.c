@@ -405,7 +405,7 @@ static void draw_north_arrow(const frame *fr)
     plline(2, lx, ly);
     plwidth(1.0);
     plfill(3, tx, ty);
-    plptex(cx, cy + (h + 4.0) * fr->my, 0.0, 1.0, 0.5, "N");
+    plptex(cx, cy + (h + 4.0) * fr->my, 1.0, 0.0, 0.5, "N");
 }
 
 /* The colour range of raster r: its own, or that of its finite cells (a unit around one value). */
@@ -426,7 +426,7 @@ static void raster_range(const dragarc_plot_raster *r, double *zmin, double *zma
     *zmin = lo, *zmax = hi;
 }
 
-/* The raster of a panel as an image under the series, and its colour bar at the right of the viewport. Cells that
+/* The raster of a panel as an image under the series (its colour bar is drawn last, by draw_colour_bar). Cells that
  * are not finite or below the range get a value below it, which plimage leaves undrawn. */
 static void draw_raster(const dragarc_plot_raster *r)
 {
@@ -463,17 +463,38 @@ static void draw_raster(const dragarc_plot_raster *r)
     free(cells);
     free(cols);
     free(xg);
+}
 
-    PLFLT w, h, range[2] = {zmin, zmax};
-    const PLFLT *values[1] = {range};
-    PLINT label_opts[1] = {PL_COLORBAR_LABEL_RIGHT}, sub_ticks[1] = {0}, n_values[1] = {2};
-    PLFLT ticks[1] = {0.0};
-    const char *labels[1] = {r->label ? r->label : ""}, *axis_opts[1] = {"bcvtm"};
+/* The colour bar of raster r, to the right of the current viewport: COLOUR_BAR_STEPS bands of the colour map
+ * (filled polygons, so that the bar is vector in SVG and PDF), a frame with the values on its right, the raster's
+ * label beyond them. PLplot's own plcolorbar is not used: on a page of several subpages it drew nothing on any
+ * subpage but the last. Changes the viewport: call it last on a panel. */
+#define COLOUR_BAR_STEPS 64
+static void draw_colour_bar(const dragarc_plot_raster *r)
+{
+    double zmin, zmax;
+    raster_range(r, &zmin, &zmax);
+    /* the viewport and the subpage, both normalised to the page (the subpage as the viewport that fills it), and
+     * the bar 4 mm right of the viewport, 5 mm wide, in the subpage's normalised coordinates that plvpor takes */
+    PLFLT nx0, nx1, ny0, ny1, sx0, sx1, sy0, sy1;
+    plgvpd(&nx0, &nx1, &ny0, &ny1);
+    plvpor(0.0, 1.0, 0.0, 1.0);
+    plgvpd(&sx0, &sx1, &sy0, &sy1);
+    double mm = 72.0 / 25.4 / PAGE_W_PT / (sx1 - sx0); /* one mm of the page, as a share of the subpage's width */
+    double x0 = (nx1 - sx0) / (sx1 - sx0) + 4.0 * mm;
+    plvpor(x0, x0 + 5.0 * mm, (ny0 - sy0) / (sy1 - sy0), (ny1 - sy0) / (sy1 - sy0));
+    plwind(0.0, 1.0, zmin, zmax);
+    for (int k = 0; k < COLOUR_BAR_STEPS; k++) {
+        /* each band reaches a little into the next, so that no seam of the background shows between them */
+        double a = zmin + (zmax - zmin) * k / COLOUR_BAR_STEPS,
+               b = zmin + (zmax - zmin) * fmin(k + 1.3, COLOUR_BAR_STEPS) / COLOUR_BAR_STEPS;
+        PLFLT bx[4] = {0.0, 1.0, 1.0, 0.0}, by[4] = {a, a, b, b};
+        plcol1((k + 0.5) / COLOUR_BAR_STEPS);
+        plfill(4, bx, by);
+    }
     plcol0(PAL0 + DRAGARC_PLOT_BLACK);
-    plcolorbar(&w, &h, PL_COLORBAR_IMAGE | PL_COLORBAR_LABEL_RIGHT,
-               PL_POSITION_RIGHT | PL_POSITION_OUTSIDE | PL_POSITION_VIEWPORT, 0.02, 0.0, 0.04, 1.0, 0,
-               PAL0 + DRAGARC_PLOT_BLACK, 1, 0.0, 0.0, 0, 0.0, 1, label_opts, labels, 1, axis_opts, ticks, sub_ticks,
-               n_values, (PLFLT_MATRIX)values);
+    plbox("bc", 0.0, 0, "bcmstv", 0.0, 0);
+    plmtex("r", 5.0, 0.5, 0.5, r->label ? r->label : "");
 }
 
 /* The legend sits between the title and the viewport, in rows of at most this many entries. */
@@ -572,6 +593,8 @@ static void draw_panel(const dragarc_plot_panel *p, PLFLT *x, PLFLT *y, PLFLT ch
     plschr(0.0, 1.15 * chr);
     plmtex("t", (2.0 + 1.6 * rows) / 1.15, 0.5, 0.5, p->title ? p->title : "");
     plschr(0.0, chr);
+    if (p->raster)
+        draw_colour_bar(p->raster);
 }
 
 int dragarc_plot_write(const char *path, const dragarc_plot_figure *fig, dragarc_error *err)
