@@ -98,6 +98,11 @@ typedef struct cli_fly_options {
 } cli_fly_options;
 int cli_fly_scenario(const char *where, const dragarc_scenario *s, const cli_fly_options *o);
 
+/* Scenario s flown again for the samples of a figure of its flight f: every o->dt when o->dt_given, else about 600
+ * samples over the flight (to rest on a ground surface). Fills *out as dragarc_flight_run does (caller clears). */
+int cli_fly_sampled(const dragarc_scenario *s, const dragarc_flight *f, const cli_fly_options *o, dragarc_flight *out,
+                    dragarc_error *err);
+
 /* Write the file at path whole or not at all with w(fp, ctx, err); on failure report it under `option` and return
  * the exit status, else EXIT_OK. */
 int cli_write_output(const char *option, const char *path, int (*w)(FILE *fp, const void *ctx, dragarc_error *err),
@@ -110,6 +115,7 @@ int cli_scenario_args(const char *cmd, const char *help, int argc, char **argv, 
                       const char **files, int *json, const char **path);
 
 int cmd_fly(int argc, char **argv);
+int cmd_report(int argc, char **argv);
 int cmd_aim(int argc, char **argv);
 int cmd_atmosphere(int argc, char **argv);
 int cmd_demo(int argc, char **argv);

@@ -337,6 +337,16 @@ void cli_print_params(FILE *fp)
                 p[i].unit[0] ? ")" : "");
 }
 
+int cli_fly_sampled(const dragarc_scenario *s, const dragarc_flight *f, const cli_fly_options *o, dragarc_flight *out,
+                    dragarc_error *err)
+{
+    double span = s->ground_surface_given ? f->rest_time : f->time_of_flight;
+    double dt = o->dt_given ? o->dt : span / 600.0;
+    if (!(dt > 0.0))
+        dt = 1e-3; /* a flight that ends where it starts: launch and impact rows suffice */
+    return dragarc_flight_run(s, dt, out, err);
+}
+
 /* The --plot file of flight f. Its samples are f's when --trajectory asked for them; otherwise the flight is flown
  * again, sampled every --dt or about 600 times, so that the numbers printed are those of a run without --plot. */
 static int fly_plot(const dragarc_scenario *s, const dragarc_flight *f, const cli_fly_options *o)
@@ -347,11 +357,7 @@ static int fly_plot(const dragarc_scenario *s, const dragarc_flight *f, const cl
     dragarc_error err;
     int rc = DRAGARC_OK;
     if (!o->trajectory) {
-        double span = s->ground_surface_given ? f->rest_time : f->time_of_flight;
-        double dt = o->dt_given ? o->dt : span / 600.0;
-        if (!(dt > 0.0))
-            dt = 1e-3; /* a flight that ends where it starts: launch and impact rows suffice */
-        rc = dragarc_flight_run(s, dt, &sampled, &err);
+        rc = cli_fly_sampled(s, f, o, &sampled, &err);
         use = &sampled;
     }
     if (rc == DRAGARC_OK) {

@@ -30,6 +30,8 @@ static const char USAGE[] =
     "                        expectation; JSON, CSV points, GeoJSON\n"
     "  uniformity CATCH.csv  how evenly a catch-can test was watered: Christiansen's CU, the\n"
     "                        low-quarter DU, CV\n"
+    "  report SCENARIO -o FILE.html [--command fly]\n"
+    "                        one self-contained HTML page: inputs, results, figures, cautions, sources\n"
     "  demo                  fly built-in example scenarios and explain what they show\n"
     "\n"
     "options:\n"
@@ -115,6 +117,8 @@ static int run(int argc, char **argv)
         return cmd_atmosphere(argc - 1, argv + 1);
     if (strcmp(cmd, "uniformity") == 0)
         return cmd_uniformity(argc - 1, argv + 1);
+    if (strcmp(cmd, "report") == 0)
+        return cmd_report(argc - 1, argv + 1);
     if (strcmp(cmd, "demo") == 0)
         return cmd_demo(argc - 1, argv + 1);
     if (strcmp(cmd, "sprinkler") == 0)

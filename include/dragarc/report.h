@@ -1,0 +1,109 @@
+/* report.h: one self-contained HTML page per job: inputs, results, figures, cautions, models and sources.
+ *
+ * Copyright (C) 2026 the dragarc developers. SPDX-License-Identifier: GPL-3.0-or-later
+ *
+ * A report is a small document model built in order: a title and the command, then sections, each holding
+ * paragraphs, key-value tables, data tables (units in the column headings), figures (SVG text, inlined), a list
+ * of cautions and a list of the models used with their sources; a footer gives the dragarc version and the date.
+ * dragarc_report_write_html writes it as one HTML file with its CSS and SVG inline: no scripts, no external
+ * references, print rules for A4 and Letter (src/io/report_html.c). Every text is escaped when written.
+ *
+ * A report kind (one per command: fly, and later aim, footprint, sprinkler, drift) is one function that fills a
+ * report from the command's results, such as dragarc_report_fly below (DEVELOPERS.md: "How to add a report kind").
+ */
+#ifndef DRAGARC_REPORT_H
+#define DRAGARC_REPORT_H
+
+#include <stddef.h>
+#include <time.h>
+
+#include "dragarc/dragarc.h"
+#include "dragarc/flight.h"
+#include "dragarc/plot.h"
+#include "dragarc/scenario.h"
+#include "dragarc/units.h"
+
+#ifdef __cplusplus
+extern "C" {
+#endif
+
+typedef struct dragarc_report dragarc_report;
+
+/* A new, empty report titled `title` (the scenario's name) for `command` ("fly"), both copied. Caller frees with
+ * dragarc_report_free. DRAGARC_ENOMEM. */
+int dragarc_report_new(dragarc_report **out, const char *title, const char *command, dragarc_error *err);
+
+/* Free a report and everything it copied; NULL is fine. */
+void dragarc_report_free(dragarc_report *r);
+
+/* The footer's date (UTC). Without it the footer gives the version only. */
+void dragarc_report_set_date(dragarc_report *r, time_t when);
+
+/* Where figures are drawn for a moment before they are read back (a folder that exists; copied). NULL or
+ * unset: "/tmp". */
+int dragarc_report_set_scratch_dir(dragarc_report *r, const char *dir, dragarc_error *err);
+
+/* A line under the title ("scenario file ball.json, units SI"); copied. Several lines are kept in order. */
+int dragarc_report_subtitle(dragarc_report *r, const char *text, dragarc_error *err);
+
+/* Start a section headed `heading`; the blocks added next go under it. Copied. */
+int dragarc_report_section(dragarc_report *r, const char *heading, dragarc_error *err);
+
+/* A paragraph of plain text; copied. */
+int dragarc_report_paragraph(dragarc_report *r, const char *text, dragarc_error *err);
+
+/* A table of n rows of two cells, name and value: pairs[2 i] and pairs[2 i + 1] (values carry their unit).
+ * caption may be NULL. Copied. */
+int dragarc_report_pairs(dragarc_report *r, const char *caption, size_t n, const char *const *pairs,
+                         dragarc_error *err);
+
+/* A data table of nrows rows and ncols columns: headings[j] (with its unit, "height (m)") and cells[i * ncols + j].
+ * Numeric columns are right-aligned when numeric[j] is 1 (numeric may be NULL). caption may be NULL. Copied. */
+int dragarc_report_table(dragarc_report *r, const char *caption, size_t ncols, const char *const *headings,
+                         const int *numeric, size_t nrows, const char *const *cells, dragarc_error *err);
+
+/* A figure from SVG text (an SVG document as PLplot's cairo driver writes it): the XML prolog and doctype are
+ * dropped, every id and every reference to one (url(#..), href="#..", xlink:href="#..") gets a prefix unique to
+ * the figure ("f3-"), and the outer <svg> keeps its viewBox and scales to the page width. Copied. DRAGARC_EINVAL
+ * when the text holds no <svg> element, or holds a script, an event handler or a reference outside itself. */
+int dragarc_report_figure_svg(dragarc_report *r, const char *caption, const char *svg, dragarc_error *err);
+
+/* Draws a picture into the SVG file at path (e.g. with dragarc_plot_write); returns a DRAGARC_* status. */
+typedef int (*dragarc_report_draw_fn)(const char *path, const void *ctx, dragarc_error *err);
+
+/* A figure drawn by draw(path, ctx, err) into a temporary SVG file in the scratch folder, read back, added as by
+ * dragarc_report_figure_svg, and removed (also on failure). Errors: draw's own, DRAGARC_EIO (the scratch folder). */
+int dragarc_report_figure_draw(dragarc_report *r, const char *caption, dragarc_report_draw_fn draw, const void *ctx,
+                               dragarc_error *err);
+
+/* The same for a figure described in plot.h's structs. */
+int dragarc_report_figure_plot(dragarc_report *r, const char *caption, const dragarc_plot_figure *fig,
+                               dragarc_error *err);
+
+/* The cautions (dragarc_cautions_*), shown as a marked box. Copied. */
+int dragarc_report_cautions(dragarc_report *r, size_t n, const char *const *cautions, dragarc_error *err);
+
+/* One model used and its source: what it is for ("atmosphere"), the model ("U.S. Standard Atmosphere 1976") and
+ * the source (author, title, year; may be NULL or "" when the model is the user's own data). Added to the
+ * report's list of models and sources, written after the last section. Copied. */
+int dragarc_report_source(dragarc_report *r, const char *topic, const char *model, const char *source,
+                          dragarc_error *err);
+
+/* Write the report as one HTML file at path, whole or not at all (dragarc_output_open / commit: on failure
+ * nothing is left and an existing file at path is untouched); "-" writes to standard output. DRAGARC_EIO. */
+int dragarc_report_write_html(const dragarc_report *r, const char *path, dragarc_error *err);
+
+/* ---- report kinds: one function each, filling a new report from a command's results ---- */
+
+/* The `fly` report of scenario s (read from file `where`), flown to impact as f, with its samples in `sampled`
+ * (dragarc_flight_run with dt > 0) for the figure and the trajectory table; values in the units of display d
+ * (NULL: SI). Adds the inputs, the results, the figure of dragarc_flight_plot (options po, may be NULL), the
+ * cautions and the models used. Errors as dragarc_flight_plot, DRAGARC_ENOMEM. */
+int dragarc_report_fly(dragarc_report *r, const char *where, const dragarc_scenario *s, const dragarc_flight *f,
+                       const dragarc_flight *sampled, const dragarc_display *d,
+                       const dragarc_flight_plot_options *po, dragarc_error *err);
+
+#ifdef __cplusplus
+}
+#endif
+#endif

@@ -1,0 +1,237 @@
+/* cmd_report.c: `dragarc report SCENARIO -o FILE.html [--command KIND] [options of that command]`.
+ * SPDX-License-Identifier: GPL-3.0-or-later
+ *
+ * One self-contained HTML page for one job (report.h). Each report kind is one entry of KINDS: a function that
+ * takes the command's own options, computes, and fills the report with the library's dragarc_report_<kind>
+ * (DEVELOPERS.md, "How to add a report kind"). This file decides the output, the date and the scratch folder.
+ */
+#define _POSIX_C_SOURCE 200809L
+#include <errno.h>
+#include <stdio.h>
+#include <stdlib.h>
+#include <string.h>
+#include <strings.h>
+#include <time.h>
+
+#include "cli/cli.h"
+#include "dragarc/plot.h"
+#include "dragarc/report.h"
+
+static const char HELP[] =
+    "usage: dragarc report SCENARIO -o FILE.html [--command KIND] [options of that command]\n"
+    "\n"
+    "Run one command on the scenario file SCENARIO and write one self-contained HTML page: the scenario's\n"
+    "main inputs, the results tables, the figures, the cautions, the models used with their sources, the\n"
+    "dragarc version and the date. CSS and SVG are inline: no scripts, no external files; it prints to PDF\n"
+    "from a browser (docs/report.md).\n"
+    "\n"
+    "  -o, --output FILE    the HTML file (.html or .htm), written whole or not at all\n"
+    "  --command KIND       the command to report on; available: fly (the default)\n"
+    "  -h, --help           this help\n"
+    "\n"
+    "fly options:\n"
+    "  --dt SECONDS         sampling interval of the figure and the table along the flight (default: about\n"
+    "                       600 points over the flight)\n"
+    "  --plot-scale equal|free  the side view's axes share one scale (default) or each fits its data\n"
+    "  --units si|us        the units of every value shown: SI (default) or US customary\n"
+    "  --unit KEY=UNIT      one quantity or one field in a unit of its own; repeat for more (docs/units.md)\n"
+    "\n"
+    "The date is the current time in UTC, or SOURCE_DATE_EPOCH (seconds since 1970) when that is set, for\n"
+    "reports that come out the same byte for byte. Figures are drawn for a moment in $TMPDIR, else beside FILE.\n"
+    "exit status: 0 success, 2 bad usage or input, 3 the computation failed.\n";
+
+/* What every kind is given: its own arguments (the scenario file among them) and where the report is written. */
+typedef struct report_job {
+    int argc;
+    char **argv;   /* argv[0] is "report" */
+    const char *scratch; /* folder for the figures' temporary files */
+    time_t date;
+} report_job;
+
+/* Parse the kind's options, compute, and fill a new report into *out (freed by the caller, also on failure).
+ * Returns an exit status; on failure the error has been printed. */
+typedef int (*report_kind_fn)(const report_job *job, dragarc_report **out);
+
+static int kind_fly(const report_job *job, dragarc_report **out);
+
+typedef struct report_kind {
+    const char *name;
+    report_kind_fn run;
+} report_kind;
+
+/* The kinds that exist. A kind is added with one line here and one function (DEVELOPERS.md). */
+static const report_kind KINDS[] = {
+    {"fly", kind_fly},
+};
+#define NKINDS (sizeof KINDS / sizeof KINDS[0])
+
+static const report_kind *kind_named(const char *name)
+{
+    for (size_t i = 0; i < NKINDS; i++)
+        if (strcmp(KINDS[i].name, name) == 0)
+            return &KINDS[i];
+    return NULL;
+}
+
+static void list_kinds(char *buf, size_t n)
+{
+    buf[0] = '\0';
+    for (size_t i = 0; i < NKINDS; i++)
+        snprintf(buf + strlen(buf), n - strlen(buf), "%s%s", i ? ", " : "", KINDS[i].name);
+}
+
+static int kind_fly(const report_job *job, dragarc_report **out)
+{
+    cli_fly_options o = {.dt = 0.05};
+    cli_common c = {0};
+    int st;
+    for (int i = 1; i < job->argc; i++) {
+        const char *a = job->argv[i];
+        if (strcmp(a, "--plot-scale") == 0) {
+            if (++i >= job->argc || (strcmp(job->argv[i], "equal") != 0 && strcmp(job->argv[i], "free") != 0))
+                return cli_usage_error("report", "--plot-scale needs 'equal' or 'free'");
+            o.plot_free_scale = strcmp(job->argv[i], "free") == 0;
+        } else if (strcmp(a, "--dt") == 0) {
+            char why[256] = "";
+            if (++i >= job->argc || cli_parse_value(job->argv[i], DRAGARC_Q_TIME, &o.dt, why, sizeof why) != 0 ||
+                !(o.dt > 0.0))
+                return why[0] ? cli_usage_error("report", "--dt %s", why)
+                              : cli_usage_error("report", "--dt needs a positive number of seconds");
+            o.dt_given = 1;
+        } else if ((st = cli_common_argument("report", job->argc, job->argv, &i, &c)) != 0) {
+            return st;
+        }
+    }
+    if (!c.file || !*c.file)
+        return cli_usage_error("report", "needs a scenario file");
+    dragarc_scenario s;
+    if ((st = cli_common_load("report", &c, &o.display, &s)) != 0)
+        return st;
+    dragarc_flight f, sampled;
+    memset(&sampled, 0, sizeof sampled);
+    dragarc_error err;
+    int rc = dragarc_flight_run(&s, 0.0, &f, &err);
+    if (rc == DRAGARC_OK && (rc = cli_fly_sampled(&s, &f, &o, &sampled, &err)) != DRAGARC_OK &&
+        strcmp(err.field, "dt") == 0) {
+        err.field[0] = '\0';
+        st = cli_report("--dt", &err);
+    } else if (rc != DRAGARC_OK) {
+        st = cli_report(c.file, &err);
+    }
+    if (rc == DRAGARC_OK) {
+        const char *base = strrchr(c.file, '/') ? strrchr(c.file, '/') + 1 : c.file;
+        dragarc_flight_plot_options po = {.title = NULL, .free_scale = o.plot_free_scale};
+        if ((rc = dragarc_report_new(out, s.name[0] ? s.name : base, "fly", &err)) == DRAGARC_OK &&
+            (rc = dragarc_report_set_scratch_dir(*out, job->scratch, &err)) == DRAGARC_OK)
+            rc = dragarc_report_fly(*out, c.file, &s, &f, &sampled, &o.display, &po, &err);
+        if (rc != DRAGARC_OK) {
+            err.field[0] = '\0';
+            st = cli_report("report", &err);
+        } else {
+            dragarc_report_set_date(*out, job->date);
+        }
+    }
+    dragarc_flight_clear(&sampled);
+    dragarc_flight_clear(&f);
+    dragarc_scenario_clear(&s);
+    return rc == DRAGARC_OK ? EXIT_OK : st;
+}
+
+/* SOURCE_DATE_EPOCH when set (a whole number of seconds), else now. 0, or the exit status of the error printed. */
+static int report_date(time_t *when)
+{
+    const char *env = getenv("SOURCE_DATE_EPOCH");
+    if (!env || !*env) {
+        *when = time(NULL);
+        return 0;
+    }
+    char *end = NULL;
+    errno = 0;
+    long long v = strtoll(env, &end, 10);
+    if (*end != '\0' || errno != 0 || v < 0 || env[0] < '0' || env[0] > '9')
+        return cli_usage_error("report", "SOURCE_DATE_EPOCH must be a whole number of seconds since 1970, not '%s'",
+                               env);
+    *when = (time_t)v;
+    return 0;
+}
+
+/* A file name ending in .html or .htm (any case), or "-". */
+static int html_name(const char *path)
+{
+    const char *dot = strrchr(path, '.');
+    return strcmp(path, "-") == 0 ||
+           (dot && !strchr(dot, '/') && dot > path && dot[-1] != '/' &&
+            (strcasecmp(dot, ".html") == 0 || strcasecmp(dot, ".htm") == 0));
+}
+
+int cmd_report(int argc, char **argv)
+{
+    const char *output = NULL, *command = NULL;
+    /* the kind's arguments: everything but -o and --command, in order */
+    char **rest = calloc((size_t)argc + 1, sizeof *rest);
+    if (!rest) {
+        fputs("dragarc: report: out of memory\n", stderr);
+        return EXIT_FAILED;
+    }
+    int nrest = 0, st = -1;
+    rest[nrest++] = argv[0];
+    for (int i = 1; i < argc && st < 0; i++) {
+        const char *a = argv[i];
+        if (cli_help_asked(a, HELP)) {
+            st = EXIT_OK;
+        } else if (strcmp(a, "-o") == 0 || strcmp(a, "--output") == 0) {
+            if (++i >= argc || !*argv[i])
+                st = cli_usage_error("report", "%s needs a file name ending in .html", a);
+            else if (output)
+                st = cli_usage_error("report", "only one output file, got '%s' and '%s'", output, argv[i]);
+            else
+                output = argv[i];
+        } else if (strcmp(a, "--command") == 0) {
+            if (++i >= argc || !*argv[i])
+                st = cli_usage_error("report", "--command needs a kind of report");
+            else
+                command = argv[i];
+        } else {
+            rest[nrest++] = argv[i];
+        }
+    }
+    char kinds[256];
+    list_kinds(kinds, sizeof kinds);
+    const report_kind *kind = command ? kind_named(command) : &KINDS[0];
+    if (st < 0 && !kind)
+        st = cli_usage_error("report", "--command '%s' has no report yet; available: %s", command, kinds);
+    if (st < 0 && !output)
+        st = cli_usage_error("report", "needs the output file: -o FILE.html");
+    if (st < 0 && !html_name(output))
+        st = cli_usage_error("report", "-o '%s': the report is HTML, name it FILE.html", output);
+    report_job job = {.argc = nrest, .argv = rest};
+    if (st < 0 && report_date(&job.date) != 0)
+        st = EXIT_BAD_INPUT;
+    if (st >= 0) {
+        free(rest);
+        return st;
+    }
+
+    /* the scratch folder: $TMPDIR, else the output's own folder */
+    char scratch[4096];
+    const char *tmp = getenv("TMPDIR");
+    const char *slash = strrchr(output, '/');
+    if (tmp && *tmp)
+        snprintf(scratch, sizeof scratch, "%s", tmp);
+    else if (slash && strcmp(output, "-") != 0)
+        snprintf(scratch, sizeof scratch, "%.*s", (int)(slash - output) > 0 ? (int)(slash - output) : 1, output);
+    else
+        snprintf(scratch, sizeof scratch, ".");
+    job.scratch = scratch;
+
+    dragarc_report *r = NULL;
+    dragarc_error err;
+    st = kind->run(&job, &r);
+    if (st == EXIT_OK && (st = dragarc_report_write_html(r, output, &err)) != DRAGARC_OK) {
+        err.field[0] = '\0';
+        st = cli_report("-o", &err);
+    }
+    dragarc_report_free(r);
+    free(rest);
+    return st;
+}

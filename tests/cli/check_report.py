@@ -1,0 +1,156 @@
+#!/usr/bin/env python3
+# check_report.py: `dragarc report` end to end, rendered by a real browser (Debian's chromium, headless).
+# SPDX-License-Identifier: GPL-3.0-or-later
+#
+# usage: check_report.py DRAGARC_BINARY TESTS_DATA_DIR
+#
+# Builds the fly report of ball-in-wind.json, then checks the file (one page, no <script>, no external reference:
+# no http: or https:, no src=, no href= outside the page; every id unique, every url(#..) and href="#.." pointing at
+# one of them), the page chromium renders (--dump-dom: the figure's <svg> and the tables are in the DOM, no
+# console error logged), a screenshot (a PNG of the asked size) and a print to PDF (its signature, a plausible size
+# and page count). Also: the same SOURCE_DATE_EPOCH gives the same bytes; usage errors exit 2 with one line and
+# leave no file. Exits 77 (ctest's skip) when chromium is not installed; CI installs it.
+import collections
+import os
+import re
+import shutil
+import struct
+import subprocess
+import sys
+import tempfile
+
+passed = failed = 0
+
+
+def check(ok, what):
+    global passed, failed
+    if ok:
+        passed += 1
+    else:
+        failed += 1
+        print("FAIL", what)
+
+
+def main():
+    if len(sys.argv) != 3:
+        print("usage: check_report.py DRAGARC_BINARY TESTS_DATA_DIR", file=sys.stderr)
+        return 2
+    dragarc, data = sys.argv[1], sys.argv[2]
+    browser = shutil.which("chromium") or shutil.which("chromium-browser")
+    work = tempfile.mkdtemp(prefix="dragarc-report-")
+    try:
+        return run(dragarc, data, browser, work)
+    finally:
+        shutil.rmtree(work, ignore_errors=True)
+
+
+def dragarc_run(dragarc, args, work, env_extra=None):
+    env = dict(os.environ, SOURCE_DATE_EPOCH="1767225600", TMPDIR=work)
+    env.update(env_extra or {})
+    return subprocess.run([dragarc] + args, cwd=work, env=env, capture_output=True, text=True, timeout=60)
+
+
+def chromium(browser, work, args):
+    """Start headless chromium with a profile of its own; the caller waits (the three runs overlap)."""
+    profile = tempfile.mkdtemp(prefix="profile-", dir=work)
+    cmd = [browser, "--headless", "--no-sandbox", "--disable-gpu", "--disable-dev-shm-usage", "--no-first-run",
+           "--disable-extensions", "--disable-background-networking", "--disable-component-update",
+           "--disable-sync", "--hide-scrollbars", "--enable-logging=stderr", "--v=0",
+           "--user-data-dir=" + profile] + args
+    return subprocess.Popen(cmd, cwd=work, stdout=subprocess.PIPE, stderr=subprocess.PIPE, text=True)
+
+
+def finish(proc):
+    try:
+        out, err = proc.communicate(timeout=90)
+    except subprocess.TimeoutExpired:
+        proc.kill()
+        out, err = proc.communicate()
+    return subprocess.CompletedProcess(proc.args, proc.returncode, out, err)
+
+
+def run(dragarc, data, browser, work):
+    scenario = os.path.join(data, "ball-in-wind.json")
+    page = os.path.join(work, "fly.html")
+
+    # usage errors: one line, exit 2, no file
+    for args, text in [(["--command", "aim"], "--command 'aim' has no report yet; available: fly"),
+                       (["--command", "frobnicate"], "available: fly"),
+                       ([], "needs the output file: -o FILE.html"),
+                       (["-o", "bad.txt"], "name it FILE.html"),
+                       (["-o", "x.html", "--plot-scale", "tilted"], "--plot-scale needs 'equal' or 'free'")]:
+        r = dragarc_run(dragarc, ["report", scenario] + args, work)
+        lines = r.stderr.splitlines()
+        check(r.returncode == 2 and len(lines) == 1 and text in lines[0] and not r.stdout,
+              "report %s: exit %d, stderr %r" % (" ".join(args), r.returncode, r.stderr))
+    r = dragarc_run(dragarc, ["report", scenario, "-o", "x.html"], work, {"SOURCE_DATE_EPOCH": "soon"})
+    check(r.returncode == 2 and "SOURCE_DATE_EPOCH" in r.stderr, "a bad SOURCE_DATE_EPOCH: %r" % r.stderr)
+    r = dragarc_run(dragarc, ["report", os.path.join(data, "missing-profile.json"), "-o", "x.html"], work)
+    check(r.returncode == 2 and r.stderr.count("\n") == 1 and "missing-profile.json" in r.stderr,
+          "a bad scenario: %r" % r.stderr)
+    check(sorted(os.listdir(work)) == [], "files left by failed runs: %s" % os.listdir(work))
+
+    # the report, twice with the same date: the same bytes
+    r = dragarc_run(dragarc, ["report", scenario, "-o", page], work)
+    check(r.returncode == 0 and r.stdout == "" and r.stderr == "", "report: exit %d, %r" % (r.returncode, r.stderr))
+    html = open(page, encoding="utf-8").read()
+    r2 = dragarc_run(dragarc, ["report", scenario, "-o", "again.html", "--command", "fly"], work)
+    check(r2.returncode == 0 and open(os.path.join(work, "again.html"), encoding="utf-8").read() == html,
+          "the same SOURCE_DATE_EPOCH gives the same page")
+    check(sorted(os.listdir(work)) == ["again.html", "fly.html"], "scratch files left: %s" % os.listdir(work))
+
+    check(html.startswith("<!DOCTYPE html>"), "doctype")
+    check("<script" not in html.lower(), "no <script>")
+    check(not re.search(r"https?:", html), "no http: or https: reference")
+    check(not re.search(r"\ssrc\s*=", html, re.I), "no src= attribute")
+    hrefs = re.findall(r"href\s*=\s*[\"']([^\"']*)", html)
+    check(hrefs and all(h.startswith("#") for h in hrefs), "every href points inside the page")
+    check("@import" not in html and "url(" not in re.sub(r"url\(#[^)]*\)", "", html), "no url() outside the page")
+    ids = re.findall(r"\sid\s*=\s*[\"']([^\"']*)", html)
+    dup = sorted(i for i, n in collections.Counter(ids).items() if n > 1)
+    check(ids and not dup, "%d ids, duplicated: %s" % (len(ids), dup[:5]))
+    refs = set(re.findall(r"url\(#([^)]*)\)", html)) | {h[1:] for h in hrefs}
+    check(refs and refs <= set(ids), "references without their id: %s" % sorted(refs - set(ids))[:5])
+    check(re.search(r"<footer>\n<p>Made by dragarc [0-9.]+ on 2026-01-01 00:00 UTC\.", html), "footer: version, date")
+    check(html.count("<svg ") == 1 and html.count("<table") == 3, "one figure, three tables")
+    check("Read before acting" in html and html.count("<li>") >= 3, "cautions")
+
+    if not browser:
+        print("%d passed, %d failed (chromium not installed: the browser checks were skipped)" % (passed, failed))
+        return 1 if failed else 77
+
+    # the DOM chromium builds and its console, a screenshot, a print to PDF: three browsers at once
+    shot, pdf = os.path.join(work, "shot.png"), os.path.join(work, "fly.pdf")
+    procs = [chromium(browser, work, ["--dump-dom", "file://" + page]),
+             chromium(browser, work, ["--screenshot=" + shot, "--window-size=1000,1400", "file://" + page]),
+             chromium(browser, work, ["--print-to-pdf=" + pdf, "--no-pdf-header-footer", "file://" + page])]
+    r, r_shot, r_pdf = [finish(p) for p in procs]
+
+    dom = r.stdout
+    check(r.returncode == 0 and "<svg" in dom, "chromium --dump-dom: exit %d" % r.returncode)
+    check(dom.count("<svg") == 1 and dom.count("<figure>") == 1, "the figure's <svg> in the DOM")
+    check(dom.count("<table") == 3 and dom.count("<th scope=\"col\"") == 5, "the tables in the DOM")
+    check("<script" not in dom, "no script in the DOM")
+    console = [l for l in r.stderr.splitlines() if "CONSOLE" in l]
+    check(not console, "console messages: %s" % console[:3])
+
+    png = open(shot, "rb").read() if os.path.exists(shot) else b""
+    check(r_shot.returncode == 0 and png[:8] == b"\x89PNG\r\n\x1a\n", "screenshot is a PNG")
+    if len(png) > 24:
+        w, h = struct.unpack(">II", png[16:24])
+        check((w, h) == (1000, 1400) and len(png) > 20000, "screenshot %dx%d, %d bytes" % (w, h, len(png)))
+
+    body = open(pdf, "rb").read() if os.path.exists(pdf) else b""
+    pages = len(re.findall(rb"/Type\s*/Page[^s]", body))
+    check(r_pdf.returncode == 0 and body[:5] == b"%PDF-" and b"%%EOF" in body[-1024:], "PDF signature")
+    check(len(body) > 20000 and 2 <= pages <= 8, "PDF of %d bytes, %d pages" % (len(body), pages))
+    if os.environ.get("DRAGARC_REPORT_KEEP"):  # a folder to keep the screenshot and the PDF in, for a look
+        for f in (shot, pdf, page):
+            shutil.copy(f, os.environ["DRAGARC_REPORT_KEEP"])
+
+    print("%d passed, %d failed" % (passed, failed))
+    return 1 if failed else 0
+
+
+if __name__ == "__main__":
+    sys.exit(main())

@@ -1,0 +1,301 @@
+/* test_report.c: the HTML report writer: text escaped, figures' ids prefixed so that several share a page, SVG
+ * that could reach outside the page refused, files written whole or not at all, the fly kind's cautions the ones
+ * `fly` prints.
+ * SPDX-License-Identifier: GPL-3.0-or-later
+ */
+#define _POSIX_C_SOURCE 200809L
+#include <dirent.h>
+#include <signal.h>
+#include <stdio.h>
+#include <stdlib.h>
+#include <string.h>
+#include <sys/resource.h>
+#include <sys/stat.h>
+#include <unistd.h>
+
+#include "check.h"
+#include "dragarc/cautions.h"
+#include "dragarc/output.h"
+#include "dragarc/report.h"
+
+static char dir[64]; /* a fresh folder for this run's files */
+
+static int entries(const char *folder)
+{
+    DIR *d = opendir(folder);
+    if (!d)
+        return -1;
+    int n = 0;
+    for (struct dirent *e; (e = readdir(d)) != NULL;)
+        if (strcmp(e->d_name, ".") != 0 && strcmp(e->d_name, "..") != 0)
+            n++;
+    closedir(d);
+    return n;
+}
+
+static char *slurp(const char *path)
+{
+    char *text = NULL;
+    dragarc_error e;
+    return dragarc_text_file_read(path, 1 << 26, &text, &e) == DRAGARC_OK ? text : NULL;
+}
+
+static int count(const char *hay, const char *needle)
+{
+    int n = 0;
+    for (const char *p = hay; (p = strstr(p, needle)) != NULL; p += strlen(needle))
+        n++;
+    return n;
+}
+
+/* A report with one paragraph, written to name in dir; its text (caller frees), NULL on failure. */
+static char *written(dragarc_report *r, const char *name)
+{
+    char path[128];
+    snprintf(path, sizeof path, "%s/%s", dir, name);
+    dragarc_error e;
+    if (dragarc_report_write_html(r, path, &e) != DRAGARC_OK)
+        return NULL;
+    char *text = slurp(path);
+    unlink(path);
+    return text;
+}
+
+TEST(every_text_is_escaped)
+{
+    dragarc_report *r;
+    dragarc_error e;
+    CHECK(dragarc_report_new(&r, "a <b> & \"c\" 'd'", "fly", &e) == DRAGARC_OK);
+    const char *pair[2] = {"<key>", "x & y"};
+    const char *head[1] = {"h <1>"}, *cell[1] = {"'q'"};
+    const char *caution[1] = {"don't <stand> here"};
+    CHECK(dragarc_report_section(r, "S&S", &e) == DRAGARC_OK);
+    CHECK(dragarc_report_paragraph(r, "<script>alert(1)</script>", &e) == DRAGARC_OK);
+    CHECK(dragarc_report_pairs(r, "cap<", 1, pair, &e) == DRAGARC_OK);
+    CHECK(dragarc_report_table(r, NULL, 1, head, NULL, 1, cell, &e) == DRAGARC_OK);
+    CHECK(dragarc_report_cautions(r, 1, caution, &e) == DRAGARC_OK);
+    CHECK(dragarc_report_source(r, "t>", "m\"", "s'", &e) == DRAGARC_OK);
+    char *html = written(r, "esc.html");
+    dragarc_report_free(r);
+    CHECK(html != NULL);
+    if (!html)
+        return;
+    CHECK(strstr(html, "<h1>a &lt;b&gt; &amp; &quot;c&quot; &#39;d&#39;</h1>") != NULL);
+    CHECK(strstr(html, "<title>a &lt;b&gt; &amp; &quot;c&quot; &#39;d&#39;") != NULL);
+    CHECK(strstr(html, "&lt;script&gt;alert(1)&lt;/script&gt;") != NULL);
+    CHECK(strstr(html, "<script") == NULL);
+    CHECK(strstr(html, "<h2>S&amp;S</h2>") != NULL);
+    CHECK(strstr(html, "&lt;key&gt;</th><td>x &amp; y</td>") != NULL);
+    CHECK(strstr(html, "<caption>cap&lt;</caption>") != NULL);
+    CHECK(strstr(html, ">h &lt;1&gt;</th>") != NULL && strstr(html, "<td>&#39;q&#39;</td>") != NULL);
+    CHECK(strstr(html, "<li>don&#39;t &lt;stand&gt; here</li>") != NULL);
+    CHECK(strstr(html, "t&gt;:</span> m&quot;") != NULL && strstr(html, "s&#39;</span>") != NULL);
+    free(html);
+}
+
+/* An SVG as cairo writes it: prolog, namespaces, glyphs used by xlink:href, a clip path by url(#). */
+static const char SVG[] =
+    "<?xml version=\"1.0\" encoding=\"UTF-8\"?>\n"
+    "<!DOCTYPE svg PUBLIC \"-//W3C//DTD SVG 1.1//EN\" \"http://www.w3.org/Graphics/SVG/1.1/DTD/svg11.dtd\">\n"
+    "<svg xmlns=\"http://www.w3.org/2000/svg\" xmlns:xlink=\"http://www.w3.org/1999/xlink\" width=\"600pt\" "
+    "height=\"450pt\" viewBox=\"0 0 600 450\" version=\"1.1\">\n"
+    "<defs><g><symbol overflow=\"visible\" id=\"glyph0-1\"><path d=\"M 0 0 L 1 1\"/></symbol></g>\n"
+    "<clipPath id=\"clip1\"><path d=\"M 0 0 L 9 9 Z\"/></clipPath></defs>\n"
+    "<g clip-path=\"url(#clip1)\"><use xlink:href=\"#glyph0-1\" x=\"1\" y=\"2\"/><use href='#glyph0-1'/></g>\n"
+    "</svg>\n";
+
+TEST(figures_get_ids_of_their_own_and_scale_to_the_page)
+{
+    dragarc_report *r;
+    dragarc_error e;
+    CHECK(dragarc_report_new(&r, "figures", "fly", &e) == DRAGARC_OK);
+    CHECK(dragarc_report_figure_svg(r, "one", SVG, &e) == DRAGARC_OK);
+    CHECK(dragarc_report_figure_svg(r, "two", SVG, &e) == DRAGARC_OK);
+    char *html = written(r, "fig.html");
+    dragarc_report_free(r);
+    CHECK(html != NULL);
+    if (!html)
+        return;
+    CHECK(strstr(html, "<?xml") == NULL && strstr(html, "<!DOCTYPE svg") == NULL);
+    CHECK(strstr(html, "http:") == NULL); /* the namespaces go: the HTML parser knows svg and xlink */
+    CHECK(count(html, "<svg viewBox=\"0 0 600 450\" width=\"100%\"") == 2);
+    CHECK(strstr(html, "height=\"450pt\"") == NULL);
+    CHECK(count(html, "id=\"f1-glyph0-1\"") == 1 && count(html, "id=\"f2-glyph0-1\"") == 1);
+    CHECK(count(html, "id=\"f1-clip1\"") == 1 && count(html, "id=\"f2-clip1\"") == 1);
+    CHECK(count(html, "url(#f1-clip1)") == 1 && count(html, "url(#f2-clip1)") == 1);
+    CHECK(count(html, "xlink:href=\"#f1-glyph0-1\"") == 1 && count(html, "href='#f2-glyph0-1'") == 1);
+    CHECK(count(html, "id=\"glyph") == 0 && count(html, "url(#clip") == 0 && count(html, "href=\"#glyph") == 0);
+    CHECK(strstr(html, "<b>Figure 2.</b> two") != NULL);
+    /* every id in the page is unique */
+    int dup = 0;
+    for (const char *p = html; (p = strstr(p, " id=\"")) != NULL; p += 5) {
+        char id[96];
+        if (sscanf(p + 5, "%95[^\"]", id) == 1) {
+            char pat[128];
+            snprintf(pat, sizeof pat, " id=\"%s\"", id);
+            dup += count(html, pat) != 1;
+        }
+    }
+    CHECK(dup == 0);
+    free(html);
+}
+
+TEST(svg_that_reaches_outside_the_page_is_refused)
+{
+    dragarc_report *r;
+    dragarc_error e;
+    CHECK(dragarc_report_new(&r, "bad", "fly", &e) == DRAGARC_OK);
+    CHECK_ERROR(dragarc_report_figure_svg(r, "x", "<p>no svg</p>", &e), DRAGARC_EINVAL, e, "", "no <svg> element");
+    CHECK_ERROR(dragarc_report_figure_svg(r, "x", "<svg><script>1</script></svg>", &e), DRAGARC_EINVAL, e, "",
+                "script");
+    CHECK_ERROR(dragarc_report_figure_svg(r, "x", "<svg><image href=\"http://x/y.png\"/></svg>", &e), DRAGARC_EINVAL,
+                e, "", "outside itself");
+    CHECK_ERROR(dragarc_report_figure_svg(r, "x", "<svg><g fill=\"url(other.svg#a)\"/></svg>", &e), DRAGARC_EINVAL,
+                e, "", "outside itself");
+    CHECK_ERROR(dragarc_report_figure_svg(r, "x", "<svg><g onload=\"f()\"/></svg>", &e), DRAGARC_EINVAL, e, "",
+                "event handler");
+    /* a raster embedded as data is its own */
+    CHECK(dragarc_report_figure_svg(r, "x", "<svg width=\"10\" height=\"5\"><image href=\"data:image/png;base64,AA\"/>"
+                                            "</svg>", &e) == DRAGARC_OK);
+    char *html = written(r, "refused.html");
+    CHECK(html && count(html, "<figure>") == 1 && strstr(html, "viewBox=\"0 0 10 5\""));
+    free(html);
+    dragarc_report_free(r);
+}
+
+static int draw_nothing(const char *path, const void *ctx, dragarc_error *err)
+{
+    (void)ctx;
+    FILE *f = fopen(path, "w"); /* a half-drawn file, then a failure */
+    if (f)
+        fclose(f);
+    return dragarc_error_set(err, DRAGARC_EIO, "", "the plot failed");
+}
+
+TEST(a_failed_figure_leaves_the_scratch_folder_clean)
+{
+    dragarc_report *r;
+    dragarc_error e;
+    char scratch[128];
+    snprintf(scratch, sizeof scratch, "%s/scratch", dir);
+    CHECK(mkdir(scratch, 0700) == 0);
+    CHECK(dragarc_report_new(&r, "t", "fly", &e) == DRAGARC_OK);
+    CHECK(dragarc_report_set_scratch_dir(r, scratch, &e) == DRAGARC_OK);
+    CHECK_ERROR(dragarc_report_figure_draw(r, "x", draw_nothing, NULL, &e), DRAGARC_EIO, e, "", "the plot failed");
+    CHECK(entries(scratch) == 0);
+    CHECK(dragarc_report_set_scratch_dir(r, "/nonexistent-dragarc-folder", &e) == DRAGARC_OK);
+    CHECK_ERROR(dragarc_report_figure_draw(r, "x", draw_nothing, NULL, &e), DRAGARC_EIO, e, "",
+                "cannot make a scratch folder");
+    dragarc_report_free(r);
+    rmdir(scratch);
+}
+
+TEST(a_failed_write_leaves_no_file_and_an_old_one_untouched)
+{
+    dragarc_report *r;
+    dragarc_error e;
+    CHECK(dragarc_report_new(&r, "t", "fly", &e) == DRAGARC_OK);
+    for (int i = 0; i < 200; i++)
+        dragarc_report_paragraph(r, "a paragraph long enough that two hundred of them fill many kilobytes of HTML", &e);
+    int before = entries(dir);
+    CHECK_ERROR(dragarc_report_write_html(r, "/nonexistent-dragarc-folder/r.html", &e), DRAGARC_EIO, e, "",
+                "cannot write");
+    /* an existing report, then a write cut short by a file-size limit (EFBIG): the old file stays as it was */
+    char path[128];
+    snprintf(path, sizeof path, "%s/old.html", dir);
+    FILE *f = fopen(path, "w");
+    fputs("old report\n", f);
+    fclose(f);
+    struct rlimit old, small;
+    getrlimit(RLIMIT_FSIZE, &old);
+    small = old;
+    small.rlim_cur = 4096;
+    signal(SIGXFSZ, SIG_IGN);
+    CHECK(setrlimit(RLIMIT_FSIZE, &small) == 0);
+    int rc = dragarc_report_write_html(r, path, &e);
+    setrlimit(RLIMIT_FSIZE, &old);
+    CHECK(rc == DRAGARC_EIO);
+    char *text = slurp(path);
+    CHECK(text && strcmp(text, "old report\n") == 0);
+    free(text);
+    CHECK(entries(dir) == before + 1); /* old.html alone: no temporary file left */
+    /* and a write that succeeds replaces it */
+    CHECK(dragarc_report_write_html(r, path, &e) == DRAGARC_OK);
+    text = slurp(path);
+    CHECK(text && strncmp(text, "<!DOCTYPE html>", 15) == 0 && count(text, "<p>a paragraph") == 200);
+    free(text);
+    unlink(path);
+    dragarc_report_free(r);
+}
+
+/* The cautions `fly` prints, escaped as the page shows them. */
+static void escaped(char *out, size_t n, const char *s)
+{
+    size_t k = 0;
+    for (; *s && k + 7 < n; s++) {
+        const char *rep = *s == '&' ? "&amp;" : *s == '<' ? "&lt;" : *s == '>' ? "&gt;" : *s == '"' ? "&quot;"
+                        : *s == '\'' ? "&#39;" : NULL;
+        if (rep)
+            k += (size_t)snprintf(out + k, n - k, "%s", rep);
+        else
+            out[k++] = *s;
+    }
+    out[k] = '\0';
+}
+
+TEST(the_fly_report_holds_the_inputs_results_figure_cautions_and_sources)
+{
+    dragarc_scenario s;
+    dragarc_error e;
+    CHECK(dragarc_scenario_read(DATA_DIR "/ball-in-wind.json", "", &s, &e) == DRAGARC_OK);
+    dragarc_flight f, g;
+    CHECK(dragarc_flight_run(&s, 0.0, &f, &e) == DRAGARC_OK);
+    CHECK(dragarc_flight_run(&s, 0.05, &g, &e) == DRAGARC_OK);
+    dragarc_report *r;
+    CHECK(dragarc_report_new(&r, s.name, "fly", &e) == DRAGARC_OK);
+    CHECK(dragarc_report_set_scratch_dir(r, dir, &e) == DRAGARC_OK);
+    dragarc_report_set_date(r, 86400);
+    CHECK(dragarc_report_fly(r, "ball-in-wind.json", &s, &f, &g, NULL, NULL, &e) == DRAGARC_OK);
+    char *html = written(r, "fly.html");
+    CHECK(html != NULL);
+    if (html) {
+        CHECK(strstr(html, "<h1>ball in a west wind</h1>") != NULL);
+        CHECK(strstr(html, "range (carry)</th><td>91.15 m</td>") != NULL); /* as `fly` prints it */
+        CHECK(strstr(html, "<th scope=\"col\" class=\"num\">height above ground (m)</th>") != NULL);
+        CHECK(count(html, "<figure>") == 1 && count(html, "<svg ") == 1);
+        CHECK(strstr(html, "U.S. Standard Atmosphere 1976") != NULL && strstr(html, "Hairer") != NULL);
+        CHECK(strstr(html, "on 1970-01-02 00:00 UTC") != NULL);
+        const char *c[DRAGARC_CAUTIONS_MAX];
+        size_t nc = dragarc_cautions_flight(&s, &f, c, DRAGARC_CAUTIONS_MAX);
+        CHECK(nc >= 3); /* limits, who decides, and the impact energy above 15 J */
+        for (size_t i = 0; i < nc; i++) {
+            char want[2048];
+            escaped(want, sizeof want, c[i]);
+            CHECK(strstr(html, want) != NULL);
+        }
+    }
+    CHECK(entries(dir) == 0); /* the figure's scratch files are gone */
+    free(html);
+    dragarc_report_free(r);
+    dragarc_flight_clear(&f);
+    dragarc_flight_clear(&g);
+    dragarc_scenario_clear(&s);
+}
+
+int main(void)
+{
+    dragarc_init();
+    snprintf(dir, sizeof dir, "/tmp/dragarc-test-report-XXXXXX");
+    if (!mkdtemp(dir)) {
+        perror("mkdtemp");
+        return 2;
+    }
+    RUN(every_text_is_escaped);
+    RUN(figures_get_ids_of_their_own_and_scale_to_the_page);
+    RUN(svg_that_reaches_outside_the_page_is_refused);
+    RUN(a_failed_figure_leaves_the_scratch_folder_clean);
+    RUN(a_failed_write_leaves_no_file_and_an_old_one_untouched);
+    RUN(the_fly_report_holds_the_inputs_results_figure_cautions_and_sources);
+    rmdir(dir);
+    return check_summary();
+}
