@@ -66,10 +66,12 @@ int dragarc_aim_plot(const char *path, const dragarc_scenario *s, const dragarc_
             else
                 snprintf(value, sizeof value, "%.4g %s", dragarc_display_value(uv, q->speed), uv->symbol);
             if (req->mode == DRAGARC_AIM_ELEVATION && ns == 2)
-                snprintf(branch, sizeof branch, "%s", k == 0 ? "direct" : "lofted");
+                snprintf(branch, sizeof branch, "%s, ", k == 0 ? "direct" : "lofted");
+            else if (ns > 1)
+                snprintf(branch, sizeof branch, "solution %zu, ", k + 1);
             else
-                snprintf(branch, sizeof branch, "solution %zu", k + 1);
-            snprintf(labels[k], sizeof labels[k], "%s, %s %s", branch,
+                branch[0] = '\0';
+            snprintf(labels[k], sizeof labels[k], "%s%s %s", branch,
                      req->mode == DRAGARC_AIM_ELEVATION ? "elevation" : "speed", value);
             series[k] = (dragarc_plot_series){.label = labels[k], .x = x, .y = y, .n = f.npoints};
             dragarc_plot_family_look(k, &series[k]);

@@ -70,10 +70,10 @@ int dragarc_sweep_plot(const char *path, const dragarc_sweep *t, dragarc_sweep_c
         if (n0 == 1)
             series[j].style = DRAGARC_PLOT_MARKERS; /* one point per curve: no line to draw */
         if (a1) {
-            char value[32];
-            dragarc_number_format(value, sizeof value, dragarc_sweep_axis_shown(d, a1, t->rows[j].values[1]));
+            /* four digits: a value converted to other units (2 m/s is 4.4738725841088 mph) stays readable */
             const char *u = dragarc_unit_abbrev(dragarc_sweep_axis_unit(d, a1));
-            snprintf(labels[j], sizeof labels[j], "%s = %s%s%s", a1->param->alias, value, u[0] ? " " : "", u);
+            snprintf(labels[j], sizeof labels[j], "%s = %.4g%s%s", a1->param->alias,
+                     dragarc_sweep_axis_shown(d, a1, t->rows[j].values[1]), u[0] ? " " : "", u);
             series[j].label = labels[j];
         }
     }
