@@ -67,6 +67,14 @@ typedef struct dragarc_aim_result {
 int dragarc_aim_solve(const dragarc_scenario *s, const dragarc_aim_request *req, dragarc_aim_result *out,
                       dragarc_error *err);
 
+/* Fly solution sol of request req again, as the solver flew it (its elevation, azimuth and speed, the flight ending
+ * at its first landing on the target plane, no bounce or roll), with samples every dt seconds (dt > 0, as
+ * dragarc_flight_run), into *f (caller frees with dragarc_flight_clear, also after failure). For pictures of the
+ * solutions. Errors: those of dragarc_flight_run. */
+struct dragarc_flight;
+int dragarc_aim_solution_fly(const dragarc_scenario *s, const dragarc_aim_request *req, const dragarc_aim_solution *sol,
+                             double dt, struct dragarc_flight *f, dragarc_error *err);
+
 /* One row of an aim table: the low and the high solution for one target range. */
 typedef struct dragarc_aim_table_row {
     double range;              /* m */

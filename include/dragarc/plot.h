@@ -16,9 +16,12 @@
 
 #include <stddef.h>
 
+#include "dragarc/aim.h"
 #include "dragarc/dragarc.h"
 #include "dragarc/flight.h"
+#include "dragarc/output.h"
 #include "dragarc/scenario.h"
+#include "dragarc/sweep.h"
 #include "dragarc/units.h"
 
 #ifdef __cplusplus
@@ -103,6 +106,11 @@ typedef struct dragarc_plot_raster {
     const char *label; /* the colour bar's label, with its unit */
 } dragarc_plot_raster;
 
+/* The look of curve k (0, 1, ...) of a family drawn together (solutions, a table's curves): a colour and a line
+ * style both different from curve k - 1's, and no (colour, style) pair repeated before curve 18; also a marker
+ * shape of its own among the first five, for a caller that draws markers. Sets s->colour, s->style, s->marker. */
+void dragarc_plot_family_look(size_t k, dragarc_plot_series *s);
+
 /* One panel: axes with labels, a title, series, a legend when more than one series is labelled. Borrows
  * everything. The axis limits enclose every series (and the raster) with a margin unless given. */
 typedef struct dragarc_plot_panel {
@@ -154,6 +162,35 @@ typedef struct dragarc_flight_plot_options {
  * unit (NULL: SI). Errors as dragarc_plot_write; DRAGARC_EINVAL when f holds fewer than two samples. */
 int dragarc_flight_plot(const char *path, const dragarc_scenario *s, const dragarc_flight *f,
                         const dragarc_display *d, const dragarc_flight_plot_options *o, dragarc_error *err);
+
+/* ---- the pictures of aims and tables (src/io/aim_plot.c, src/io/table_plot.c; docs/plots.md) ---- */
+
+/* The `aim --plot` figure: one side view (height above s's ground against downrange along s's launch azimuth) of
+ * every solution of r, each flown again sampled about 600 times (dragarc_aim_solution_fly), each its own series
+ * labelled with its branch and the solved quantity ("direct, elevation 12.34°"), with the launch point and the
+ * target (at req->range, on the target plane) marked; lengths in the length unit of display d (NULL: SI), the
+ * title naming the scenario (title; NULL: s's name). Errors as dragarc_plot_write and dragarc_flight_run;
+ * DRAGARC_EINVAL when r holds no solution. */
+int dragarc_aim_plot(const char *path, const dragarc_scenario *s, const dragarc_aim_request *req,
+                     const dragarc_aim_result *r, const dragarc_display *d, const char *title, dragarc_error *err);
+
+/* The most curves of a table plot (one per value of the second varied parameter): three rows of legend. */
+#define DRAGARC_PLOT_MAX_CURVES 9
+
+/* The `table --plot` figure of table t: column c of the rows that flew (failed rows leave gaps) against the first
+ * varied parameter, one curve per value of the second (legend "wind_speed = 2 m/s"), in the units of display d
+ * (NULL: SI, degrees for angles); title naming the scenario (title; NULL: t's). DRAGARC_EINVAL when t varies more
+ * than two parameters, the second has more than DRAGARC_PLOT_MAX_CURVES values, c is no column, or no row flew;
+ * otherwise errors as dragarc_plot_write. */
+int dragarc_sweep_plot(const char *path, const dragarc_sweep *t, dragarc_sweep_column c, const dragarc_display *d,
+                       const char *title, dragarc_error *err);
+
+/* The `table --ranges --plot` figure: the low and the high elevation of the n rows of an aim table against the
+ * target range, with the maximum range marked when the rows know it; ranges out of reach leave gaps. Units of
+ * display d (NULL: SI, degrees); `scenario` names it in the title. DRAGARC_EINVAL when no range was reached;
+ * otherwise errors as dragarc_plot_write. */
+int dragarc_aim_table_plot(const char *path, const char *scenario, const dragarc_aim_table_row *rows, size_t n,
+                           const dragarc_display *d, dragarc_error *err);
 
 #ifdef __cplusplus
 }

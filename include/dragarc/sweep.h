@@ -143,6 +143,13 @@ int dragarc_sweep_check(const dragarc_scenario *base, const dragarc_sweep_axis *
 int dragarc_sweep_run(const dragarc_scenario *base, const dragarc_sweep_axis *axes, size_t naxes,
                       dragarc_sweep *out, dragarc_error *err);
 
+/* dragarc_sweep_run with a progress callback: when progress is not NULL it is called with the rows done and the
+ * total, every 16 rows and once at the end (for a progress bar), from one thread at a time (any of the sweep's
+ * threads). It must not call into dragarc; the rows do not depend on it. */
+int dragarc_sweep_run_progress(const dragarc_scenario *base, const dragarc_sweep_axis *axes, size_t naxes,
+                               void (*progress)(size_t done, size_t total, void *user), void *user,
+                               dragarc_sweep *out, dragarc_error *err);
+
 /* Free the rows and their errors and zero the record. Safe on a zeroed record and NULL. */
 void dragarc_sweep_clear(dragarc_sweep *t);
 

@@ -114,6 +114,13 @@ int cli_write_output(const char *option, const char *path, int (*w)(FILE *fp, co
 int cli_scenario_args(const char *cmd, const char *help, int argc, char **argv, const char *const *file_opts,
                       const char **files, int *json, const char **path);
 
+/* If argv[*i] is --plot, take its value (advancing *i) into *path, checked to end in .svg, .png or .pdf, and return
+ * 0, or the exit status of the usage error printed; -1 when argv[*i] is not --plot. */
+int cli_plot_option(const char *cmd, int argc, char **argv, int *i, const char **path);
+
+/* Report a failed plot (err from the library's plot functions) against --plot and return the exit status. */
+int cli_plot_failed(dragarc_error *err);
+
 int cmd_fly(int argc, char **argv);
 int cmd_report(int argc, char **argv);
 int cmd_aim(int argc, char **argv);

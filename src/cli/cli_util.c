@@ -347,6 +347,26 @@ int cli_fly_sampled(const dragarc_scenario *s, const dragarc_flight *f, const cl
     return dragarc_flight_run(s, dt, out, err);
 }
 
+int cli_plot_option(const char *cmd, int argc, char **argv, int *i, const char **path)
+{
+    if (strcmp(argv[*i], "--plot") != 0)
+        return -1;
+    if (++*i >= argc || !*argv[*i])
+        return cli_usage_error(cmd, "--plot needs a file name ending in .svg, .png or .pdf");
+    dragarc_plot_format fmt;
+    dragarc_error err;
+    if (dragarc_plot_format_from_path(argv[*i], &fmt, &err) != DRAGARC_OK)
+        return cli_usage_error(cmd, "--plot: %s", err.message);
+    *path = argv[*i];
+    return 0;
+}
+
+int cli_plot_failed(dragarc_error *err)
+{
+    err->field[0] = '\0'; /* the option, not the scenario, is at fault */
+    return cli_report("--plot", err);
+}
+
 /* The --plot file of flight f. Its samples are f's when --trajectory asked for them; otherwise the flight is flown
  * again, sampled every --dt or about 600 times, so that the numbers printed are those of a run without --plot. */
 static int fly_plot(const dragarc_scenario *s, const dragarc_flight *f, const cli_fly_options *o)

@@ -1,5 +1,5 @@
 /* cmd_aim.c: `dragarc aim SCENARIO --range M [--height M] [--crossrange M] [--solve elevation|speed]
- * [--keep-azimuth] [--json]`.
+ * [--keep-azimuth] [--json] [--plot FILE.svg|png|pdf]`.
  * SPDX-License-Identifier: GPL-3.0-or-later
  */
 #include <math.h>
@@ -11,12 +11,14 @@
 #include "dragarc/aim.h"
 #include "dragarc/cautions.h"
 #include "dragarc/output.h"
+#include "dragarc/plot.h"
 
 #define DEG (180.0 / 3.14159265358979323846)
 
 static const char HELP[] =
     "usage: dragarc aim SCENARIO --range METRES [--height METRES] [--crossrange METRES]\n"
-    "                   [--solve elevation|speed] [--keep-azimuth] [--json] [--units si|us] [--unit KEY=UNIT]\n"
+    "                   [--solve elevation|speed] [--keep-azimuth] [--json] [--plot FILE.svg|png|pdf]\n"
+    "                   [--units si|us] [--unit KEY=UNIT]\n"
     "\n"
     "Find every launch that lands on a target: by default keep launch.speed and find the elevations\n"
     "(the low, direct one and the high, lofted one), or with --solve speed keep launch.elevation and find\n"
@@ -31,13 +33,15 @@ static const char HELP[] =
     "  --solve WHAT          elevation (default) or speed\n"
     "  --keep-azimuth        do not turn the azimuth (the miss is then measured along the line)\n"
     "  --json                print one JSON object instead of the summary\n"
+    "  --plot FILE           draw every solution's flight, the launch point and the target, side on, into\n"
+    "                        FILE, an .svg, .png or .pdf file (docs/plots.md); none when out of reach\n"
     "  --units si|us         the units of every output: SI (default) or US customary (ft, mph, lb, ft.lbf)\n"
     "  --unit KEY=UNIT       a quantity (length=yd) or a field (range=yd) in a unit of its own; repeatable\n"
     "  -h, --help            this help\n"
     "\n"
     "Lengths may carry a unit, read by UDUNITS-2: --range \"150 yd\" --height \"3 ft\" (docs/units.md).\n"
-    "exit status: 0 solved, 1 the target is out of reach (the maximum range is printed), 2 bad usage or\n"
-    "input, 3 the computation failed.\n";
+    "exit status: 0 solved, 1 the target is out of reach (the maximum range is printed; no plot is drawn),\n"
+    "2 bad usage or input (also a --plot file that cannot be written), 3 the computation failed.\n";
 
 static const char *branch_name(size_t i, size_t n, dragarc_aim_mode mode)
 {
@@ -53,6 +57,7 @@ int cmd_aim(int argc, char **argv)
     cli_common c = {0};
     int st;
     int json = 0, have_range = 0;
+    const char *plot = NULL;
     for (int i = 1; i < argc; i++) {
         const char *a = argv[i];
         double *target = NULL;
@@ -61,6 +66,9 @@ int cmd_aim(int argc, char **argv)
             return EXIT_OK;
         } else if (strcmp(a, "--json") == 0) {
             json = 1;
+        } else if ((st = cli_plot_option("aim", argc, argv, &i, &plot)) >= 0) {
+            if (st != 0)
+                return st;
         } else if (strcmp(a, "--keep-azimuth") == 0) {
             req.solve_azimuth = 0;
         } else if (strcmp(a, "--range") == 0) {
@@ -116,6 +124,11 @@ int cmd_aim(int argc, char **argv)
         }
         dragarc_scenario_clear(&s);
         return rc;
+    }
+    /* The picture first: when it cannot be drawn nothing is printed, as with a failed solve. */
+    if (plot && (rc = dragarc_aim_plot(plot, &s, &req, &r, &d, NULL, &err)) != DRAGARC_OK) {
+        dragarc_scenario_clear(&s);
+        return cli_plot_failed(&err);
     }
     if (json) {
         char *text = dragarc_aim_json(&s, &req, &r, &d);

@@ -6,7 +6,6 @@
 #include <string.h>
 
 #include "cli/cli.h"
-#include "dragarc/plot.h"
 
 static const char HELP[] =
     "usage: dragarc fly SCENARIO [--json] [--trajectory FILE.csv] [--dt SECONDS] [--plot FILE.svg|png|pdf]\n"
@@ -54,14 +53,9 @@ int cmd_fly(int argc, char **argv)
             o.trajectory = argv[i];
             if (strcmp(o.trajectory, "-") == 0)
                 return cli_usage_error("fly", "--trajectory needs a file name: standard output carries the summary");
-        } else if (strcmp(a, "--plot") == 0) {
-            if (++i >= argc || !*argv[i])
-                return cli_usage_error("fly", "--plot needs a file name ending in .svg, .png or .pdf");
-            o.plot = argv[i];
-            dragarc_plot_format fmt;
-            dragarc_error err;
-            if (dragarc_plot_format_from_path(o.plot, &fmt, &err) != DRAGARC_OK)
-                return cli_usage_error("fly", "--plot: %s", err.message);
+        } else if ((st = cli_plot_option("fly", argc, argv, &i, &o.plot)) >= 0) {
+            if (st != 0)
+                return st;
         } else if (strcmp(a, "--plot-scale") == 0) {
             if (++i >= argc || (strcmp(argv[i], "equal") != 0 && strcmp(argv[i], "free") != 0))
                 return cli_usage_error("fly", "--plot-scale needs 'equal' or 'free'");

@@ -1,5 +1,6 @@
 /* cmd_table.c: `dragarc table SCENARIO --vary NAME=START:STOP:STEP [--vary ...] [--csv | --json |
- * --markdown] [-o FILE]`: one flight per combination of the varied values, as a table.
+ * --markdown] [-o FILE] [--plot FILE [--plot-column NAME]] [--quiet]`: one flight per combination of the varied
+ * values, as a table (or an aim table with --ranges).
  * SPDX-License-Identifier: GPL-3.0-or-later
  */
 #include <math.h>
@@ -11,15 +12,16 @@
 #include "dragarc/aim.h"
 #include "dragarc/cautions.h"
 #include "dragarc/output.h"
+#include "dragarc/plot.h"
 #include "dragarc/sweep.h"
 
 #define WIDTH 100 /* columns of the human table's wrapped text */
 
 static const char HELP_HEAD[] =
     "usage: dragarc table SCENARIO --vary NAME=START:STOP:STEP [--vary ...] [--csv | --json | --markdown]\n"
-    "                     [-o FILE]\n"
+    "                     [-o FILE] [--plot FILE.svg|png|pdf [--plot-column NAME]] [--quiet]\n"
     "       dragarc table SCENARIO --ranges START:STOP:STEP [--height METRES] [--csv | --json | --markdown]\n"
-    "                     [-o FILE]\n"
+    "                     [-o FILE] [--plot FILE.svg|png|pdf]\n"
     "\n"
     "Fly the scenario file SCENARIO once for every combination of the varied parameters' values and print\n"
     "one row per flight: the values, range, crossrange, time of flight, apex height, impact speed, angle\n"
@@ -34,6 +36,12 @@ static const char HELP_HEAD[] =
     "  --json               one JSON object: varied, rows, units and cautions\n"
     "  --markdown           a Markdown table with the cautions\n"
     "  -o, --output FILE    write to FILE, whole or not at all, instead of standard output\n"
+    "  --plot FILE          also draw the range against the first --vary parameter, one curve per value of\n"
+    "                       the second (at most 9; no third), into FILE, an .svg, .png or .pdf file; for an\n"
+    "                       aim table, the low and high elevations against the range (docs/plots.md)\n"
+    "  --plot-column NAME   draw this column instead of the range: downrange, crossrange, time_of_flight,\n"
+    "                       apex_height, impact_speed, impact_angle, impact_energy or terminal_speed\n"
+    "  --quiet              no progress bar (it shows on stderr, only when that is a terminal)\n"
     "  --ranges START:STOP:STEP  an aim table instead: for each target range (m, or with a unit) along\n"
     "                       the launch azimuth, the low and high elevations at the scenario's speed that\n"
     "                       land on it, with the azimuth turned for the wind (see 'dragarc aim'); at most\n"
@@ -229,10 +237,38 @@ static int parse_vary(const char *spec, dragarc_sweep_axis *axis)
     return cli_usage_error("table", "--vary %s: %s%s%s", spec, err.field, err.field[0] ? ": " : "", err.message);
 }
 
+/* What --plot draws of a table of flights: the column named (default: the range), against at most two varied
+ * parameters with at most DRAGARC_PLOT_MAX_CURVES values on the second. 0, or the exit status of the usage error. */
+static int plot_choice(const char *name, const dragarc_sweep_axis *axes, size_t naxes, dragarc_sweep_column *column)
+{
+    if (naxes > 2)
+        return cli_usage_error("table", "--plot draws one or two --vary parameters (the first along the axis, one "
+                                        "curve per value of the second), not %zu",
+                               naxes);
+    if (naxes == 2 && axes[1].count > DRAGARC_PLOT_MAX_CURVES)
+        return cli_usage_error("table", "--plot draws one curve per value of the second --vary, at most %d: %s has %zu "
+                                        "(swap the two --vary, or take a larger step)",
+                               DRAGARC_PLOT_MAX_CURVES, axes[1].param->alias, axes[1].count);
+    if (!name)
+        return 0;
+    for (int c = 0; c < DRAGARC_SWEEP_NCOLUMNS; c++)
+        if (strcmp(name, dragarc_sweep_column_about((dragarc_sweep_column)c)->key) == 0) {
+            *column = (dragarc_sweep_column)c;
+            return 0;
+        }
+    char known[256] = "";
+    for (int c = 0; c < DRAGARC_SWEEP_NCOLUMNS; c++) {
+        size_t len = strlen(known);
+        snprintf(known + len, sizeof known - len, "%s%s", c == 0 ? "" : c + 1 < DRAGARC_SWEEP_NCOLUMNS ? ", " : " or ",
+                 dragarc_sweep_column_about((dragarc_sweep_column)c)->key);
+    }
+    return cli_usage_error("table", "--plot-column: no column '%s'; choose %s", name, known);
+}
+
 #define MAX_RANGES 10000
 
 static int aim_table(const char *file, const char *spec, double height, table_format format, const char *output,
-                     const dragarc_display *d)
+                     const char *plot, const dragarc_display *d)
 {
     static double ranges[MAX_RANGES];
     char why[256];
@@ -262,6 +298,12 @@ static int aim_table(const char *file, const char *spec, double height, table_fo
         free(rows);
         dragarc_scenario_clear(&s);
         return cli_report(file, &err);
+    }
+    /* The picture first: when it cannot be drawn, the table is not written either. */
+    if (plot && (rc = dragarc_aim_table_plot(plot, s.name, rows, n, d, &err)) != DRAGARC_OK) {
+        free(rows);
+        dragarc_scenario_clear(&s);
+        return cli_plot_failed(&err);
     }
     static const dragarc_table_format FORMS[] = {DRAGARC_TABLE_TEXT, DRAGARC_TABLE_CSV, DRAGARC_TABLE_JSON,
                                                  DRAGARC_TABLE_MARKDOWN};
@@ -303,7 +345,8 @@ static int aim_table(const char *file, const char *spec, double height, table_fo
 
 int cmd_table(int argc, char **argv)
 {
-    const char *output = NULL, *format_option = NULL, *ranges = NULL;
+    const char *output = NULL, *format_option = NULL, *ranges = NULL, *plot = NULL, *plot_column = NULL;
+    int quiet = 0;
     cli_common c = {0};
     int st;
     double height = NAN;
@@ -332,6 +375,15 @@ int cmd_table(int argc, char **argv)
                 return cli_usage_error("table", "%s and %s: choose one output format", format_option, a);
             format = f;
             format_option = a;
+        } else if ((st = cli_plot_option("table", argc, argv, &i, &plot)) >= 0) {
+            if (st != 0)
+                return st;
+        } else if (strcmp(a, "--plot-column") == 0) {
+            if (++i >= argc || !*argv[i])
+                return cli_usage_error("table", "--plot-column needs a column name (range, impact_speed, ...)");
+            plot_column = argv[i];
+        } else if (strcmp(a, "--quiet") == 0) {
+            quiet = 1;
         } else if (strcmp(a, "--ranges") == 0) {
             if (++i >= argc)
                 return cli_usage_error("table", "--ranges needs START:STOP:STEP");
@@ -358,26 +410,43 @@ int cmd_table(int argc, char **argv)
         return cli_usage_error("table", "--ranges makes an aim table and --vary a table of flights: choose one");
     if (!isnan(height) && !ranges)
         return cli_usage_error("table", "--height sets the aim table's target plane; give --ranges too");
+    if (plot_column && !plot)
+        return cli_usage_error("table", "--plot-column chooses what --plot draws; give --plot FILE too");
+    if (plot_column && ranges)
+        return cli_usage_error("table", "--plot-column is for a table of flights: an aim table's plot shows the elevations");
+    if (plot && output && strcmp(plot, output) == 0)
+        return cli_usage_error("table", "--plot and %s name the same file '%s'", "-o", plot);
     dragarc_display d;
     if ((st = cli_display_options("table", c.system, c.specs, c.nspecs, &d)) != 0)
         return st;
     const dragarc_display *dp = c.system || c.nspecs ? &d : NULL; /* NULL: SI, as the library names it */
     if (ranges)
-        return aim_table(file, ranges, height, format, output, dp);
+        return aim_table(file, ranges, height, format, output, plot, dp);
     if (naxes == 0)
         return cli_usage_error("table", "needs at least one --vary NAME=START:STOP:STEP");
     if (dragarc_sweep_axes_check(axes, naxes, NULL, &err) != DRAGARC_OK)
         return cli_usage_error("table", "--vary: %s%s%s", err.field, err.field[0] ? ": " : "", err.message);
+    dragarc_sweep_column column = DRAGARC_SWEEP_RANGE;
+    if (plot && (st = plot_choice(plot_column, axes, naxes, &column)) != 0)
+        return st;
 
     dragarc_scenario s;
     if (dragarc_scenario_read(file, cli_profile_path(), &s, &err) != DRAGARC_OK)
         return cli_report(file, &err);
     dragarc_sweep t;
-    int rc = dragarc_sweep_run(&s, axes, naxes, &t, &err);
+    cli_progress bar;
+    cli_progress_begin(&bar, "rows", quiet);
+    int rc = dragarc_sweep_run_progress(&s, axes, naxes, bar.enabled ? cli_progress_tick : NULL, &bar, &t, &err);
+    cli_progress_end(&bar);
     dragarc_scenario_clear(&s);
     if (rc != DRAGARC_OK) {
         dragarc_sweep_clear(&t);
         return cli_report(file, &err);
+    }
+    /* The picture first: when it cannot be drawn, the table is not written either. */
+    if (plot && (rc = dragarc_sweep_plot(plot, &t, column, dp, NULL, &err)) != DRAGARC_OK) {
+        dragarc_sweep_clear(&t);
+        return cli_plot_failed(&err);
     }
 
     /* The table is complete before anything is written, so a failure leaves no file behind. */

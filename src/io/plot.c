@@ -116,6 +116,22 @@ const unsigned char *dragarc_plot_palette(dragarc_plot_colour c)
     return (int)c >= 0 && c < DRAGARC_PLOT_NCOLOURS ? OKABE_ITO[c] : NULL;
 }
 
+/* A family's colours: Okabe and Ito's, yellow left out for its poor contrast on white. */
+static const dragarc_plot_colour FAMILY[] = {DRAGARC_PLOT_BLUE,         DRAGARC_PLOT_VERMILLION,
+                                             DRAGARC_PLOT_BLUISH_GREEN, DRAGARC_PLOT_REDDISH_PURPLE,
+                                             DRAGARC_PLOT_ORANGE,       DRAGARC_PLOT_SKY_BLUE};
+enum { NFAMILY = sizeof FAMILY / sizeof FAMILY[0] };
+
+void dragarc_plot_family_look(size_t k, dragarc_plot_series *s)
+{
+    static const dragarc_plot_style lines[3] = {DRAGARC_PLOT_SOLID, DRAGARC_PLOT_DASHED, DRAGARC_PLOT_DOTTED};
+    /* the line style steps once more after each round of colours, so that (colour, style) repeats only after
+     * 3 rounds */
+    s->colour = FAMILY[k % NFAMILY];
+    s->style = lines[(k + k / NFAMILY) % 3];
+    s->marker = (dragarc_plot_marker)(k % DRAGARC_PLOT_NMARKERS);
+}
+
 static const char *const EXTENSION[] = {"svg", "png", "pdf"};
 static const char *const DRIVER[] = {"svgcairo", "pngcairo", "pdfcairo"};
 
@@ -503,11 +519,15 @@ static void draw_colour_bar(const dragarc_plot_raster *r)
  * character scale (that of three panels) a text scale of 0.9 matches the axis labels, and it is kept in
  * proportion for other numbers of panels. */
 #define LEGEND_CHR (0.55 * 1.7320508075688772)
+/* Points between the legend and the viewport: a fiftieth of the viewport of one of three panels on the 900-point
+ * page. */
+#define LEGEND_GAP_PT (0.02 * (VP_YMAX - VP_YMIN) * PAGE_H_PT / 3.0)
 
-/* Returns the rows the legend takes (0: none). */
-static int draw_legend(const dragarc_plot_panel *p, PLFLT chr)
+/* Returns the rows the legend takes (0: none), and in *top how far its top lies above the viewport, mm. */
+static int draw_legend(const dragarc_plot_panel *p, PLFLT chr, double *top)
 {
     enum { MAXL = 16 };
+    *top = 0.0;
     PLINT opt[MAXL], text_colours[MAXL], line_colours[MAXL], line_styles[MAXL], symbol_colours[MAXL],
         symbol_numbers[MAXL], box_colours[MAXL] = {0}, box_patterns[MAXL] = {0};
     PLFLT line_widths[MAXL], symbol_scales[MAXL], box_scales[MAXL] = {0}, box_widths[MAXL] = {0};
@@ -535,12 +555,17 @@ static int draw_legend(const dragarc_plot_panel *p, PLFLT chr)
     if (n < 2)
         return 0; /* one series speaks for itself through the axis labels */
     PLINT rows = (n + LEGEND_COLUMNS - 1) / LEGEND_COLUMNS;
-    PLFLT w, h;
+    PLFLT w, h, nx0, nx1, ny0, ny1;
+    /* the gap under the legend is a share of the viewport's height: kept at LEGEND_GAP_PT on the page, so that the
+     * title above (placed in character heights) clears it on a page of any height and number of panels */
+    plgvpd(&nx0, &nx1, &ny0, &ny1);
+    double gap = ny1 > ny0 ? LEGEND_GAP_PT / ((ny1 - ny0) * g_plot.page_h) : 0.02;
     pllegend(&w, &h, PL_LEGEND_BACKGROUND | PL_LEGEND_BOUNDING_BOX,
-             PL_POSITION_TOP | PL_POSITION_OUTSIDE | PL_POSITION_VIEWPORT, 0.0, 0.02, 0.06, 0, PAL0, 1,
+             PL_POSITION_TOP | PL_POSITION_OUTSIDE | PL_POSITION_VIEWPORT, 0.0, gap, 0.06, 0, PAL0, 1,
              rows, n < LEGEND_COLUMNS ? n : LEGEND_COLUMNS, n, opt,
              0.8, 0.9 * chr / LEGEND_CHR, 1.8, 0.0, text_colours, text, box_colours, box_patterns, box_scales, box_widths,
              line_colours, line_styles, line_widths, symbol_colours, symbol_scales, symbol_numbers, symbols);
+    *top = (gap + h) * (ny1 - ny0) * g_plot.page_h * 25.4 / 72.0;
     return rows;
 }
 
@@ -589,9 +614,18 @@ static void draw_panel(const dragarc_plot_panel *p, PLFLT *x, PLFLT *y, PLFLT ch
     if (p->north_arrow)
         draw_north_arrow(&fr);
     plcol0(PAL0 + DRAGARC_PLOT_BLACK);
-    int rows = draw_legend(p, chr);
+    double legend_top;
+    int rows = draw_legend(p, chr, &legend_top);
+    /* the title's baseline: 2 character heights above the viewport, or 1.1 above the legend's top (room for
+     * descenders), whichever is higher (the legend's height in character heights changes with the page's and the
+     * panels' sizes) */
+    PLFLT def_mm, chr_mm;
+    plgchr(&def_mm, &chr_mm);
     plschr(0.0, 1.15 * chr);
-    plmtex("t", (2.0 + 1.6 * rows) / 1.15, 0.5, 0.5, p->title ? p->title : "");
+    double title_at = 2.0 + 1.6 * rows;
+    if (rows > 0 && chr_mm > 0.0)
+        title_at = fmax(title_at, legend_top / chr_mm + 1.1);
+    plmtex("t", title_at / 1.15, 0.5, 0.5, p->title ? p->title : "");
     plschr(0.0, chr);
     if (p->raster)
         draw_colour_bar(p->raster);

@@ -482,6 +482,19 @@ hard:
     return c.err.code ? c.err.code : DRAGARC_ESOLVER;
 }
 
+int dragarc_aim_solution_fly(const dragarc_scenario *s, const dragarc_aim_request *req, const dragarc_aim_solution *sol,
+                             double dt, dragarc_flight *f, dragarc_error *err)
+{
+    dragarc_scenario t = *s; /* shallow: only scalars change, the tables stay shared and read-only */
+    if (!isnan(req->height))
+        t.ground_elevation = req->height;
+    t.ground_surface_given = 0;
+    t.launch.elevation = sol->elevation;
+    t.launch.azimuth = sol->azimuth;
+    t.launch.speed = sol->speed;
+    return dragarc_flight_run(&t, dt, f, err);
+}
+
 int dragarc_aim_table(const dragarc_scenario *s, const dragarc_aim_request *req, const double *ranges, size_t n,
                       dragarc_aim_table_row *rows, dragarc_error *err)
 {

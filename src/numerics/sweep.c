@@ -448,6 +448,9 @@ int dragarc_sweep_check(const dragarc_scenario *base, const dragarc_sweep_axis *
     return DRAGARC_OK;
 }
 
+/* Rows between two calls of a progress callback. */
+#define PROGRESS_EVERY 16
+
 static void fail_row(dragarc_sweep_row *row, const dragarc_error *e)
 {
     row->status = e->code < 0 ? e->code : DRAGARC_ESOLVER;
@@ -497,6 +500,13 @@ static void fly_row(const dragarc_scenario *base, const dragarc_sweep_axis *axes
 int dragarc_sweep_run(const dragarc_scenario *base, const dragarc_sweep_axis *axes, size_t naxes, dragarc_sweep *out,
                       dragarc_error *err)
 {
+    return dragarc_sweep_run_progress(base, axes, naxes, NULL, NULL, out, err);
+}
+
+int dragarc_sweep_run_progress(const dragarc_scenario *base, const dragarc_sweep_axis *axes, size_t naxes,
+                               void (*progress)(size_t done, size_t total, void *user), void *user,
+                               dragarc_sweep *out, dragarc_error *err)
+{
     memset(out, 0, sizeof *out);
     size_t n = 0;
     int rc = dragarc_sweep_check(base, axes, naxes, &n, err);
@@ -511,9 +521,23 @@ int dragarc_sweep_run(const dragarc_scenario *base, const dragarc_sweep_axis *ax
     out->nrows = n;
     const dragarc_sweep_axis *ax = out->axes;
     dragarc_sweep_row *rows = out->rows;
-#pragma omp parallel for schedule(dynamic) default(none) shared(base, ax, naxes, n, rows)
-    for (size_t r = 0; r < n; r++)
+    /* The count of rows done is shared; only the thread that brings it to a multiple of PROGRESS_EVERY (or to
+     * n) calls progress, and that call sits in a critical section, so the callback runs on one thread at a time
+     * (the caller's, when there is one thread). Rows never read it: the results do not depend on it. */
+    size_t done = 0;
+#pragma omp parallel for schedule(dynamic) default(none) shared(base, ax, naxes, n, rows, done, progress, user)
+    for (size_t r = 0; r < n; r++) {
         fly_row(base, ax, naxes, r, &rows[r]);
+        if (progress) {
+            size_t d;
+#pragma omp atomic capture
+            d = ++done;
+            if (d % PROGRESS_EVERY == 0 || d == n) {
+#pragma omp critical(dragarc_sweep_progress)
+                progress(d, n, user);
+            }
+        }
+    }
     for (size_t r = 0; r < n; r++) {
         if (rows[r].status != DRAGARC_OK)
             out->nfailed++;

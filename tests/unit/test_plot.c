@@ -18,8 +18,8 @@
 #include "check.h"
 #include "dragarc/flight.h"
 #include "dragarc/plot.h"
+#include "helpers.h"
 
-#define PI 3.14159265358979323846
 
 static char dir[64]; /* a fresh folder for this run's files */
 
@@ -274,6 +274,136 @@ TEST(a_map_with_a_colour_map_rings_and_a_filled_area)
     CHECK(entries() == 0);
 }
 
+TEST(a_family_of_curves_never_repeats_a_look_within_eighteen)
+{
+    dragarc_plot_series a, b;
+    for (size_t k = 0; k < 18; k++) {
+        dragarc_plot_family_look(k, &a);
+        CHECK(a.style != DRAGARC_PLOT_MARKERS && a.style != DRAGARC_PLOT_FILLED);
+        CHECK(a.colour != DRAGARC_PLOT_BLACK && a.colour != DRAGARC_PLOT_YELLOW);
+        for (size_t j = 0; j < k; j++) {
+            dragarc_plot_family_look(j, &b);
+            CHECK(a.colour != b.colour || a.style != b.style);
+            if (j + 1 == k)
+                CHECK(a.colour != b.colour && a.style != b.style); /* neighbours differ in both */
+        }
+    }
+}
+
+/* A drag-free ball from the ground, 20 m/s, g = 9.81: the target at R = 30 m is reached at the two elevations of
+ * sin(2e) = g R / v^2 (e = 23.71 and 66.29 degrees; the closed form of the vacuum range, e.g. Halliday, Resnick and
+ * Walker, "Fundamentals of Physics", projectile motion; recalled). The picture's flights are flown again from the
+ * solutions: they must land on the target as the solver's did (its miss is below 1 mm, the integration's
+ * tolerance 1e-10 adds nothing near that), and climb to the closed-form apex v^2 sin^2(e) / (2 g) (1e-6 m: the
+ * solver's elevation is good to far better than the 1 mm miss allows, 1e-6 rad moves the apex ~1e-5 m; 1e-4 m). */
+TEST(an_aim_plot_draws_each_solution_flown_onto_the_target)
+{
+    dragarc_scenario s;
+    make_scenario(&s, 0.0, 0.1, 0.05, 0.0, 20.0, 45.0, 9.81, 1e-10);
+    dragarc_aim_request req;
+    dragarc_aim_request_default(&req);
+    req.range = 30.0;
+    dragarc_aim_result r;
+    dragarc_error e;
+    CHECK(dragarc_aim_solve(&s, &req, &r, &e) == DRAGARC_OK && r.nsolutions == 2);
+    double e1 = 0.5 * asin(9.81 * 30.0 / 400.0);
+    for (size_t k = 0; k < r.nsolutions && r.nsolutions == 2; k++) {
+        double want = k == 0 ? e1 : 0.5 * PI - e1;
+        CHECK(fabs(r.solutions[k].elevation - want) < 1e-5);
+        dragarc_flight f;
+        CHECK(dragarc_aim_solution_fly(&s, &req, &r.solutions[k], r.solutions[k].time_of_flight / 100.0, &f, &e) ==
+              DRAGARC_OK);
+        CHECK(f.npoints >= 100);
+        CHECK(fabs(f.impact[1] - 30.0) < 1e-3 && fabs(f.impact[0]) < 1e-3 && fabs(f.impact[2]) < 1e-9);
+        double apex = 400.0 * pow(sin(r.solutions[k].elevation), 2) / (2.0 * 9.81);
+        CHECK(fabs(f.apex_height - apex) < 1e-4);
+        dragarc_flight_clear(&f);
+    }
+    /* a raised target plane: the flights end on it, not on the ground */
+    dragarc_aim_request up = req;
+    up.height = 2.0;
+    dragarc_aim_result ru;
+    CHECK(dragarc_aim_solve(&s, &up, &ru, &e) == DRAGARC_OK && ru.nsolutions == 2);
+    dragarc_flight f;
+    CHECK(dragarc_aim_solution_fly(&s, &up, &ru.solutions[1], 0.01, &f, &e) == DRAGARC_OK);
+    CHECK(fabs(f.impact[2] - 2.0) < 1e-9 && fabs(f.impact[1] - 30.0) < 1e-3);
+    dragarc_flight_clear(&f);
+
+    char path[128];
+    snprintf(path, sizeof path, "%s/aim.svg", dir);
+    CHECK(dragarc_aim_plot(path, &s, &req, &r, NULL, "vacuum lob", &e) == DRAGARC_OK);
+    CHECK(entries() == 1);
+    remove(path);
+    dragarc_aim_result none = r;
+    none.nsolutions = 0;
+    CHECK_ERROR(dragarc_aim_plot(path, &s, &req, &none, NULL, NULL, &e), DRAGARC_EINVAL, e, "", "at least one solution");
+    CHECK(entries() == 0);
+    dragarc_scenario_clear(&s);
+}
+
+TEST(a_table_plot_draws_two_parameters_and_refuses_what_it_cannot_show)
+{
+    dragarc_scenario s;
+    make_scenario(&s, 0.0, 0.1, 0.05, 0.0, 20.0, 45.0, 9.81, 1e-8);
+    dragarc_sweep_axis ax[3];
+    dragarc_error e;
+    CHECK(dragarc_sweep_axis_init(&ax[0], "speed", 10.0, 30.0, 5.0, &e) == DRAGARC_OK);
+    CHECK(dragarc_sweep_axis_init(&ax[1], "elevation", 15.0, 45.0, 15.0, &e) == DRAGARC_OK);
+    CHECK(dragarc_sweep_axis_init(&ax[2], "height", 0.0, 1.0, 1.0, &e) == DRAGARC_OK);
+    dragarc_sweep t, t3, wide;
+    CHECK(dragarc_sweep_run(&s, ax, 2, &t, &e) == DRAGARC_OK && t.nrows == 15);
+    char path[128];
+    snprintf(path, sizeof path, "%s/table.png", dir);
+    CHECK(dragarc_sweep_plot(path, &t, DRAGARC_SWEEP_RANGE, NULL, NULL, &e) == DRAGARC_OK);
+    CHECK(dragarc_sweep_plot(path, &t, DRAGARC_SWEEP_IMPACT_ANGLE, NULL, "angles", &e) == DRAGARC_OK);
+    CHECK(entries() == 1);
+    remove(path);
+    /* a third parameter, too many curves, no such column: refused, no file */
+    CHECK(dragarc_sweep_run(&s, ax, 3, &t3, &e) == DRAGARC_OK);
+    CHECK_ERROR(dragarc_sweep_plot(path, &t3, DRAGARC_SWEEP_RANGE, NULL, NULL, &e), DRAGARC_EINVAL, e, "", "not 3");
+    dragarc_sweep_axis many[2] = {ax[0]};
+    CHECK(dragarc_sweep_axis_init(&many[1], "elevation", 10.0, 55.0, 5.0, &e) == DRAGARC_OK && many[1].count == 10);
+    CHECK(dragarc_sweep_run(&s, many, 2, &wide, &e) == DRAGARC_OK);
+    CHECK_ERROR(dragarc_sweep_plot(path, &wide, DRAGARC_SWEEP_RANGE, NULL, NULL, &e), DRAGARC_EINVAL, e, "",
+                "at most 9; elevation has 10");
+    CHECK_ERROR(dragarc_sweep_plot(path, &t, DRAGARC_SWEEP_NCOLUMNS, NULL, NULL, &e), DRAGARC_EINVAL, e, "",
+                "no table column");
+    /* no row flew: nothing to draw */
+    for (size_t i = 0; i < t.nrows; i++) {
+        t.rows[i].status = DRAGARC_EINVAL;
+        t.rows[i].range = NAN;
+    }
+    CHECK_ERROR(dragarc_sweep_plot(path, &t, DRAGARC_SWEEP_RANGE, NULL, NULL, &e), DRAGARC_EINVAL, e, "",
+                "no row of the table flew");
+    CHECK(entries() == 0);
+    dragarc_sweep_clear(&t);
+    dragarc_sweep_clear(&t3);
+    dragarc_sweep_clear(&wide);
+    dragarc_scenario_clear(&s);
+}
+
+TEST(an_aim_table_plot_needs_a_range_reached)
+{
+    dragarc_scenario s;
+    make_scenario(&s, 0.0, 0.1, 0.05, 0.0, 20.0, 45.0, 9.81, 1e-8);
+    dragarc_aim_request req;
+    dragarc_aim_request_default(&req);
+    const double ranges[4] = {10.0, 20.0, 40.0, 50.0}; /* the vacuum maximum is v^2 / g = 40.77 m */
+    dragarc_aim_table_row rows[4];
+    dragarc_error e;
+    CHECK(dragarc_aim_table(&s, &req, ranges, 4, rows, &e) == DRAGARC_OK);
+    CHECK(rows[0].status == DRAGARC_OK && rows[3].status == DRAGARC_ENOSOLUTION);
+    char path[128];
+    snprintf(path, sizeof path, "%s/aim-table.pdf", dir);
+    CHECK(dragarc_aim_table_plot(path, s.name, rows, 4, NULL, &e) == DRAGARC_OK);
+    CHECK(entries() == 1);
+    remove(path);
+    CHECK_ERROR(dragarc_aim_table_plot(path, s.name, rows + 3, 1, NULL, &e), DRAGARC_EINVAL, e, "",
+                "no range of the aim table was reached");
+    CHECK(entries() == 0);
+    dragarc_scenario_clear(&s);
+}
+
 int main(void)
 {
     dragarc_init();
@@ -290,6 +420,10 @@ int main(void)
     RUN(a_file_in_place_is_replaced_only_when_the_new_one_is_complete);
     RUN(a_flight_plot_needs_samples);
     RUN(a_map_with_a_colour_map_rings_and_a_filled_area);
+    RUN(a_family_of_curves_never_repeats_a_look_within_eighteen);
+    RUN(an_aim_plot_draws_each_solution_flown_onto_the_target);
+    RUN(a_table_plot_draws_two_parameters_and_refuses_what_it_cannot_show);
+    RUN(an_aim_table_plot_needs_a_range_reached);
     rmdir(dir);
     return check_summary();
 }

@@ -162,6 +162,61 @@ TEST(the_thread_count_changes_no_digit)
     dragarc_scenario_clear(&s);
 }
 
+/* What a progress callback saw: how often it was called, the last count, whether the counts stayed within the
+ * total, and whether two calls ever overlapped. */
+typedef struct progress_log {
+    size_t calls, last, total, most;
+    int beyond, inside, overlapped;
+} progress_log;
+
+static void log_progress(size_t done, size_t total, void *user)
+{
+    progress_log *l = user;
+    if (l->inside++)
+        l->overlapped = 1;
+    l->calls++;
+    l->last = done, l->total = total;
+    l->most = done > l->most ? done : l->most;
+    if (done == 0 || done > total)
+        l->beyond = 1;
+    l->inside--;
+}
+
+TEST(a_progress_callback_sees_every_row_done_and_changes_no_digit)
+{
+    dragarc_scenario s;
+    CHECK(shared_storage(&s) == 0);
+    dragarc_sweep_axis ax[2];
+    axis(&ax[0], "speed", 0.0, 12.0, 0.5);
+    axis(&ax[1], "height", -0.5, 2.5, 0.25);
+    for (int threads = 1; threads <= 2; threads++) {
+        omp_set_num_threads(threads);
+        dragarc_sweep plain, watched;
+        progress_log l = {0};
+        CHECK(dragarc_sweep_run(&s, ax, 2, &plain, NULL) == DRAGARC_OK);
+        CHECK(dragarc_sweep_run_progress(&s, ax, 2, log_progress, &l, &watched, NULL) == DRAGARC_OK);
+        CHECK(watched.nrows == 325 && plain.nrows == watched.nrows && plain.nfailed == watched.nfailed);
+        size_t differ = 0;
+        for (size_t r = 0; r < plain.nrows && plain.nrows == watched.nrows; r++)
+            differ += !same_row(&plain.rows[r], &watched.rows[r], 2);
+        CHECK(differ == 0);
+        /* every 16 rows and at the end: 325 / 16 = 20 calls and the last (325 is no multiple of 16) */
+        CHECK(l.calls == 21 && l.most == 325 && l.total == 325 && !l.beyond && !l.overlapped);
+        if (threads == 1)
+            CHECK(l.last == 325);
+        dragarc_sweep_clear(&plain);
+        dragarc_sweep_clear(&watched);
+    }
+    /* a refused table calls nothing */
+    dragarc_sweep_axis bad;
+    axis(&bad, "cd", 0.3, 0.4, 0.1); /* the scenario's drag is a table, not the constant model */
+    progress_log l = {0};
+    dragarc_sweep t;
+    CHECK(dragarc_sweep_run_progress(&s, &bad, 1, log_progress, &l, &t, NULL) == DRAGARC_EINVAL && l.calls == 0);
+    dragarc_sweep_clear(&t);
+    dragarc_scenario_clear(&s);
+}
+
 /* The field each parameter lands in, in its own units (degrees for angles). */
 static double field_of(const dragarc_scenario *s, const char *path)
 {
@@ -642,6 +697,7 @@ int main(void)
     RUN(a_two_parameter_table_equals_the_flights_flown_one_by_one);
     RUN(a_drag_free_table_of_elevations_gives_the_vacuum_range);
     RUN(the_thread_count_changes_no_digit);
+    RUN(a_progress_callback_sees_every_row_done_and_changes_no_digit);
     RUN(every_name_and_alias_sets_its_field);
     RUN(a_new_diameter_keeps_the_body_geometrically_similar);
     RUN(unknown_names_are_refused_with_the_accepted_ones);
