@@ -5,9 +5,7 @@
  * Nothing here computes a new number: the panels draw the result's own profile, grid, deposit bins and classes,
  * converted only in unit (fractions to per cent, metres to micrometres).
  *   sprinkler  the radial profile as steps over its rings (ring k spans [k w, (k+1) w)); the grid of cells as a
- *              colour map, cell for cell (it is already square, east and north of the sprinkler: no resampling);
- *              with a layout, the overlap at the catch points of the layout's cell (dragarc_sprinkler_overlap,
- *              the same points as the uniformity printed), each point drawn as the sub-cell it stands for.
+ *              colour map, cell for cell (it is already square, east and north of the sprinkler: no resampling).
  *   drift      the deposit per metre as steps over its bins; the share deposited before x, a running sum over the
  *              bins, linear within each (as dragarc_drift_deposited_within); the spectrum's F(d) sampled evenly
  *              in d between the end classes' bounds, with its Dv10, Dv50, Dv90 (dragarc_spectrum_summarise).
