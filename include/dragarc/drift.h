@@ -59,6 +59,11 @@ int dragarc_drift_run(const dragarc_scenario *base, const double travel[2], cons
 
 void dragarc_drift_clear(dragarc_drift_result *r);
 
+/* The share of the emitted volume that r deposits before x m downwind: the deposit per metre integrated from the
+ * first bin to x (a bin that x cuts counts in proportion). 0 before the first bin; r->deposited_fraction beyond
+ * the last; r->beyond_buffer is 1 minus this at r->buffer. */
+double dragarc_drift_deposited_within(const dragarc_drift_result *r, double x);
+
 /* A drift scenario file as read (src/io/scenario_json.c; docs/drift.md). */
 typedef struct dragarc_drift_spec {
     dragarc_scenario base;   /* owned: the drop, the nozzle's jet as the launch, the air, wind, ground, solver */

@@ -18,10 +18,12 @@
 
 #include "dragarc/aim.h"
 #include "dragarc/dragarc.h"
+#include "dragarc/drift.h"
 #include "dragarc/flight.h"
 #include "dragarc/output.h"
 #include "dragarc/scenario.h"
 #include "dragarc/sweep.h"
+#include "dragarc/sprinkler.h"
 #include "dragarc/units.h"
 
 #ifdef __cplusplus
@@ -191,6 +193,25 @@ int dragarc_sweep_plot(const char *path, const dragarc_sweep *t, dragarc_sweep_c
  * otherwise errors as dragarc_plot_write. */
 int dragarc_aim_table_plot(const char *path, const char *scenario, const dragarc_aim_table_row *rows, size_t n,
                            const dragarc_display *d, dragarc_error *err);
+/* ---- the pictures of a sprinkler and of a spray's drift (src/io/spray_plot.c; described in docs/plots.md) ---- */
+
+/* The `sprinkler --plot` figure of pattern r, run from spec, into path: the radial application-rate profile (mm/h
+ * against the distance from the sprinkler, m) with the wetted radius; the grid's rates as a colour map (cells under
+ * DRAGARC_WETTED_RATE white) at equal scales, with the sprinkler, the wind at the nozzle's height, a scale bar and
+ * north; and, when r was overlapped on a layout, the overlapped rates over the layout's cell at its catch points,
+ * with the sprinklers at the cell's corners. title names the scenario (NULL: spec's name). Errors as
+ * dragarc_plot_write, and those of dragarc_sprinkler_overlap. */
+int dragarc_sprinkler_plot(const char *path, const dragarc_sprinkler_spec *spec, const dragarc_sprinkler_result *r,
+                           const char *title, dragarc_error *err);
+
+/* The `drift --plot` figure of result r, run from spec with classes (spec->nclasses of them), into path: the
+ * deposit (% of the emitted volume per metre) against the distance downwind, in total and in four bands of drop
+ * size split at the spectrum's Dv10, Dv50 and Dv90, with the buffer; the share deposited within each distance,
+ * with the 90 % and 99 % distances; and the spectrum's cumulative volume fraction against the diameter (um) with
+ * Dv10, Dv50, Dv90 and the smallest drop that lands before the buffer. title as above. Errors as dragarc_plot_write;
+ * DRAGARC_EINVAL when nothing was deposited. */
+int dragarc_drift_plot(const char *path, const dragarc_drift_spec *spec, const dragarc_spectrum_class *classes,
+                       const dragarc_drift_result *r, const char *title, dragarc_error *err);
 
 #ifdef __cplusplus
 }

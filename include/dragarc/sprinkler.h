@@ -37,6 +37,10 @@ typedef struct dragarc_sprinkler_request {
     const double *fractions; /* volume fraction of the flow in each class; they sum to 1 */
     double ring_width;       /* m: the radial profile's bins */
     double cell;             /* m: the grid's cell size */
+    /* NULL, or called now and then from one thread with the flights done and the total, for a progress bar; it must
+     * not call into dragarc. Reporting never changes the results. */
+    void (*progress)(size_t done, size_t total, void *user);
+    void *progress_user;
 } dragarc_sprinkler_request;
 
 /* One size class flown in one direction. */
@@ -113,10 +117,18 @@ int dragarc_sprinkler_spec_read(const char *path, dragarc_sprinkler_spec *out, d
 int dragarc_sprinkler_spec_parse(const char *json, dragarc_sprinkler_spec *out, dragarc_error *err);
 void dragarc_sprinkler_spec_clear(dragarc_sprinkler_spec *spec);
 
-/* Discretise spec's spectrum and fly it: dragarc_sprinkler_run with the spec's request. The classes are written to
- * classes (caller's array of spec->nclasses). */
+/* Discretise spec's spectrum and fly it: dragarc_sprinkler_run with the spec's request, and progress (NULL: none)
+ * as its progress callback. The classes are written to classes (caller's array of spec->nclasses). */
 int dragarc_sprinkler_spec_run(const dragarc_sprinkler_spec *spec, dragarc_spectrum_class *classes,
+                               void (*progress)(size_t done, size_t total, void *user), void *user,
                                dragarc_sprinkler_result *out, dragarc_error *err);
+
+/* Pattern r's grid overlapped with its neighbours on layout l, at points x points catch points over the
+ * representative cell (dragarc_overlap_run on the grid's cell centres): what dragarc_sprinkler_spec_run reports as
+ * layout_stats, and the rates behind them. Fills *o (caller frees with dragarc_overlap_clear, also after failure).
+ * Errors as dragarc_overlap_run. */
+int dragarc_sprinkler_overlap(const dragarc_sprinkler_result *r, const dragarc_layout *l, size_t points,
+                              dragarc_overlap *o, dragarc_error *err);
 
 #ifdef __cplusplus
 }

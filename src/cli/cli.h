@@ -109,10 +109,25 @@ int cli_write_output(const char *option, const char *path, int (*w)(FILE *fp, co
                      const void *ctx);
 
 /* The arguments of a command that reads one scenario file and writes --json or files: the scenario into *path,
- * --json into *json, and the value of each option named in file_opts (NULL-terminated, e.g. "--csv") into files[k].
- * Returns -1 to go on, or the exit status to return (help printed, or a usage error reported). */
+ * --json into *json, --quiet into *quiet (NULL: the command has no --quiet), and the value of each option named in
+ * file_opts (NULL-terminated, e.g. "--csv") into files[k]. A "--plot" among them must name an .svg, .png or .pdf
+ * file, and no two may name the same file. Returns -1 to go on, or the exit status to return (help printed, or a
+ * usage error reported). */
 int cli_scenario_args(const char *cmd, const char *help, int argc, char **argv, const char *const *file_opts,
-                      const char **files, int *json, const char **path);
+                      const char **files, int *json, int *quiet, const char **path);
+
+/* One output file of a command: its option ("--csv"), its path (NULL: not asked for) and what writes it. */
+typedef struct cli_output_file {
+    const char *option, *path;
+    int (*write)(FILE *fp, const void *ctx, dragarc_error *err);
+} cli_output_file;
+#define CLI_MAX_OUTPUTS 8
+
+/* Write files[0..n) (at most CLI_MAX_OUTPUTS) whole, each to a temporary file, then draw the plot into plot_path
+ * (when plot and plot_path are given), and only then rename the files into place: a failure of any leaves none of
+ * them behind. On failure the error is reported under the failing option and its exit status returned. */
+int cli_write_outputs(const cli_output_file *files, size_t n, const void *ctx,
+                      int (*plot)(const char *path, const void *ctx, dragarc_error *err), const char *plot_path);
 
 /* If argv[*i] is --plot, take its value (advancing *i) into *path, checked to end in .svg, .png or .pdf, and return
  * 0, or the exit status of the usage error printed; -1 when argv[*i] is not --plot. */

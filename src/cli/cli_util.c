@@ -468,10 +468,12 @@ int cli_write_output(const char *option, const char *path, int (*w)(FILE *fp, co
 }
 
 int cli_scenario_args(const char *cmd, const char *help, int argc, char **argv, const char *const *file_opts,
-                      const char **files, int *json, const char **path)
+                      const char **files, int *json, int *quiet, const char **path)
 {
     *path = NULL;
     *json = 0;
+    if (quiet)
+        *quiet = 0;
     for (int i = 1; i < argc; i++) {
         const char *a = argv[i];
         int k = 0, st;
@@ -481,6 +483,8 @@ int cli_scenario_args(const char *cmd, const char *help, int argc, char **argv, 
             return EXIT_OK;
         } else if (strcmp(a, "--json") == 0) {
             *json = 1;
+        } else if (quiet && strcmp(a, "--quiet") == 0) {
+            *quiet = 1;
         } else if (file_opts[k]) {
             if (++i >= argc)
                 return cli_usage_error(cmd, "%s needs a file name", a);
@@ -491,7 +495,59 @@ int cli_scenario_args(const char *cmd, const char *help, int argc, char **argv, 
     }
     if (!*path)
         return cli_usage_error(cmd, "needs a scenario file");
+    for (int k = 0; file_opts[k]; k++) {
+        if (strcmp(file_opts[k], "--plot") == 0 && files[k]) {
+            dragarc_plot_format fmt;
+            dragarc_error err;
+            if (dragarc_plot_format_from_path(files[k], &fmt, &err) != DRAGARC_OK)
+                return cli_usage_error(cmd, "--plot: %s", err.message);
+        }
+        for (int m = 0; m < k; m++)
+            if (files[k] && files[m] && strcmp(files[k], files[m]) == 0 && strcmp(files[k], "-") != 0)
+                return cli_usage_error(cmd, "%s and %s name the same file '%s'", file_opts[m], file_opts[k], files[k]);
+    }
     return -1;
+}
+
+int cli_write_outputs(const cli_output_file *files, size_t n, const void *ctx,
+                      int (*plot)(const char *path, const void *ctx, dragarc_error *err), const char *plot_path)
+{
+    dragarc_output out[CLI_MAX_OUTPUTS];
+    dragarc_error err;
+    size_t opened = 0;
+    const char *option = "";
+    int rc = DRAGARC_OK;
+    for (size_t k = 0; k < n && k < CLI_MAX_OUTPUTS && rc == DRAGARC_OK; k++) {
+        if (!files[k].path)
+            continue;
+        option = files[k].option;
+        rc = dragarc_output_open(&out[opened], files[k].path, &err);
+        if (rc != DRAGARC_OK)
+            break;
+        opened++;
+        rc = files[k].write(out[opened - 1].fp, ctx, &err);
+    }
+    if (rc == DRAGARC_OK && plot && plot_path) {
+        option = "--plot";
+        rc = plot(plot_path, ctx, &err);
+    }
+    /* the files are renamed into place only when every one, and the plot, is complete */
+    for (size_t k = 0, m = 0; k < n && m < opened; k++) {
+        if (!files[k].path)
+            continue;
+        if (rc == DRAGARC_OK) {
+            option = files[k].option;
+            rc = dragarc_output_commit(&out[m], &err);
+        } else {
+            dragarc_output_abort(&out[m]);
+        }
+        m++;
+    }
+    if (rc != DRAGARC_OK) {
+        err.field[0] = '\0';
+        return cli_report(option, &err);
+    }
+    return EXIT_OK;
 }
 
 

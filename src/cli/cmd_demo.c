@@ -118,7 +118,7 @@ static int demo_sprinkler(unsigned *notes)
         return cli_report("demo", &err);
     dragarc_spectrum_class cl[16];
     dragarc_sprinkler_result r;
-    int rc = dragarc_sprinkler_spec_run(&sp, cl, &r, &err);
+    int rc = dragarc_sprinkler_spec_run(&sp, cl, NULL, NULL, &r, &err);
     if (rc == DRAGARC_OK) {
         dragarc_sprinkler_class_stats fine, coarse;
         dragarc_sprinkler_class_summary(&r, 0, &fine);

@@ -1,4 +1,4 @@
-/* cmd_drift.c: `dragarc drift SCENARIO [--json] [--csv FILE]`: how far a spray's drops drift, and where its volume
+/* cmd_drift.c: `dragarc drift SCENARIO [--json] [--csv FILE] [--plot FILE]`: how far a spray's drops drift, and where its volume
  * comes down.
  * SPDX-License-Identifier: GPL-3.0-or-later
  */
@@ -11,9 +11,10 @@
 #include "dragarc/cautions.h"
 #include "dragarc/drift.h"
 #include "dragarc/output.h"
+#include "dragarc/plot.h"
 
 static const char HELP[] =
-    "usage: dragarc drift SCENARIO [--json] [--csv FILE]\n"
+    "usage: dragarc drift SCENARIO [--json] [--csv FILE] [--plot FILE.svg|png|pdf]\n"
     "\n"
     "Fly every drop size of a spray nozzle (its release height, jet and the sprayer's travel, in the scenario's\n"
     "air and wind; see docs/drift.md) and print where each size comes down or evaporates, the deposit per metre\n"
@@ -22,11 +23,24 @@ static const char HELP[] =
     "\n"
     "  --json        print one JSON object instead of the summary\n"
     "  --csv FILE    write the deposit per metre downwind, total and per class; written whole or not at all\n"
-    "  -h, --help    this help\n";
+    "  --plot FILE   draw the deposit downwind (by drop-size band), the volume deposited within each distance\n"
+    "                and the drop-size spectrum into FILE, an .svg, .png or .pdf file (docs/plots.md)\n"    "  -h, --help    this help\n";
+
+typedef struct outputs {
+    const dragarc_drift_spec *spec;
+    const dragarc_spectrum_class *classes;
+    const dragarc_drift_result *r;
+} outputs;
 
 static int write_csv(FILE *fp, const void *ctx, dragarc_error *err)
 {
-    return dragarc_drift_write_csv(fp, ctx, err);
+    return dragarc_drift_write_csv(fp, ((const outputs *)ctx)->r, err);
+}
+
+static int draw_plot(const char *path, const void *ctx, dragarc_error *err)
+{
+    const outputs *o = ctx;
+    return dragarc_drift_plot(path, o->spec, o->classes, o->r, NULL, err);
 }
 
 static void print_summary(const dragarc_drift_spec *sp, const dragarc_drift_result *r)
@@ -68,9 +82,9 @@ static void print_summary(const dragarc_drift_spec *sp, const dragarc_drift_resu
 
 int cmd_drift(int argc, char **argv)
 {
-    static const char *const opts[] = {"--csv", NULL};
-    const char *path, *csv = NULL;
-    int json, st = cli_scenario_args("drift", HELP, argc, argv, opts, &csv, &json, &path);
+    static const char *const opts[] = {"--csv", "--plot", NULL};
+    const char *path, *files[2] = {NULL, NULL};
+    int json, st = cli_scenario_args("drift", HELP, argc, argv, opts, files, &json, NULL, &path);
     if (st >= 0)
         return st;
     dragarc_drift_spec spec;
@@ -87,8 +101,10 @@ int cmd_drift(int argc, char **argv)
     } else if (dragarc_drift_spec_run(&spec, classes, &r, &err) != DRAGARC_OK) {
         status = cli_report(path, &err);
     }
-    if (status == EXIT_OK && csv)
-        status = cli_write_output("--csv", csv, write_csv, &r);
+    const outputs o = {&spec, classes, &r};
+    const cli_output_file out[1] = {{"--csv", files[0], write_csv}};
+    if (status == EXIT_OK)
+        status = cli_write_outputs(out, 1, &o, draw_plot, files[1]);
     if (status == EXIT_OK && json)
         status = cli_emit_json(dragarc_drift_json(&spec, &r), path);
     else if (status == EXIT_OK) {

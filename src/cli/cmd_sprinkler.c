@@ -1,5 +1,5 @@
-/* cmd_sprinkler.c: `dragarc sprinkler SCENARIO [--json] [--csv FILE] [--grid FILE]`: where a sprinkler's drops land
- * and the water they lay down.
+/* cmd_sprinkler.c: `dragarc sprinkler SCENARIO [--json] [--csv FILE] [--grid FILE] [--plot FILE] [--quiet]`: where a
+ * sprinkler's drops land and the water they lay down.
  * SPDX-License-Identifier: GPL-3.0-or-later
  */
 #include <math.h>
@@ -10,10 +10,11 @@
 #include "cli/cli.h"
 #include "dragarc/cautions.h"
 #include "dragarc/output.h"
+#include "dragarc/plot.h"
 #include "dragarc/sprinkler.h"
 
 static const char HELP[] =
-    "usage: dragarc sprinkler SCENARIO [--json] [--csv FILE] [--grid FILE]\n"
+    "usage: dragarc sprinkler SCENARIO [--json] [--csv FILE] [--grid FILE] [--plot FILE.svg|png|pdf] [--quiet]\n"
     "\n"
     "Fly every drop size of a sprinkler (its nozzle, pressure, height, elevation, arc and drop-size spectrum, in\n"
     "the scenario's air and wind; see docs/sprinkler.md) in every direction of its arc, and print the jet, where\n"
@@ -23,7 +24,9 @@ static const char HELP[] =
     "  --json        print one JSON object instead of the summary\n"
     "  --csv FILE    write the radial profile (r_inner_m,r_outer_m,rate_mm_h); written whole or not at all\n"
     "  --grid FILE   write the application rate on the grid of cells (x_m,y_m,rate_mm_h at cell centres)\n"
-    "  -h, --help    this help\n";
+    "  --plot FILE   draw the radial profile, the pattern as a colour map and, with a layout, the overlapped\n"
+    "                pattern over one cell into FILE, an .svg, .png or .pdf file (docs/plots.md)\n"
+    "  --quiet       no progress bar (it shows only when stderr is a terminal)\n"    "  -h, --help    this help\n";
 
 typedef struct outputs {
     const dragarc_sprinkler_result *r;
@@ -39,6 +42,12 @@ static int write_profile(FILE *fp, const void *ctx, dragarc_error *err)
 static int write_grid(FILE *fp, const void *ctx, dragarc_error *err)
 {
     return dragarc_sprinkler_write_grid_csv(fp, ((const outputs *)ctx)->r, err);
+}
+
+static int draw_plot(const char *path, const void *ctx, dragarc_error *err)
+{
+    const outputs *o = ctx;
+    return dragarc_sprinkler_plot(path, o->spec, o->r, NULL, err);
 }
 
 static void print_summary(const dragarc_sprinkler_spec *sp, const dragarc_spectrum_class *cl,
@@ -95,12 +104,11 @@ static void print_summary(const dragarc_sprinkler_spec *sp, const dragarc_spectr
 
 int cmd_sprinkler(int argc, char **argv)
 {
-    static const char *const opts[] = {"--csv", "--grid", NULL};
-    const char *path, *files[2] = {NULL, NULL}, *csv, *grid;
-    int json, st = cli_scenario_args("sprinkler", HELP, argc, argv, opts, files, &json, &path);
+    static const char *const opts[] = {"--csv", "--grid", "--plot", NULL};
+    const char *path, *files[3] = {NULL, NULL, NULL};
+    int json, quiet, st = cli_scenario_args("sprinkler", HELP, argc, argv, opts, files, &json, &quiet, &path);
     if (st >= 0)
         return st;
-    csv = files[0], grid = files[1];
     dragarc_sprinkler_spec spec;
     dragarc_error err;
     if (dragarc_sprinkler_spec_read(path, &spec, &err) != DRAGARC_OK)
@@ -112,14 +120,18 @@ int cmd_sprinkler(int argc, char **argv)
     if (!classes) {
         dragarc_error_set(&err, DRAGARC_ENOMEM, "", "out of memory");
         status = cli_report(path, &err);
-    } else if (dragarc_sprinkler_spec_run(&spec, classes, &r, &err) != DRAGARC_OK) {
-        status = cli_report(path, &err);
+    } else {
+        cli_progress bar;
+        cli_progress_begin(&bar, "flights", quiet);
+        int rc = dragarc_sprinkler_spec_run(&spec, classes, bar.enabled ? cli_progress_tick : NULL, &bar, &r, &err);
+        cli_progress_end(&bar);
+        if (rc != DRAGARC_OK)
+            status = cli_report(path, &err);
     }
     const outputs o = {&r, &spec};
-    if (status == EXIT_OK && csv)
-        status = cli_write_output("--csv", csv, write_profile, &o);
-    if (status == EXIT_OK && grid)
-        status = cli_write_output("--grid", grid, write_grid, &o);
+    const cli_output_file out[2] = {{"--csv", files[0], write_profile}, {"--grid", files[1], write_grid}};
+    if (status == EXIT_OK)
+        status = cli_write_outputs(out, 2, &o, draw_plot, files[2]);
     if (status == EXIT_OK && json)
         status = cli_emit_json(dragarc_sprinkler_json(&spec, classes, &r), path);
     else if (status == EXIT_OK) {

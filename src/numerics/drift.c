@@ -28,6 +28,19 @@ void dragarc_drift_clear(dragarc_drift_result *r)
     memset(r, 0, sizeof *r);
 }
 
+double dragarc_drift_deposited_within(const dragarc_drift_result *r, double x)
+{
+    double before = 0.0, w = r->bin_width;
+    for (size_t b = 0; b < r->nbins; b++) {
+        double s0 = r->first_bin + b * w, v = r->deposit[b] * w;
+        if (s0 + w <= x)
+            before += v;
+        else if (s0 < x)
+            before += v * (x - s0) / w;
+    }
+    return before;
+}
+
 static void fly_class(const dragarc_scenario *base, const double v0[3], const double toward[2], double d,
                       dragarc_drift_class *c, unsigned *notes)
 {
@@ -173,21 +186,17 @@ int dragarc_drift_run(const dragarc_scenario *base, const double travel[2], cons
         }
     }
     /* 90 % and 99 % distances; what is not deposited before the buffer */
-    double cum = 0.0, before = 0.0;
+    double cum = 0.0;
     for (size_t b = 0; b < out->nbins; b++) {
         double s0 = out->first_bin + b * bin_width, v = out->deposit[b] * bin_width;
         if (isnan(out->distance90) && cum + v >= 0.9)
             out->distance90 = s0 + bin_width * (0.9 - cum) / v;
         if (isnan(out->distance99) && cum + v >= 0.99)
             out->distance99 = s0 + bin_width * (0.99 - cum) / v;
-        if (s0 + bin_width <= buffer)
-            before += v;
-        else if (s0 < buffer)
-            before += v * (buffer - s0) / bin_width;
         cum += v;
     }
     out->buffer = buffer;
-    out->beyond_buffer = 1.0 - before;
+    out->beyond_buffer = 1.0 - dragarc_drift_deposited_within(out, buffer);
     /* the size whose landing distance is the buffer: interpolated between the classes on either side (by size) */
     for (size_t i = 0; i + 1 < n; i++) {
         const dragarc_drift_class *p = &cl[i], *q = &cl[i + 1];

@@ -13,6 +13,10 @@
 #include <stdlib.h>
 #include <string.h>
 
+#ifdef _OPENMP
+#include <omp.h>
+#endif
+
 #include "core/constants.h"
 #include "dragarc/flight.h"
 #include "dragarc/sprinkler.h"
@@ -165,12 +169,26 @@ int dragarc_sprinkler_run(const dragarc_scenario *base, const dragarc_sprinkler_
     }
     const double speed = out->exit_speed;
     dragarc_sprinkler_drop *drops = out->drops;
-#pragma omp parallel for schedule(dynamic) default(none) shared(base, req, drops, notes, n, nd, speed, arc, full)
+    size_t done = 0;
+#pragma omp parallel for schedule(dynamic) default(none) shared(base, req, drops, notes, n, nd, speed, arc, full, done)
     for (size_t k = 0; k < n; k++) {
         size_t i = k / nd, j = k % nd;
         double az = req->arc_from + arc * (full ? (j + 0.5) / nd : nd > 1 ? (double)j / (nd - 1) : 0.5);
         fly_drop(base, speed, req->diameters[i], az, &drops[k], &notes[k]);
+        /* the count is shared; only the first thread reports it, so the callback never runs twice at once */
+        size_t d;
+#pragma omp atomic capture
+        d = ++done;
+#ifdef _OPENMP
+        int reporter = omp_get_thread_num() == 0;
+#else
+        int reporter = 1;
+#endif
+        if (req->progress && reporter && d % 16 == 0)
+            req->progress(d, n, req->progress_user);
     }
+    if (req->progress)
+        req->progress(n, n, req->progress_user);
     double xmin = 0.0, xmax = 0.0, ymin = 0.0, ymax = 0.0, rmax = 0.0;
     for (size_t k = 0; k < n; k++) {
         out->notes |= notes[k];
@@ -256,7 +274,21 @@ void dragarc_sprinkler_spec_clear(dragarc_sprinkler_spec *spec)
     memset(spec, 0, sizeof *spec);
 }
 
+int dragarc_sprinkler_overlap(const dragarc_sprinkler_result *r, const dragarc_layout *l, size_t points,
+                              dragarc_overlap *o, dragarc_error *err)
+{
+    memset(o, 0, sizeof *o);
+    dragarc_spray_pattern *pat = NULL;
+    int rc = dragarc_spray_pattern_grid(r->x0 + 0.5 * r->cell, r->y0 + 0.5 * r->cell, r->cell, r->cell, r->nx, r->ny,
+                                        r->grid_rate, &pat, err);
+    if (rc == DRAGARC_OK)
+        rc = dragarc_overlap_run(pat, l, points, points, o, err);
+    dragarc_spray_pattern_free(pat);
+    return rc;
+}
+
 int dragarc_sprinkler_spec_run(const dragarc_sprinkler_spec *spec, dragarc_spectrum_class *classes,
+                               void (*progress)(size_t done, size_t total, void *user), void *user,
                                dragarc_sprinkler_result *out, dragarc_error *err)
 {
     memset(out, 0, sizeof *out);
@@ -273,20 +305,15 @@ int dragarc_sprinkler_spec_run(const dragarc_sprinkler_spec *spec, dragarc_spect
     for (size_t i = 0; i < spec->nclasses; i++)
         d[i] = classes[i].diameter, f[i] = classes[i].fraction;
     dragarc_sprinkler_request q = {spec->nozzle, spec->arc_from, spec->arc_to, spec->ndirections, spec->nclasses,
-                                   d, f, spec->ring_width, spec->cell};
+                                   d, f, spec->ring_width, spec->cell, progress, user};
     rc = dragarc_sprinkler_run(&spec->base, &q, out, err);
     if (rc != DRAGARC_OK)
         dragarc_error_prefix(err, "sprinkler");
     free(d), free(f);
     if (rc == DRAGARC_OK && spec->layout_given) {
         /* the pattern on the grid's cell centres, overlapped with its neighbours on the layout */
-        dragarc_spray_pattern *pat = NULL;
         dragarc_overlap ov;
-        memset(&ov, 0, sizeof ov);
-        rc = dragarc_spray_pattern_grid(out->x0 + 0.5 * out->cell, out->y0 + 0.5 * out->cell, out->cell, out->cell,
-                                        out->nx, out->ny, out->grid_rate, &pat, err);
-        if (rc == DRAGARC_OK)
-            rc = dragarc_overlap_run(pat, &spec->layout, spec->layout_points, spec->layout_points, &ov, err);
+        rc = dragarc_sprinkler_overlap(out, &spec->layout, spec->layout_points, &ov, err);
         if (rc == DRAGARC_OK) {
             out->layout_done = 1;
             out->layout = spec->layout;
@@ -297,7 +324,6 @@ int dragarc_sprinkler_spec_run(const dragarc_sprinkler_spec *spec, dragarc_spect
             dragarc_error_prefix(err, "sprinkler");
         }
         dragarc_overlap_clear(&ov);
-        dragarc_spray_pattern_free(pat);
     }
     return rc;
 }

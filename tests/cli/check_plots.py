@@ -15,11 +15,12 @@
 
 import json
 import os
-import struct
 import subprocess
 import sys
 import tempfile
 import xml.etree.ElementTree as ET
+
+sys.path.insert(0, os.path.dirname(os.path.abspath(__file__)))
 
 passed = failed = 0
 
@@ -43,27 +44,7 @@ def run(*args, env=None):  # dragarc fly ARGS... in WORK
     return p.returncode, p.stdout, p.stderr.decode("utf-8", "replace")
 
 
-def valid_svg(path):
-    root = ET.parse(path).getroot()
-    return root.tag == "{http://www.w3.org/2000/svg}svg", f"root element {root.tag}"
-
-
-def valid_png(path):
-    with open(path, "rb") as f:
-        b = f.read(33)
-    if b[:8] != b"\x89PNG\r\n\x1a\n":
-        return False, "no PNG signature"
-    length, kind = struct.unpack(">I4s", b[8:16])
-    if kind != b"IHDR" or length != 13:
-        return False, "no IHDR chunk first"
-    w, h = struct.unpack(">II", b[16:24])
-    return 300 <= w <= 4000 and 300 <= h <= 4000, f"{w} x {h} pixels"
-
-
-def valid_pdf(path):
-    with open(path, "rb") as f:
-        b = f.read()
-    return b.startswith(b"%PDF-") and b.rstrip(b"\r\n").endswith(b"%%EOF"), "no %PDF- header or %%EOF trailer"
+from check_plots_formats import valid_pdf, valid_png, valid_svg  # noqa: E402
 
 
 if len(sys.argv) != 3:

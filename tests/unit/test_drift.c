@@ -68,6 +68,30 @@ TEST(the_spray_volume_is_conserved)
     dragarc_drift_clear(&r);
 }
 
+TEST(the_volume_deposited_within_a_distance_runs_from_nothing_to_the_deposited_share)
+{
+    /* The running integral of the deposit: 0 before the first bin, the deposited share beyond the last, 90 % of the
+     * emitted volume at distance90 (both interpolate linearly within a bin: round-off, 1e-12), the complement of
+     * beyond_buffer at the buffer (the same sum), and never falling. */
+    dragarc_drift_result r;
+    run(3.0, 0.5, &r);
+    CHECK(dragarc_drift_deposited_within(&r, r.first_bin - 1.0) == 0.0);
+    CHECK_ABS(dragarc_drift_deposited_within(&r, r.first_bin + (r.nbins + 1) * r.bin_width), r.deposited_fraction,
+              1e-12);
+    CHECK(isfinite(r.distance90));
+    CHECK_ABS(dragarc_drift_deposited_within(&r, r.distance90), 0.9, 1e-12);
+    CHECK(dragarc_drift_deposited_within(&r, r.buffer) == 1.0 - r.beyond_buffer);
+    double last = 0.0;
+    int rising = 1;
+    for (double x = r.first_bin; x < r.first_bin + r.nbins * r.bin_width; x += 0.1 * r.bin_width) {
+        double v = dragarc_drift_deposited_within(&r, x);
+        rising = rising && v >= last;
+        last = v;
+    }
+    CHECK(rising);
+    dragarc_drift_clear(&r);
+}
+
 TEST(drift_rises_with_wind_and_height_and_falls_with_drop_size)
 {
     dragarc_drift_result a, b, c;
@@ -92,6 +116,7 @@ int main(void)
     dragarc_init();
     spectrum();
     RUN(the_spray_volume_is_conserved);
+    RUN(the_volume_deposited_within_a_distance_runs_from_nothing_to_the_deposited_share);
     RUN(drift_rises_with_wind_and_height_and_falls_with_drop_size);
     return check_summary();
 }

@@ -216,6 +216,21 @@ TEST(a_flight_plot_needs_samples)
     dragarc_scenario_clear(&s);
 }
 
+TEST(spray_plots_need_a_result_with_something_to_draw)
+{
+    dragarc_sprinkler_spec sp;
+    dragarc_sprinkler_result sr;
+    dragarc_drift_spec dp;
+    dragarc_drift_result dr;
+    memset(&sp, 0, sizeof sp), memset(&sr, 0, sizeof sr), memset(&dp, 0, sizeof dp), memset(&dr, 0, sizeof dr);
+    dragarc_error e;
+    char path[128];
+    snprintf(path, sizeof path, "%s/spray.svg", dir);
+    CHECK_ERROR(dragarc_sprinkler_plot(path, &sp, &sr, NULL, &e), DRAGARC_EINVAL, e, "", "needs a computed pattern");
+    CHECK_ERROR(dragarc_drift_plot(path, &dp, NULL, &dr, NULL, &e), DRAGARC_EINVAL, e, "", "nothing deposits");
+    CHECK(entries() == 0);
+}
+
 /* A map: a colour map with a cell left blank, two rings in one series separated by NaN, a filled area, markers, a
  * scale bar and a north arrow, on a page of its own height. */
 TEST(a_map_with_a_colour_map_rings_and_a_filled_area)
@@ -419,6 +434,7 @@ int main(void)
     RUN(failures_leave_no_file);
     RUN(a_file_in_place_is_replaced_only_when_the_new_one_is_complete);
     RUN(a_flight_plot_needs_samples);
+    RUN(spray_plots_need_a_result_with_something_to_draw);
     RUN(a_map_with_a_colour_map_rings_and_a_filled_area);
     RUN(a_family_of_curves_never_repeats_a_look_within_eighteen);
     RUN(an_aim_plot_draws_each_solution_flown_onto_the_target);

@@ -166,15 +166,52 @@ TEST(a_layout_spreads_the_flow_over_its_cell)
     sp.layout_given = 1, sp.layout = (dragarc_layout){DRAGARC_LAYOUT_SQUARE, 9.0, 9.0}, sp.layout_points = 20;
     dragarc_spectrum_class cl[20];
     dragarc_sprinkler_result r;
-    CHECK(dragarc_sprinkler_spec_run(&sp, cl, &r, NULL) == DRAGARC_OK);
+    CHECK(dragarc_sprinkler_spec_run(&sp, cl, NULL, NULL, &r, NULL) == DRAGARC_OK);
     double want = r.flow * r.deposited_fraction / 81.0 * 3.6e6;
     printf("  square 9 m: mean %.4f mm/h against Q / S^2 = %.4f mm/h; CU %.1f %%, DU %.1f %%\n", r.layout_stats.mean,
            want, r.layout_stats.cu, r.layout_stats.du_lq);
     CHECK(r.layout_done);
     CHECK_REL(r.layout_stats.mean, want, 1e-2);
     CHECK(r.layout_stats.cu > 0.0 && r.layout_stats.cu <= 100.0);
+    /* the overlap behind those statistics, as the plot draws it: the same numbers exactly */
+    dragarc_overlap ov;
+    CHECK(dragarc_sprinkler_overlap(&r, &sp.layout, sp.layout_points, &ov, NULL) == DRAGARC_OK);
+    CHECK(ov.nx == 20 && ov.ny == 20 && ov.width == 9.0 && ov.height == 9.0);
+    CHECK(memcmp(&ov.stats, &r.layout_stats, sizeof ov.stats) == 0);
+    dragarc_overlap_clear(&ov);
     dragarc_sprinkler_clear(&r);
     dragarc_spectrum_clear(&sp.spectrum);
+}
+
+typedef struct seen {
+    size_t calls, last_done, last_total;
+} seen;
+static void count(size_t done, size_t total, void *user)
+{
+    seen *s = user;
+    s->calls++, s->last_done = done, s->last_total = total;
+}
+
+TEST(a_progress_callback_sees_every_flight_and_changes_nothing)
+{
+    /* the same flights with and without the callback: bit for bit the same drops, rings and cells */
+    dragarc_scenario s;
+    dragarc_sprinkler_request q;
+    dragarc_sprinkler_result a, b;
+    base_drop(&s, 2.0, 0);
+    request(&q, 360.0, 36);
+    CHECK(dragarc_sprinkler_run(&s, &q, &a, NULL) == DRAGARC_OK);
+    seen got = {0, 0, 0};
+    q.progress = count, q.progress_user = &got;
+    CHECK(dragarc_sprinkler_run(&s, &q, &b, NULL) == DRAGARC_OK);
+    CHECK(got.calls >= 1 && got.last_done == 360 && got.last_total == 360);
+    CHECK(a.nx == b.nx && a.ny == b.ny && a.nrings == b.nrings);
+    CHECK(memcmp(a.drops, b.drops, 360 * sizeof *a.drops) == 0);
+    CHECK(memcmp(a.grid_rate, b.grid_rate, a.nx * a.ny * sizeof *a.grid_rate) == 0);
+    CHECK(memcmp(a.ring_rate, b.ring_rate, a.nrings * sizeof *a.ring_rate) == 0);
+    dragarc_sprinkler_clear(&a);
+    dragarc_sprinkler_clear(&b);
+    dragarc_scenario_clear(&s);
 }
 
 TEST(bad_requests_name_the_field)
@@ -205,6 +242,7 @@ int main(void)
     RUN(a_half_circle_lays_twice_the_depth_on_half_the_ground);
     RUN(wind_carries_the_pattern_downwind_and_evaporation_is_accounted);
     RUN(a_layout_spreads_the_flow_over_its_cell);
+    RUN(a_progress_callback_sees_every_flight_and_changes_nothing);
     RUN(bad_requests_name_the_field);
     return check_summary();
 }
