@@ -2,10 +2,12 @@
  * ball driven at two invented venues, flown and explained. The numbers are illustrative, not measurements of any real product.
  * SPDX-License-Identifier: GPL-3.0-or-later
  */
+#include <errno.h>
 #include <math.h>
 #include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
+#include <sys/stat.h>
 
 #include "cli/cli.h"
 #include "dragarc/aim.h"
@@ -14,14 +16,89 @@
 #include "dragarc/footprint.h"
 #include "dragarc/sprinkler.h"
 #include "dragarc/output.h"
+#include "dragarc/plot.h"
+#include "dragarc/report.h"
 #include "dragarc/sweep.h"
 
 static const char HELP[] =
-    "usage: dragarc demo\n"
+    "usage: dragarc demo [--out FOLDER | --no-files]\n"
     "\n"
     "Fly built-in example scenarios (a practice ball in a breeze, a sprinkler droplet, a fragment shed at\n"
-    "3 km, one spinning ball driven at two venues, a garden sprinkler and a boom sprayer) and explain what\n"
-    "each shows. No files are read or written.\n";
+    "3 km, one spinning ball driven at two venues, a garden sprinkler, a boom sprayer and a rocket's debris)\n"
+    "and explain what each shows. Their pictures (SVG) and an HTML report go into a folder: dragarc-demo\n"
+    "in the current folder unless --out names another (made if missing; files of the same names in it\n"
+    "are replaced, each written whole or not at all). No file is read.\n"
+    "\n"
+    "  --out FOLDER   write the pictures and the report into FOLDER (default dragarc-demo)\n"
+    "  --no-files     write nothing; only the explanations on standard output\n";
+
+/* Where the demo's pictures and report go, and what it has written there. */
+typedef struct demo_files {
+    const char *dir; /* NULL: write nothing */
+    size_t count;
+    char names[16][48];
+} demo_files;
+
+/* The path of file `name` in the demo's folder, into buf; NULL when the demo writes no files. */
+static const char *demo_path(const demo_files *o, const char *name, char *buf, size_t n)
+{
+    if (!o->dir)
+        return NULL;
+    snprintf(buf, n, "%s/%s", o->dir, name);
+    return buf;
+}
+
+/* Record a file written, or report the failure to write it (exit status 2: the folder is the user's choice). */
+static int demo_wrote(demo_files *o, const char *name, int rc, dragarc_error *err)
+{
+    if (rc != DRAGARC_OK) {
+        err->field[0] = '\0';
+        return cli_report("demo --out", err);
+    }
+    if (o->count < sizeof o->names / sizeof o->names[0])
+        snprintf(o->names[o->count++], sizeof o->names[0], "%s", name);
+    return EXIT_OK;
+}
+
+/* The picture of flight f of scenario s (flown again with about 600 samples, as `fly --plot` does) as `name`. */
+static int demo_plot_flight(demo_files *o, const char *name, const dragarc_scenario *s, const dragarc_flight *f)
+{
+    char path[4200];
+    if (!demo_path(o, name, path, sizeof path))
+        return EXIT_OK;
+    cli_fly_options fo;
+    memset(&fo, 0, sizeof fo);
+    dragarc_flight sampled;
+    dragarc_error err;
+    int rc = cli_fly_sampled(s, f, &fo, &sampled, &err);
+    if (rc == DRAGARC_OK)
+        rc = dragarc_flight_plot(path, s, &sampled, NULL, NULL, &err);
+    dragarc_flight_clear(&sampled);
+    return demo_wrote(o, name, rc, &err);
+}
+
+/* The fly report of flight f of scenario s as `name`. */
+static int demo_report_flight(demo_files *o, const char *name, const dragarc_scenario *s, const dragarc_flight *f)
+{
+    char path[4200];
+    if (!demo_path(o, name, path, sizeof path))
+        return EXIT_OK;
+    cli_fly_options fo;
+    memset(&fo, 0, sizeof fo);
+    dragarc_flight sampled;
+    dragarc_error err;
+    dragarc_report *r = NULL;
+    int rc = cli_fly_sampled(s, f, &fo, &sampled, &err);
+    if (rc == DRAGARC_OK)
+        rc = dragarc_report_new(&r, s->name, "fly", &err);
+    if (rc == DRAGARC_OK)
+        rc = dragarc_report_fly(r, "dragarc demo", s, f, &sampled, NULL, NULL, &err);
+    if (rc == DRAGARC_OK)
+        rc = dragarc_report_write_html(r, path, &err);
+    dragarc_report_free(r);
+    dragarc_flight_clear(&sampled);
+    return demo_wrote(o, name, rc, &err);
+}
 
 typedef struct demo_case {
     const char *title;
@@ -110,7 +187,7 @@ static const char BOOM[] =
     "   \"relative_humidity\": 0.55},"
     "   \"wind\": {\"model\": \"log\", \"speed\": 3.0, \"from\": 270, \"ref_height\": 2.0, \"roughness\": 0.05}}}";
 
-static int demo_sprinkler(unsigned *notes)
+static int demo_sprinkler(unsigned *notes, demo_files *o)
 {
     dragarc_sprinkler_spec sp;
     dragarc_error err;
@@ -137,6 +214,9 @@ static int demo_sprinkler(unsigned *notes)
                           "evaporate; overlapping neighbours evens out the depth that one sprinkler lays down.");
         putchar('\n');
         *notes |= r.notes | DRAGARC_NOTE_IRRIGATION;
+        char path[4200];
+        if (demo_path(o, "6-garden-sprinkler.svg", path, sizeof path))
+            rc = demo_wrote(o, "6-garden-sprinkler.svg", dragarc_sprinkler_plot(path, &sp, &r, NULL, &err), &err);
     } else {
         rc = cli_report("demo", &err);
     }
@@ -145,7 +225,7 @@ static int demo_sprinkler(unsigned *notes)
     return rc == DRAGARC_OK ? EXIT_OK : rc;
 }
 
-static int demo_drift(unsigned *notes)
+static int demo_drift(unsigned *notes, demo_files *o)
 {
     dragarc_drift_spec sp;
     dragarc_error err;
@@ -168,6 +248,9 @@ static int demo_drift(unsigned *notes)
                           "so real drift is larger.");
         putchar('\n');
         *notes |= r.notes | DRAGARC_NOTE_SPRAY_DRIFT;
+        char path[4200];
+        if (demo_path(o, "7-boom-sprayer-drift.svg", path, sizeof path))
+            rc = demo_wrote(o, "7-boom-sprayer-drift.svg", dragarc_drift_plot(path, &sp, cl, &r, NULL, &err), &err);
     } else {
         rc = cli_report("demo", &err);
     }
@@ -234,7 +317,7 @@ static int demo_footprint(unsigned *notes)
 }
 
 /* The inverse question for the first case: which launches put the ball on a spot `range` metres out? */
-static int demo_aim(const dragarc_scenario *s, double range)
+static int demo_aim(const dragarc_scenario *s, double range, demo_files *o)
 {
     dragarc_aim_request q;
     dragarc_aim_request_default(&q);
@@ -251,11 +334,14 @@ static int demo_aim(const dragarc_scenario *s, double range)
                fabs(r.solutions[i].azimuth_correction) * 57.29577951308232,
                r.solutions[i].azimuth_correction >= 0 ? "right" : "left", r.solutions[i].time_of_flight,
                r.solutions[i].impact_speed);
+    char path[4200];
+    if (demo_path(o, "1-practice-ball-aim.svg", path, sizeof path))
+        return demo_wrote(o, "1-practice-ball-aim.svg", dragarc_aim_plot(path, s, &q, &r, NULL, NULL, &err), &err);
     return EXIT_OK;
 }
 
 /* A table for the second case: how far drops of each size carry and drift from the same nozzle. */
-static int demo_table(const dragarc_scenario *s)
+static int demo_table(const dragarc_scenario *s, demo_files *o)
 {
     dragarc_sweep_axis axis;
     dragarc_error err;
@@ -276,18 +362,52 @@ static int demo_table(const dragarc_scenario *s)
                fabs(r->crossrange), r->time_of_flight, r->impact_speed);
     }
     puts("    Small drops lose their speed at once and drift furthest; large ones carry.");
+    int rc = EXIT_OK;
+    char path[4200];
+    if (demo_path(o, "2-droplet-sizes.svg", path, sizeof path))
+        rc = demo_wrote(o, "2-droplet-sizes.svg", dragarc_sweep_plot(path, &t, DRAGARC_SWEEP_RANGE, NULL, NULL, &err),
+                        &err);
     dragarc_sweep_clear(&t);
-    return EXIT_OK;
+    return rc;
 }
+
+/* The pictures of the cases flown in the loop below, by case number; NULL: none. */
+static const char *const CASE_PICTURE[] = {"1-practice-ball.svg", NULL, "3-fragment-from-3-km.svg",
+                                           "4-saltmarsh-links.svg", "5-high-mesa-range.svg"};
 
 int cmd_demo(int argc, char **argv)
 {
+    demo_files files = {.dir = "dragarc-demo"};
+    int no_files = 0, out_given = 0;
     for (int i = 1; i < argc; i++) {
         if (strcmp(argv[i], "-h") == 0 || strcmp(argv[i], "--help") == 0) {
             fputs(HELP, stdout);
             return EXIT_OK;
         }
-        return cli_usage_error("demo", "takes no arguments, got '%s'", argv[i]);
+        if (strcmp(argv[i], "--no-files") == 0) {
+            no_files = 1;
+        } else if (strcmp(argv[i], "--out") == 0) {
+            if (++i >= argc || !*argv[i])
+                return cli_usage_error("demo", "--out needs a folder");
+            files.dir = argv[i];
+            out_given = 1;
+        } else {
+            return cli_usage_error("demo", "unknown option '%s'", argv[i]);
+        }
+    }
+    if (no_files && out_given)
+        return cli_usage_error("demo", "--out and --no-files: choose one");
+    if (no_files) {
+        files.dir = NULL;
+    } else if (mkdir(files.dir, 0755) != 0 && errno != EEXIST) {
+        fprintf(stderr, "dragarc: demo --out: cannot make folder %s: %s\n", files.dir, strerror(errno));
+        return EXIT_BAD_INPUT;
+    } else {
+        struct stat st;
+        if (stat(files.dir, &st) != 0 || !S_ISDIR(st.st_mode)) {
+            fprintf(stderr, "dragarc: demo --out: %s is not a folder\n", files.dir);
+            return EXIT_BAD_INPUT;
+        }
     }
     puts("dragarc demo: invented scenarios, one for each kind of user, and one ball at two venues.\n");
     int status_extra;
@@ -316,12 +436,21 @@ int cmd_demo(int argc, char **argv)
             printf("  drag relaxation time %.3g s (terminal speed / g) against a %.3g s flight: %s method\n",
                    f.relaxation_time, f.time_of_flight, dragarc_method_name(f.method));
         dragarc_text_wrap(stdout, "  What it shows: ", 4, 100, CASES[k].explain);
-        if ((k == 0 && demo_aim(&s, 70.0) != EXIT_OK) || (k == 1 && demo_table(&s) != EXIT_OK)) {
+        int st = EXIT_OK;
+        if (k < sizeof CASE_PICTURE / sizeof CASE_PICTURE[0] && CASE_PICTURE[k])
+            st = demo_plot_flight(&files, CASE_PICTURE[k], &s, &f);
+        if (st == EXIT_OK && k == 0)
+            st = demo_aim(&s, 70.0, &files);
+        if (st == EXIT_OK && k == 1)
+            st = demo_table(&s, &files);
+        if (st == EXIT_OK && k == 3)
+            st = demo_report_flight(&files, "report-saltmarsh-links.html", &s, &f);
+        if (st != EXIT_OK) {
             dragarc_flight_clear(&f);
             dragarc_scenario_clear(&s);
             if (have_last)
                 dragarc_scenario_clear(&last);
-            return EXIT_FAILED;
+            return st;
         }
         if (k >= 3) {
             carry[k - 3] = f.range, total[k - 3] = f.total_distance;
@@ -338,13 +467,19 @@ int cmd_demo(int argc, char **argv)
         have_last = 1;
         dragarc_flight_clear(&f);
     }
-    if ((status_extra = demo_sprinkler(&notes)) != EXIT_OK || (status_extra = demo_drift(&notes)) != EXIT_OK ||
+    if ((status_extra = demo_sprinkler(&notes, &files)) != EXIT_OK ||
+        (status_extra = demo_drift(&notes, &files)) != EXIT_OK ||
         (status_extra = demo_footprint(&notes)) != EXIT_OK) {
         dragarc_scenario_clear(&last);
         return status_extra;
     }
     /* One list of cautions for the whole demo: the model limits plus whatever any case called for. */
     dragarc_cautions_print(stdout, notes, 100);
+    if (files.dir) {
+        printf("\nPictures and a report, written into %s/ (open the .html file in a browser):\n", files.dir);
+        for (size_t i = 0; i < files.count; i++)
+            printf("  %s\n", files.names[i]);
+    }
     puts("\nNext: 'dragarc fly SCENARIO' with a scenario file of your own (docs/scenario.md).");
     dragarc_scenario_clear(&last);
     return EXIT_OK;
