@@ -60,25 +60,10 @@ static int demo_wrote(demo_files *o, const char *name, int rc, dragarc_error *er
     return EXIT_OK;
 }
 
-/* The picture of flight f of scenario s (flown again with about 600 samples, as `fly --plot` does) as `name`. */
-static int demo_plot_flight(demo_files *o, const char *name, const dragarc_scenario *s, const dragarc_flight *f)
-{
-    char path[4200];
-    if (!demo_path(o, name, path, sizeof path))
-        return EXIT_OK;
-    cli_fly_options fo;
-    memset(&fo, 0, sizeof fo);
-    dragarc_flight sampled;
-    dragarc_error err;
-    int rc = cli_fly_sampled(s, f, &fo, &sampled, &err);
-    if (rc == DRAGARC_OK)
-        rc = dragarc_flight_plot(path, s, &sampled, NULL, NULL, &err);
-    dragarc_flight_clear(&sampled);
-    return demo_wrote(o, name, rc, &err);
-}
-
-/* The fly report of flight f of scenario s as `name`. */
-static int demo_report_flight(demo_files *o, const char *name, const dragarc_scenario *s, const dragarc_flight *f)
+/* The picture (report 0) or the fly report (report 1) of flight f of scenario s as `name`, from the flight flown
+ * again with about 600 samples, as `fly --plot` does. */
+static int demo_flight_file(demo_files *o, const char *name, int report, const dragarc_scenario *s,
+                            const dragarc_flight *f)
 {
     char path[4200];
     if (!demo_path(o, name, path, sizeof path))
@@ -89,11 +74,10 @@ static int demo_report_flight(demo_files *o, const char *name, const dragarc_sce
     dragarc_error err;
     dragarc_report *r = NULL;
     int rc = cli_fly_sampled(s, f, &fo, &sampled, &err);
-    if (rc == DRAGARC_OK)
-        rc = dragarc_report_new(&r, s->name, "fly", &err);
-    if (rc == DRAGARC_OK)
-        rc = dragarc_report_fly(r, "dragarc demo", s, f, &sampled, NULL, NULL, &err);
-    if (rc == DRAGARC_OK)
+    if (rc == DRAGARC_OK && !report)
+        rc = dragarc_flight_plot(path, s, &sampled, NULL, NULL, &err);
+    if (rc == DRAGARC_OK && report && (rc = dragarc_report_new(&r, s->name, "fly", &err)) == DRAGARC_OK &&
+        (rc = dragarc_report_fly(r, "dragarc demo", s, f, &sampled, NULL, NULL, &err)) == DRAGARC_OK)
         rc = dragarc_report_write_html(r, path, &err);
     dragarc_report_free(r);
     dragarc_flight_clear(&sampled);
@@ -438,13 +422,13 @@ int cmd_demo(int argc, char **argv)
         dragarc_text_wrap(stdout, "  What it shows: ", 4, 100, CASES[k].explain);
         int st = EXIT_OK;
         if (k < sizeof CASE_PICTURE / sizeof CASE_PICTURE[0] && CASE_PICTURE[k])
-            st = demo_plot_flight(&files, CASE_PICTURE[k], &s, &f);
+            st = demo_flight_file(&files, CASE_PICTURE[k], 0, &s, &f);
         if (st == EXIT_OK && k == 0)
             st = demo_aim(&s, 70.0, &files);
         if (st == EXIT_OK && k == 1)
             st = demo_table(&s, &files);
         if (st == EXIT_OK && k == 3)
-            st = demo_report_flight(&files, "report-saltmarsh-links.html", &s, &f);
+            st = demo_flight_file(&files, "report-saltmarsh-links.html", 1, &s, &f);
         if (st != EXIT_OK) {
             dragarc_flight_clear(&f);
             dragarc_scenario_clear(&s);
