@@ -369,8 +369,19 @@ static void draw_arrow(const frame *fr, const dragarc_plot_arrow *a)
     plline(2, lx, ly);
     plwidth(1.0);
     plfill(3, tx, ty);
-    if (a->label)
+    if (a->label) {
+        /* on a white ground, so that a map or curves under it do not hide it: its width from the character height
+         * (plgchr, mm) at about 0.6 of it per character, generous for the sans-serif fonts fontconfig gives */
+        PLFLT def, ht;
+        plgchr(&def, &ht);
+        double w = 0.6 * ht * (double)strlen(a->label) + 2.0, x0 = 0.9 * ARROW_MM - 1.0;
+        PLFLT bx[4] = {PX(x0), PX(x0 + w), PX(x0 + w), PX(x0)};
+        PLFLT by[4] = {PY(-0.8 * ht), PY(-0.8 * ht), PY(0.8 * ht), PY(0.8 * ht)};
+        plcol0(0);
+        plfill(4, bx, by);
+        plcol0(PAL0 + a->colour);
         plptex(PX(0.9 * ARROW_MM), PY(0.0), fr->wx1 - fr->wx0, 0.0, 0.0, a->label);
+    }
 #undef PX
 #undef PY
 }
