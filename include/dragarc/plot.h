@@ -118,6 +118,7 @@ typedef struct dragarc_plot_panel {
     const dragarc_plot_raster *raster; /* NULL: none */
     const char *scale_bar_unit; /* non-NULL: a scale bar of a round length along x, in this unit, at the lower right */
     int north_arrow;            /* 1: an arrow marked N at the upper right, pointing up the page (y is north) */
+    const char *note;           /* non-NULL: one line of small print under the x axis's label (a caution) */
 } dragarc_plot_panel;
 
 /* A figure: one page of panels stacked top to bottom. Borrows the panels. */

@@ -189,8 +189,8 @@ int dragarc_footprint_plot(const char *path, const struct dragarc_footprint_spec
     const char *name = o && o->title ? o->title : spec->base.name[0] ? spec->base.name : "footprint";
     char title[2][256], xl[96], yl[96], thinned[96] = "";
     if (step > 1)
-        snprintf(thinned, sizeof thinned, " (every %zu%s of %zu shown)", step, ordinal_suffix(step), landed);
-    snprintf(title[0], sizeof title[0], "%s: where %zu samples land%s", name, landed, thinned);
+        snprintf(thinned, sizeof thinned, ", every %zu%s drawn", step, ordinal_suffix(step));
+    snprintf(title[0], sizeof title[0], "%s: %zu impacts%s", name, landed, thinned);
     snprintf(title[1], sizeof title[1], "%s: fragments per km\xc2\xb2 and the contours", name);
     snprintf(xl, sizeof xl, "east of the point below the breakup (%s)", unit);
     snprintf(yl, sizeof yl, "north of the point below the breakup (%s)", unit);
@@ -200,7 +200,8 @@ int dragarc_footprint_plot(const char *path, const struct dragarc_footprint_spec
          .north_arrow = 1},
         {.title = title[1], .xlabel = xl, .ylabel = yl, .series = dens, .nseries = ndens, .equal_scale = 1,
          .limits_given = 1, .xmin = lim[0], .xmax = lim[1], .ymin = lim[2], .ymax = lim[3],
-         .raster = s->grid_ok ? &raster : NULL, .scale_bar_unit = unit, .north_arrow = 1},
+         .raster = s->grid_ok ? &raster : NULL, .scale_bar_unit = unit, .north_arrow = 1,
+         .note = "An estimate from point-mass fragments: hazard areas are set by the safety authority."},
     };
     dragarc_plot_figure fig = {.panels = panels, .npanels = 2, .page_height = 1080.0};
     int rc = dragarc_plot_write(path, &fig, err);

@@ -560,6 +560,11 @@ static void draw_panel(const dragarc_plot_panel *p, PLFLT *x, PLFLT *y, PLFLT ch
     plbox("bcnst", 0.0, 0, "bcnstv", 0.0, 0);
     plmtex("b", 3.0, 0.5, 0.5, p->xlabel ? p->xlabel : "");
     plmtex("l", 5.2, 0.5, 0.5, p->ylabel ? p->ylabel : "");
+    if (p->note) { /* small print, a line and a half below the label */
+        plschr(0.0, 0.8 * chr);
+        plmtex("b", 5.9, 0.5, 0.5, p->note);
+        plschr(0.0, chr);
+    }
     frame fr;
     frame_get(&fr, lim[0], lim[1], y0, y1);
     for (size_t k = 0; k < p->nseries; k++)

@@ -17,6 +17,7 @@
 
 #include "check.h"
 #include "dragarc/flight.h"
+#include "dragarc/footprint.h"
 #include "dragarc/plot.h"
 
 #define PI 3.14159265358979323846
@@ -274,6 +275,72 @@ TEST(a_map_with_a_colour_map_rings_and_a_filled_area)
     CHECK(entries() == 0);
 }
 
+/* Small markers (a cloud of impact points) are drawn; a marker size that is not a number, or over 20 mm, is
+ * refused before anything is written. */
+TEST(markers_take_their_size_and_a_bad_size_is_refused)
+{
+    double x[3] = {0, 1, 2}, y[3] = {0, 1, 0};
+    dragarc_plot_series s = {.label = "dots", .x = x, .y = y, .n = 3, .style = DRAGARC_PLOT_MARKERS,
+                             .marker = DRAGARC_PLOT_CROSS, .marker_size = 0.45};
+    dragarc_plot_panel p = {.title = "dots", .series = &s, .nseries = 1};
+    dragarc_plot_figure fig = {.panels = &p, .npanels = 1};
+    char path[128];
+    snprintf(path, sizeof path, "%s/dots.png", dir);
+    dragarc_error e;
+    CHECK(dragarc_plot_write(path, &fig, &e) == DRAGARC_OK);
+    CHECK(entries() == 1);
+    remove(path);
+    s.marker_size = NAN;
+    CHECK_ERROR(dragarc_plot_write(path, &fig, &e), DRAGARC_EINVAL, e, "", "a marker size outside 0 to 20 mm");
+    s.marker_size = 25.0;
+    CHECK_ERROR(dragarc_plot_write(path, &fig, &e), DRAGARC_EINVAL, e, "", "a marker size outside 0 to 20 mm");
+    CHECK(entries() == 0);
+}
+
+/* The footprint figure of a run made by hand: nothing landed is refused and writes nothing; three landed samples
+ * (one above the hazard energy) without ellipses or a grid still make a complete file, and the impacts and the
+ * summary are not touched. */
+TEST(a_footprint_plot_needs_a_landing_and_changes_nothing)
+{
+    dragarc_footprint_spec spec;
+    memset(&spec, 0, sizeof spec);
+    dragarc_fragment_class cls;
+    memset(&cls, 0, sizeof cls);
+    snprintf(cls.name, sizeof cls.name, "plate");
+    spec.classes = &cls, spec.nclasses = 1, spec.samples = 3;
+    spec.hazard.energy_threshold = 50.0;
+    dragarc_impact im[3];
+    memset(im, 0, sizeof im);
+    for (int k = 0; k < 3; k++)
+        im[k] = (dragarc_impact){.cls = 0, .sample = (uint32_t)k, .status = DRAGARC_ENOLAND, .weight = 1.0,
+                                 .east = 100.0 * k, .north = -50.0 * k, .energy = 30.0 * k};
+    dragarc_footprint_group groups[2];
+    memset(groups, 0, sizeof groups);
+    dragarc_footprint_summary sum;
+    memset(&sum, 0, sizeof sum);
+    sum.ngroups = 2, sum.groups = groups;
+    char path[128];
+    snprintf(path, sizeof path, "%s/footprint.svg", dir);
+    dragarc_error e;
+    CHECK_ERROR(dragarc_footprint_plot(path, &spec, im, &sum, NULL, &e), DRAGARC_EINVAL, e, "", "no fragment landed");
+    CHECK(entries() == 0);
+    for (int k = 0; k < 3; k++)
+        im[k].status = DRAGARC_OK;
+    dragarc_impact before[3];
+    memcpy(before, im, sizeof im);
+    dragarc_footprint_plot_options o = {.title = "by hand"};
+    int rc = dragarc_footprint_plot(path, &spec, im, &sum, &o, &e);
+    CHECK(rc == DRAGARC_OK);
+    if (rc != DRAGARC_OK)
+        printf("  %s\n", e.message);
+    unsigned char buf[5];
+    long size = head(path, buf, 5);
+    CHECK(size > 5000 && size < 5000000 && memcmp(buf, "<?xml", 5) == 0);
+    CHECK(memcmp(before, im, sizeof im) == 0 && sum.ngroups == 2 && !sum.grid_ok);
+    CHECK(entries() == 1);
+    remove(path);
+}
+
 int main(void)
 {
     dragarc_init();
@@ -290,6 +357,8 @@ int main(void)
     RUN(a_file_in_place_is_replaced_only_when_the_new_one_is_complete);
     RUN(a_flight_plot_needs_samples);
     RUN(a_map_with_a_colour_map_rings_and_a_filled_area);
+    RUN(markers_take_their_size_and_a_bad_size_is_refused);
+    RUN(a_footprint_plot_needs_a_landing_and_changes_nothing);
     rmdir(dir);
     return check_summary();
 }
