@@ -10,30 +10,15 @@
 # usage: check_plots_footprint.py DRAGARC_BINARY SOURCE_DIR
 # Prints "ok NAME" or "FAIL NAME: why" per check, then "N passed, M failed"; exits 1 if any failed.
 #
-# The formats' signatures: SVG is XML whose root is <svg> in the SVG namespace (W3C, Scalable Vector Graphics 1.1,
-# 2011); PNG opens with the 8-byte signature 89 50 4E 47 0D 0A 1A 0A and then the IHDR chunk holding the width and
-# height (W3C/ISO 15948, PNG specification, sections 5.2 and 11.2.2); PDF opens with "%PDF-" and ends with "%%EOF"
-# and an optional end of line (ISO 32000-1:2008, 7.5.2 and 7.5.5).
+# The formats' signatures and the tally: plot_files.py.
 
 import json
 import os
-import struct
 import subprocess
 import sys
 import tempfile
-import xml.etree.ElementTree as ET
 
-passed = failed = 0
-
-
-def check(name, ok, why=""):
-    global passed, failed
-    if ok:
-        passed += 1
-        print(f"ok   {name}")
-    else:
-        failed += 1
-        print(f"FAIL {name}: {why}")
+from plot_files import check, png_size, tally, validate
 
 
 def run(*args, env=None):  # dragarc footprint SCENARIO --samples 60 ARGS... in WORK
@@ -44,30 +29,6 @@ def run(*args, env=None):  # dragarc footprint SCENARIO --samples 60 ARGS... in 
     p = subprocess.run([BIN, "footprint", SCENARIO, "--samples", "60", "--quiet", *args], capture_output=True, env=e,
                        cwd=WORK, timeout=120)
     return p.returncode, p.stdout, p.stderr.decode("utf-8", "replace")
-
-
-def valid_svg(path):
-    root = ET.parse(path).getroot()
-    return root.tag == "{http://www.w3.org/2000/svg}svg", f"root element {root.tag}"
-
-
-def valid_png(path):
-    with open(path, "rb") as f:
-        b = f.read(33)
-    if b[:8] != b"\x89PNG\r\n\x1a\n":
-        return False, "no PNG signature"
-    length, kind = struct.unpack(">I4s", b[8:16])
-    if kind != b"IHDR" or length != 13:
-        return False, "no IHDR chunk first"
-    w, h = struct.unpack(">II", b[16:24])
-    # the footprint's page: 600 x 1080 points at 108 pixels an inch
-    return (w, h) == (900, 1620), f"{w} x {h} pixels"
-
-
-def valid_pdf(path):
-    with open(path, "rb") as f:
-        b = f.read()
-    return b.startswith(b"%PDF-") and b.rstrip(b"\r\n").endswith(b"%%EOF"), "no %PDF- header or %%EOF trailer"
 
 
 def read(name):
@@ -100,8 +61,7 @@ with tempfile.TemporaryDirectory(prefix="dragarc-fpplots.") as WORK:
     clear()
 
     # 2. every format, with --json and the files: valid, plausible, stderr empty, every number unchanged
-    validators = {"svg": valid_svg, "png": valid_png, "pdf": valid_pdf}
-    for ext, valid in validators.items():
+    for ext in ("svg", "png", "pdf"):
         name = f"plot.{ext}"
         rc, out, err = run("--json", *OUTPUTS, "--plot", name)
         check(f"{ext}: exit 0 and empty stderr", rc == 0 and err == "", f"exit {rc}, stderr {err!r}")
@@ -115,11 +75,10 @@ with tempfile.TemporaryDirectory(prefix="dragarc-fpplots.") as WORK:
         size = os.path.getsize(path)
         # two maps with a colour map, 180 points and text: more than an empty page, far less than a runaway one
         check(f"{ext}: plausible size", 20_000 < size < 5_000_000, f"{size} bytes")
-        try:
-            ok, why = valid(path)
-        except ET.ParseError as e:
-            ok, why = False, f"not XML: {e}"
+        ok, why = validate(path, ext)
         check(f"{ext}: valid {ext.upper()}", ok, why)
+        if ext == "png":  # the footprint's page: 600 x 1080 points at 108 pixels an inch
+            check("png: 900 x 1620 pixels", png_size(path) == (900, 1620), f"{png_size(path)}")
         left = sorted(os.listdir(WORK))
         check(f"{ext}: no temporary file left", left == sorted([name, "p.csv", "g.csv", "f.geojson"]), f"{left}")
         clear()
@@ -152,5 +111,5 @@ with tempfile.TemporaryDirectory(prefix="dragarc-fpplots.") as WORK:
         left = [f for f in os.listdir(WORK) if f != os.path.basename(empty_drivers)]
         check(f"{name}: no file left", left == [] and os.listdir(empty_drivers) == [], f"left {left}")
 
-print(f"{passed} passed, {failed} failed")
-sys.exit(1 if failed else 0)
+print(f"{tally['passed']} passed, {tally['failed']} failed")
+sys.exit(1 if tally["failed"] else 0)

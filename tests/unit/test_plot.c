@@ -51,6 +51,17 @@ static long head(const char *path, unsigned char *buf, size_t n)
     return got == n ? size : -1;
 }
 
+/* A drawing that succeeded (rc, e) and left an SVG file of plausible size at path. */
+static void check_svg_written(int rc, const dragarc_error *e, const char *path)
+{
+    CHECK(rc == DRAGARC_OK);
+    if (rc != DRAGARC_OK)
+        printf("  %s\n", e->message);
+    unsigned char buf[5];
+    long size = head(path, buf, 5);
+    CHECK(size > 5000 && size < 5000000 && memcmp(buf, "<?xml", 5) == 0);
+}
+
 TEST(formats_follow_the_extension_in_any_case)
 {
     dragarc_plot_format f = DRAGARC_PLOT_PDF;
@@ -248,12 +259,7 @@ TEST(a_map_with_a_colour_map_rings_and_a_filled_area)
     snprintf(path, sizeof path, "%s/map.svg", dir);
     dragarc_error e;
     int rc = dragarc_plot_write(path, &fig, &e);
-    CHECK(rc == DRAGARC_OK);
-    if (rc != DRAGARC_OK)
-        printf("  %s\n", e.message);
-    unsigned char buf[5];
-    long size = head(path, buf, 5);
-    CHECK(size > 5000 && size < 5000000 && memcmp(buf, "<?xml", 5) == 0);
+    check_svg_written(rc, &e, path);
     /* the page is 600 x 560 points, as asked */
     FILE *f = fopen(path, "r");
     char text[4096] = "";
@@ -330,12 +336,7 @@ TEST(a_footprint_plot_needs_a_landing_and_changes_nothing)
     memcpy(before, im, sizeof im);
     dragarc_footprint_plot_options o = {.title = "by hand"};
     int rc = dragarc_footprint_plot(path, &spec, im, &sum, &o, &e);
-    CHECK(rc == DRAGARC_OK);
-    if (rc != DRAGARC_OK)
-        printf("  %s\n", e.message);
-    unsigned char buf[5];
-    long size = head(path, buf, 5);
-    CHECK(size > 5000 && size < 5000000 && memcmp(buf, "<?xml", 5) == 0);
+    check_svg_written(rc, &e, path);
     CHECK(memcmp(before, im, sizeof im) == 0 && sum.ngroups == 2 && !sum.grid_ok);
     CHECK(entries() == 1);
     remove(path);
