@@ -110,12 +110,13 @@ int dragarc_footprint_plot(const char *path, const struct dragarc_footprint_spec
     snprintf(lab_above, sizeof lab_above, "impact, %.3g J or more", spec->hazard.energy_threshold);
     dragarc_plot_series map[5 + MAX_CLASS_ELLIPSES + 2];
     size_t nmap = 0;
-    map[nmap++] = (dragarc_plot_series){.label = lab_below, .x = px, .y = py, .n = np, .style = DRAGARC_PLOT_MARKERS,
-                                        .colour = DRAGARC_PLOT_SKY_BLUE, .marker = DRAGARC_PLOT_CIRCLE,
-                                        .marker_size = POINT_MM};
-    map[nmap++] = (dragarc_plot_series){.label = lab_above, .x = hx, .y = hy, .n = nh, .style = DRAGARC_PLOT_MARKERS,
-                                        .colour = DRAGARC_PLOT_VERMILLION, .marker = DRAGARC_PLOT_CROSS,
-                                        .marker_size = 1.3 * POINT_MM};
+    /* a kind of impact that does not occur is left out of the legend */
+    map[nmap++] = (dragarc_plot_series){.label = np ? lab_below : NULL, .x = px, .y = py, .n = np,
+                                        .style = DRAGARC_PLOT_MARKERS, .colour = DRAGARC_PLOT_SKY_BLUE,
+                                        .marker = DRAGARC_PLOT_CIRCLE, .marker_size = POINT_MM};
+    map[nmap++] = (dragarc_plot_series){.label = nh ? lab_above : NULL, .x = hx, .y = hy, .n = nh,
+                                        .style = DRAGARC_PLOT_MARKERS, .colour = DRAGARC_PLOT_VERMILLION,
+                                        .marker = DRAGARC_PLOT_CROSS, .marker_size = 1.3 * POINT_MM};
     if (all->ellipses_ok) {
         static const char *const name[2] = {"1 sigma, all", "3 sigma, all"};
         for (int k = 0; k < 2; k++) {
@@ -133,9 +134,10 @@ int dragarc_footprint_plot(const char *path, const struct dragarc_footprint_spec
         double *x = ex + (2 + c) * nring, *y = ey + (2 + c) * nring;
         ellipse_ring(&g->ellipse[2], scale, x, y);
         enclose(lim, x, y, nring);
-        snprintf(lab_cls[c], sizeof lab_cls[c], "3 sigma, %.60s", spec->classes[c].name[0] ? spec->classes[c].name : "class");
-        map[nmap++] = (dragarc_plot_series){.label = lab_cls[c], .x = x, .y = y, .n = nring, .style = DRAGARC_PLOT_DOTTED,
-                                            .colour = CLASS_COLOUR[c]};
+        const char *cname = spec->classes[c].name[0] ? spec->classes[c].name : "class";
+        snprintf(lab_cls[c], sizeof lab_cls[c], "3 sigma, %.60s", cname);
+        map[nmap++] = (dragarc_plot_series){.label = lab_cls[c], .x = x, .y = y, .n = nring,
+                                            .style = DRAGARC_PLOT_DOTTED, .colour = CLASS_COLOUR[c]};
     }
     double zero = 0.0, mean[2] = {scale * all->mean[0], scale * all->mean[1]};
     map[nmap++] = (dragarc_plot_series){.label = "below the breakup", .x = &zero, .y = &zero, .n = 1,
