@@ -85,6 +85,7 @@ typedef struct dragarc_plot_series {
     dragarc_plot_style style;
     dragarc_plot_colour colour;
     dragarc_plot_marker marker; /* DRAGARC_PLOT_MARKERS only */
+    double marker_size;         /* mm, a marker's radius on the page; 0: 1.6 (small ones, ~0.5, for clouds of points) */
 } dragarc_plot_series;
 
 /* An arrow of fixed length on the page, drawn at a corner of a panel, pointing along (dx, dy) in the axis
@@ -127,6 +128,7 @@ typedef struct dragarc_plot_panel {
     const dragarc_plot_raster *raster; /* NULL: none */
     const char *scale_bar_unit; /* non-NULL: a scale bar of a round length along x, in this unit, at the lower right */
     int north_arrow;            /* 1: an arrow marked N at the upper right, pointing up the page (y is north) */
+    const char *note;           /* non-NULL: one line of small print under the x axis's label (a caution) */
 } dragarc_plot_panel;
 
 /* A figure: one page of panels stacked top to bottom. Borrows the panels. */
@@ -212,6 +214,30 @@ int dragarc_sprinkler_plot(const char *path, const dragarc_sprinkler_spec *spec,
  * DRAGARC_EINVAL when nothing was deposited. */
 int dragarc_drift_plot(const char *path, const dragarc_drift_spec *spec, const dragarc_spectrum_class *classes,
                        const dragarc_drift_result *r, const char *title, dragarc_error *err);
+/* ---- the pictures of a debris footprint (src/io/footprint_plot.c; described in docs/plots.md) ---- */
+
+struct dragarc_footprint_spec;
+struct dragarc_footprint_summary;
+struct dragarc_impact;
+
+/* The most impact points a footprint plot draws; above it, every k-th landed sample (k the smallest that fits),
+ * and the panel's title says so. */
+#define DRAGARC_FOOTPRINT_PLOT_POINTS 12000
+
+typedef struct dragarc_footprint_plot_options {
+    const char *title; /* names the scenario in every panel's title (NULL: the scenario's name) */
+} dragarc_footprint_plot_options;
+
+/* The `footprint --plot` figure of a run (spec, its impacts and their summary s) into path: a map of the impact
+ * points (those at or above the hazard energy with their own marker), the 1 and 3 sigma ellipses of all fragments
+ * (and the 3 sigma ellipse of each class when there are at most four), the point below the breakup and the mean
+ * impact; and a map of the density of fragments per km^2 with the 90, 99 and 99.9 % contours. East and north of
+ * the point below the breakup, in m, or km when the maps span more than 5 km; equal scales, a scale bar and a
+ * north arrow. Reads only; the numbers of the run are not changed. Errors as dragarc_plot_write; DRAGARC_EINVAL
+ * when no sample landed. */
+int dragarc_footprint_plot(const char *path, const struct dragarc_footprint_spec *spec,
+                           const struct dragarc_impact *impacts, const struct dragarc_footprint_summary *s,
+                           const dragarc_footprint_plot_options *o, dragarc_error *err);
 
 #ifdef __cplusplus
 }

@@ -169,6 +169,12 @@ int dragarc_scatter_region_of(const dragarc_scatter_grid *g, double probability,
 /* Free what dragarc_scatter_region_of allocated; the struct may then be reused. NULL is fine. */
 void dragarc_scatter_region_clear(dragarc_scatter_region *r);
 
+/* Every ring of region r (each polygon's exterior, then its holes) one after another into x[] and y[], each
+ * followed by one NaN point that ends it (the form of plot.h's series), coordinates times scale (1e-3: km).
+ * Writes at most cap points (x and y may be NULL when cap is 0); returns how many the whole outline takes, so a
+ * first call with cap 0 sizes the arrays. r NULL or empty: 0. */
+size_t dragarc_scatter_region_outline(const dragarc_scatter_region *r, double scale, double *x, double *y, size_t cap);
+
 #ifdef __cplusplus
 }
 #endif

@@ -13,10 +13,11 @@
 #include "dragarc/footprint.h"
 #include "dragarc/geodesy.h"
 #include "dragarc/output.h"
+#include "dragarc/plot.h"
 
 static const char HELP[] =
     "usage: dragarc footprint SCENARIO [--samples N] [--seed S] [--json] [--points FILE.csv] [--grid FILE.csv]\n"
-    "                                  [--geojson FILE] [--quiet]\n"
+    "                                  [--geojson FILE] [--plot FILE.svg|png|pdf] [--quiet]\n"
     "\n"
     "Fly every fragment class of a breakup (its place, altitude and velocity with their spreads, each class's\n"
     "ballistic coefficient, drag law and the velocity the breakup gives it, through the scenario's air and wind;\n"
@@ -31,6 +32,10 @@ static const char HELP[] =
     "  --json           print one JSON object instead of the summary\n"
     "  --points FILE    every sample's impact as CSV; --grid FILE the density of impacts on the grid as CSV;\n"
     "                   --geojson FILE the footprint as GeoJSON (RFC 7946); each written whole or not at all\n"
+    "  --plot FILE      draw the impact points (those at or above the hazard energy marked apart), the 1 and 3\n"
+    "                   sigma ellipses and the density of fragments with its 90/99/99.9 % contours, east and\n"
+    "                   north of the point below the breakup, into FILE, an .svg, .png or .pdf file\n"
+    "                   (docs/plots.md); drawn first, so that a plot that fails leaves no other file\n"
     "  --quiet          no progress bar (it shows only when stderr is a terminal)\n"
     "  -h, --help       this help\n";
 
@@ -148,7 +153,7 @@ static int count_arg(const char *cmd, const char *opt, const char *text, double 
 
 int cmd_footprint(int argc, char **argv)
 {
-    const char *path = NULL, *points = NULL, *geojson = NULL, *grid = NULL;
+    const char *path = NULL, *points = NULL, *geojson = NULL, *grid = NULL, *plot = NULL;
     int json = 0, quiet = 0, st;
     double samples = -1.0, seed = -1.0;
     for (int i = 1; i < argc; i++) {
@@ -170,12 +175,24 @@ int cmd_footprint(int argc, char **argv)
             if (++i >= argc)
                 return cli_usage_error("footprint", "%s needs a file name", a);
             *(a[2] == 'p' ? &points : a[3] == 'e' ? &geojson : &grid) = argv[i];
+        } else if (strcmp(a, "--plot") == 0) {
+            if (++i >= argc)
+                return cli_usage_error("footprint", "--plot needs a file name ending in .svg, .png or .pdf");
+            plot = argv[i];
+            dragarc_plot_format fmt;
+            dragarc_error err;
+            if (dragarc_plot_format_from_path(plot, &fmt, &err) != DRAGARC_OK)
+                return cli_usage_error("footprint", "--plot: %s", err.message);
         } else if ((st = cli_file_argument("footprint", "scenario file", a, &path)) != 0) {
             return st;
         }
     }
     if (!path)
         return cli_usage_error("footprint", "needs a scenario file");
+    const char *files[3] = {points, grid, geojson}, *opts[3] = {"--points", "--grid", "--geojson"};
+    for (int k = 0; k < 3 && plot; k++)
+        if (files[k] && strcmp(files[k], plot) == 0)
+            return cli_usage_error("footprint", "--plot and %s name the same file '%s'", opts[k], plot);
     dragarc_footprint_spec spec;
     dragarc_error err;
     if (dragarc_footprint_spec_read(path, &spec, &err) != DRAGARC_OK)
@@ -212,6 +229,11 @@ int cmd_footprint(int argc, char **argv)
             status = cli_report(path, &err);
         else if (dragarc_footprint_summarise(&spec, im, h->population_given ? &pop : NULL, &sum, &err) != DRAGARC_OK)
             status = cli_report(path, &err);
+    }
+    /* the plot first: a plot that cannot be drawn (a driver, a folder) then leaves none of the other files */
+    if (status == EXIT_OK && plot && dragarc_footprint_plot(plot, &spec, im, &sum, NULL, &err) != DRAGARC_OK) {
+        err.field[0] = '\0';
+        status = cli_report("--plot", &err);
     }
     if (status == EXIT_OK && points) {
         const void *ctx[2] = {&spec, im};

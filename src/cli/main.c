@@ -27,7 +27,7 @@ static const char USAGE[] =
     "  sprinkler SCENARIO    a sprinkler's drops: where each size lands, the application-rate pattern (mm/h)\n"
     "  drift SCENARIO        spray drift: the deposit per metre downwind, the airborne share, drift distances\n"
     "  footprint SCENARIO    a breakup's debris by Monte Carlo: impact ellipses, contours, energies, casualty\n"
-    "                        expectation; JSON, CSV points, GeoJSON\n"
+    "                        expectation; JSON, CSV points, GeoJSON, plot\n"
     "  uniformity CATCH.csv  how evenly a catch-can test was watered: Christiansen's CU, the\n"
     "                        low-quarter DU, CV\n"
     "  report SCENARIO -o FILE.html [--command fly]\n"

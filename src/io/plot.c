@@ -201,8 +201,9 @@ static int check_figure(const dragarc_plot_figure *fig, dragarc_error *err)
             const dragarc_plot_series *s = &p->series[j];
             if ((s->n > 0 && (!s->x || !s->y)) || (int)s->colour < 0 || s->colour >= DRAGARC_PLOT_NCOLOURS ||
                 (int)s->style < 0 || s->style > DRAGARC_PLOT_FILLED || (int)s->marker < 0 ||
-                s->marker >= DRAGARC_PLOT_NMARKERS)
-                return dragarc_error_set(err, DRAGARC_EINVAL, "", "panel %zu, series %zu: no points, or an unknown style",
+                s->marker >= DRAGARC_PLOT_NMARKERS || !(s->marker_size >= 0.0 && s->marker_size <= 20.0))
+                return dragarc_error_set(err, DRAGARC_EINVAL, "", "panel %zu, series %zu: no points, an unknown style "
+                                         "or a marker size outside 0 to 20 mm",
                                          k + 1, j + 1);
         }
         const dragarc_plot_raster *r = p->raster;
@@ -283,18 +284,20 @@ static void draw_marker(const frame *fr, dragarc_plot_marker m, double x, double
     case DRAGARC_PLOT_CROSS: {
         PLFLT ax[2] = {x - r * fr->mx, x + r * fr->mx}, ay[2] = {y - r * fr->my, y + r * fr->my};
         PLFLT by[2] = {ay[1], ay[0]};
-        plwidth(2.5);
+        plwidth(r < 1.0 ? 1.2 : 2.5);
         plline(2, ax, ay);
         plline(2, ax, by);
         plwidth(1.0);
         return;
     }
-    default:
-        for (int i = 0; i < 20; i++, k++) {
-            double a = 2.0 * M_PI * i / 20.0;
+    default: { /* a small circle needs fewer sides to look round (and keeps a file of thousands of them small) */
+        int sides = r < 1.0 ? 10 : 20;
+        for (int i = 0; i < sides; i++, k++) {
+            double a = 2.0 * M_PI * i / sides;
             px[k] = x + r * cos(a) * fr->mx, py[k] = y + r * sin(a) * fr->my;
         }
         break;
+    }
     }
     plfill(k, px, py);
 }
@@ -330,7 +333,7 @@ static void draw_series(const frame *fr, const dragarc_plot_series *s, PLFLT *x,
     if (s->style == DRAGARC_PLOT_MARKERS) {
         PLINT m = finite_points(s, x, y);
         for (PLINT i = 0; i < m; i++)
-            draw_marker(fr, s->marker, x[i], y[i], MARKER_MM);
+            draw_marker(fr, s->marker, x[i], y[i], s->marker_size > 0.0 ? s->marker_size : MARKER_MM);
         return;
     }
     PLINT m = 0; /* the run being gathered: a point that is not finite ends it */
@@ -614,6 +617,11 @@ static void draw_panel(const dragarc_plot_panel *p, PLFLT *x, PLFLT *y, PLFLT ch
     plbox("bcnst", 0.0, 0, "bcnstv", 0.0, 0);
     plmtex("b", 3.0, 0.5, 0.5, p->xlabel ? p->xlabel : "");
     plmtex("l", 5.2, 0.5, 0.5, p->ylabel ? p->ylabel : "");
+    if (p->note) { /* small print, a line and a half below the label */
+        plschr(0.0, 0.8 * chr);
+        plmtex("b", 5.9, 0.5, 0.5, p->note);
+        plschr(0.0, chr);
+    }
     frame fr;
     frame_get(&fr, lim[0], lim[1], y0, y1);
     for (size_t k = 0; k < p->nseries; k++)

@@ -641,6 +641,29 @@ void dragarc_scatter_region_clear(dragarc_scatter_region *r)
     memset(r, 0, sizeof *r);
 }
 
+/* One ring and the break after it, scaled, at x + m, y + m when it fits within cap. */
+static size_t outline_ring(const dragarc_scatter_ring *ring, double scale, double *x, double *y, size_t m, size_t cap)
+{
+    for (size_t i = 0; i < ring->n; i++, m++)
+        if (m < cap)
+            x[m] = scale * ring->xy[2 * i], y[m] = scale * ring->xy[2 * i + 1];
+    if (m < cap)
+        x[m] = y[m] = NAN;
+    return m + 1;
+}
+
+size_t dragarc_scatter_region_outline(const dragarc_scatter_region *r, double scale, double *x, double *y, size_t cap)
+{
+    size_t m = 0;
+    for (size_t k = 0; r && k < r->npolygons; k++) {
+        const dragarc_scatter_polygon *p = &r->polygons[k];
+        m = outline_ring(&p->exterior, scale, x, y, m, cap);
+        for (size_t h = 0; h < p->nholes; h++)
+            m = outline_ring(&p->holes[h], scale, x, y, m, cap);
+    }
+    return m;
+}
+
 /* Descending cell indices, to break ties in density (taken from the end: south row first, west first). */
 static int by_index_descending(const void *a, const void *b)
 {

@@ -8,31 +8,15 @@
 # usage: check_plots.py DRAGARC_BINARY TESTS_DATA_DIR
 # Prints "ok NAME" or "FAIL NAME: why" per check, then "N passed, M failed"; exits 1 if any failed.
 #
-# The formats' signatures: SVG is XML whose root is <svg> in the SVG namespace (W3C, Scalable Vector Graphics 1.1,
-# 2011); PNG opens with the 8-byte signature 89 50 4E 47 0D 0A 1A 0A and then the IHDR chunk holding the width and
-# height (W3C/ISO 15948, PNG specification, sections 5.2 and 11.2.2); PDF opens with "%PDF-" and ends with "%%EOF"
-# and an optional end of line (ISO 32000-1:2008, 7.5.2 and 7.5.5).
+# The formats' signatures and the tally: plot_files.py.
 
 import json
 import os
 import subprocess
 import sys
 import tempfile
-import xml.etree.ElementTree as ET
 
-sys.path.insert(0, os.path.dirname(os.path.abspath(__file__)))
-
-passed = failed = 0
-
-
-def check(name, ok, why=""):
-    global passed, failed
-    if ok:
-        passed += 1
-        print(f"ok   {name}")
-    else:
-        failed += 1
-        print(f"FAIL {name}: {why}")
+from plot_files import check, tally, valid_svg, validate
 
 
 def run(*args, env=None):  # dragarc fly ARGS... in WORK
@@ -42,9 +26,6 @@ def run(*args, env=None):  # dragarc fly ARGS... in WORK
         e.update(env)
     p = subprocess.run([BIN, "fly", *args], capture_output=True, env=e, cwd=WORK, timeout=120)
     return p.returncode, p.stdout, p.stderr.decode("utf-8", "replace")
-
-
-from check_plots_formats import valid_pdf, valid_png, valid_svg  # noqa: E402
 
 
 if len(sys.argv) != 3:
@@ -59,8 +40,7 @@ with tempfile.TemporaryDirectory(prefix="dragarc-plots.") as WORK:
     rc0, json0, err0 = run(SCENARIO, "--json")
     check("fly --json runs", rc0 == 0 and err0 == "" and json.loads(json0)["summary"]["range"] > 0,
           f"exit {rc0}, stderr {err0!r}")
-    validators = {"svg": valid_svg, "png": valid_png, "pdf": valid_pdf}
-    for ext, valid in validators.items():
+    for ext in ("svg", "png", "pdf"):
         name = f"plot.{ext}"
         rc, out, err = run(SCENARIO, "--json", "--plot", name)
         path = os.path.join(WORK, name)
@@ -72,10 +52,7 @@ with tempfile.TemporaryDirectory(prefix="dragarc-plots.") as WORK:
         size = os.path.getsize(path)
         # a page of three panels of lines and text: more than an empty page, far less than a runaway one
         check(f"{ext}: plausible size", 5_000 < size < 5_000_000, f"{size} bytes")
-        try:
-            ok, why = valid(path)
-        except ET.ParseError as e:
-            ok, why = False, f"not XML: {e}"
+        ok, why = validate(path, ext)
         check(f"{ext}: valid {ext.upper()}", ok, why)
         check(f"{ext}: no temporary file left", sorted(os.listdir(WORK)) == [name], f"{os.listdir(WORK)}")
         os.remove(path)
@@ -120,5 +97,5 @@ with tempfile.TemporaryDirectory(prefix="dragarc-plots.") as WORK:
         left = [f for f in os.listdir(WORK) if f != os.path.basename(empty_drivers)]
         check(f"{name}: no file left", left == [] and os.listdir(empty_drivers) == [], f"left {left}")
 
-print(f"{passed} passed, {failed} failed")
-sys.exit(1 if failed else 0)
+print(f"{tally['passed']} passed, {tally['failed']} failed")
+sys.exit(1 if tally["failed"] else 0)

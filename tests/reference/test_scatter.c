@@ -537,6 +537,34 @@ TEST(a_frame_of_cells_has_a_clockwise_hole)
     check_hand_region(rows, 5, 8, 1, want);
 }
 
+/* The outline of a region for plotting: the frame of eight cells (an exterior of 4 corners and a hole of 4, each
+ * ring closed: 5 points) is 5 + 1 + 5 + 1 points, each ring followed by a NaN break, the coordinates those of the
+ * rings times the scale; asked with too little room it writes no more than it may and still says what it needs. */
+TEST(a_region_outline_is_its_rings_scaled_each_ended_by_a_break)
+{
+    const char *rows[] = {".....", ".XXX.", ".X.X.", ".XXX.", "....."};
+    dragarc_scatter_region r;
+    region_of_rows(rows, 5, &r);
+    CHECK(dragarc_scatter_region_outline(&r, 1e-3, NULL, NULL, 0) == 12);
+    double x[13], y[13];
+    x[12] = y[12] = 7.0; /* beyond cap: must stay */
+    CHECK(dragarc_scatter_region_outline(&r, 1e-3, x, y, 12) == 12);
+    const dragarc_scatter_ring *ring[2] = {&r.polygons[0].exterior, &r.polygons[0].holes[0]};
+    for (int k = 0; k < 2; k++) {
+        CHECK(ring[k]->n == 5);
+        for (size_t i = 0; i < 5; i++) {
+            CHECK(x[6 * k + i] == 1e-3 * ring[k]->xy[2 * i]);
+            CHECK(y[6 * k + i] == 1e-3 * ring[k]->xy[2 * i + 1]);
+        }
+        CHECK(isnan(x[6 * k + 5]) && isnan(y[6 * k + 5]));
+    }
+    CHECK(x[12] == 7.0 && y[12] == 7.0);
+    x[3] = 7.0;
+    CHECK(dragarc_scatter_region_outline(&r, 1.0, x, y, 3) == 12 && x[3] == 7.0 && x[2] == ring[0]->xy[4]);
+    CHECK(dragarc_scatter_region_outline(NULL, 1.0, x, y, 3) == 0);
+    dragarc_scatter_region_clear(&r);
+}
+
 /* Two blobs apart: two polygons, in the order of their south-west cells (south row first, then west). */
 TEST(two_separate_blobs_are_two_polygons)
 {
@@ -819,6 +847,7 @@ int main(void)
     RUN(the_density_grid_keeps_the_total_weight_and_sizes_its_cells_by_scotts_rule);
     RUN(an_l_of_three_cells_is_one_ring_of_six_corners);
     RUN(a_frame_of_cells_has_a_clockwise_hole);
+    RUN(a_region_outline_is_its_rings_scaled_each_ended_by_a_break);
     RUN(two_separate_blobs_are_two_polygons);
     RUN(cells_touching_at_a_corner_are_two_polygons);
     RUN(a_hole_touching_the_outside_at_a_corner_is_cut_off_as_a_hole);

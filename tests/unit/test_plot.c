@@ -17,6 +17,7 @@
 
 #include "check.h"
 #include "dragarc/flight.h"
+#include "dragarc/footprint.h"
 #include "dragarc/plot.h"
 #include "helpers.h"
 
@@ -48,6 +49,17 @@ static long head(const char *path, unsigned char *buf, size_t n)
     long size = ftell(f);
     fclose(f);
     return got == n ? size : -1;
+}
+
+/* A drawing that succeeded (rc, e) and left an SVG file of plausible size at path. */
+static void check_svg_written(int rc, const dragarc_error *e, const char *path)
+{
+    CHECK(rc == DRAGARC_OK);
+    if (rc != DRAGARC_OK)
+        printf("  %s\n", e->message);
+    unsigned char buf[5];
+    long size = head(path, buf, 5);
+    CHECK(size > 5000 && size < 5000000 && memcmp(buf, "<?xml", 5) == 0);
 }
 
 TEST(formats_follow_the_extension_in_any_case)
@@ -262,12 +274,7 @@ TEST(a_map_with_a_colour_map_rings_and_a_filled_area)
     snprintf(path, sizeof path, "%s/map.svg", dir);
     dragarc_error e;
     int rc = dragarc_plot_write(path, &fig, &e);
-    CHECK(rc == DRAGARC_OK);
-    if (rc != DRAGARC_OK)
-        printf("  %s\n", e.message);
-    unsigned char buf[5];
-    long size = head(path, buf, 5);
-    CHECK(size > 5000 && size < 5000000 && memcmp(buf, "<?xml", 5) == 0);
+    check_svg_written(rc, &e, path);
     /* the page is 600 x 560 points, as asked */
     FILE *f = fopen(path, "r");
     char text[4096] = "";
@@ -417,6 +424,65 @@ TEST(an_aim_table_plot_needs_a_range_reached)
                 "no range of the aim table was reached");
     CHECK(entries() == 0);
     dragarc_scenario_clear(&s);
+/* Small markers (a cloud of impact points) are drawn; a marker size that is not a number, or over 20 mm, is
+ * refused before anything is written. */
+TEST(markers_take_their_size_and_a_bad_size_is_refused)
+{
+    double x[3] = {0, 1, 2}, y[3] = {0, 1, 0};
+    dragarc_plot_series s = {.label = "dots", .x = x, .y = y, .n = 3, .style = DRAGARC_PLOT_MARKERS,
+                             .marker = DRAGARC_PLOT_CROSS, .marker_size = 0.45};
+    dragarc_plot_panel p = {.title = "dots", .series = &s, .nseries = 1};
+    dragarc_plot_figure fig = {.panels = &p, .npanels = 1};
+    char path[128];
+    snprintf(path, sizeof path, "%s/dots.png", dir);
+    dragarc_error e;
+    CHECK(dragarc_plot_write(path, &fig, &e) == DRAGARC_OK);
+    CHECK(entries() == 1);
+    remove(path);
+    s.marker_size = NAN;
+    CHECK_ERROR(dragarc_plot_write(path, &fig, &e), DRAGARC_EINVAL, e, "", "a marker size outside 0 to 20 mm");
+    s.marker_size = 25.0;
+    CHECK_ERROR(dragarc_plot_write(path, &fig, &e), DRAGARC_EINVAL, e, "", "a marker size outside 0 to 20 mm");
+    CHECK(entries() == 0);
+}
+
+/* The footprint figure of a run made by hand: nothing landed is refused and writes nothing; three landed samples
+ * (one above the hazard energy) without ellipses or a grid still make a complete file, and the impacts and the
+ * summary are not touched. */
+TEST(a_footprint_plot_needs_a_landing_and_changes_nothing)
+{
+    dragarc_footprint_spec spec;
+    memset(&spec, 0, sizeof spec);
+    dragarc_fragment_class cls;
+    memset(&cls, 0, sizeof cls);
+    snprintf(cls.name, sizeof cls.name, "plate");
+    spec.classes = &cls, spec.nclasses = 1, spec.samples = 3;
+    spec.hazard.energy_threshold = 50.0;
+    dragarc_impact im[3];
+    memset(im, 0, sizeof im);
+    for (int k = 0; k < 3; k++)
+        im[k] = (dragarc_impact){.cls = 0, .sample = (uint32_t)k, .status = DRAGARC_ENOLAND, .weight = 1.0,
+                                 .east = 100.0 * k, .north = -50.0 * k, .energy = 30.0 * k};
+    dragarc_footprint_group groups[2];
+    memset(groups, 0, sizeof groups);
+    dragarc_footprint_summary sum;
+    memset(&sum, 0, sizeof sum);
+    sum.ngroups = 2, sum.groups = groups;
+    char path[128];
+    snprintf(path, sizeof path, "%s/footprint.svg", dir);
+    dragarc_error e;
+    CHECK_ERROR(dragarc_footprint_plot(path, &spec, im, &sum, NULL, &e), DRAGARC_EINVAL, e, "", "no fragment landed");
+    CHECK(entries() == 0);
+    for (int k = 0; k < 3; k++)
+        im[k].status = DRAGARC_OK;
+    dragarc_impact before[3];
+    memcpy(before, im, sizeof im);
+    dragarc_footprint_plot_options o = {.title = "by hand"};
+    int rc = dragarc_footprint_plot(path, &spec, im, &sum, &o, &e);
+    check_svg_written(rc, &e, path);
+    CHECK(memcmp(before, im, sizeof im) == 0 && sum.ngroups == 2 && !sum.grid_ok);
+    CHECK(entries() == 1);
+    remove(path);
 }
 
 int main(void)
@@ -440,6 +506,8 @@ int main(void)
     RUN(an_aim_plot_draws_each_solution_flown_onto_the_target);
     RUN(a_table_plot_draws_two_parameters_and_refuses_what_it_cannot_show);
     RUN(an_aim_table_plot_needs_a_range_reached);
+    RUN(markers_take_their_size_and_a_bad_size_is_refused);
+    RUN(a_footprint_plot_needs_a_landing_and_changes_nothing);
     rmdir(dir);
     return check_summary();
 }
