@@ -257,7 +257,7 @@ static const char BREAKUP[] =
     " \"environment\": {\"wind\": {\"model\": \"layered\", \"layers\": [{\"height\": 0, \"speed\": 5, \"from\": 250},"
     "   {\"height\": 10000, \"speed\": 25, \"from\": 270}]}}}";
 
-static int demo_footprint(unsigned *notes)
+static int demo_footprint(unsigned *notes, demo_files *o)
 {
     dragarc_footprint_spec sp;
     dragarc_error err;
@@ -290,6 +290,9 @@ static int demo_footprint(unsigned *notes)
                           "Range-safety authorities, not this estimate, set hazard areas.");
         putchar('\n');
         *notes |= DRAGARC_NOTE_DEBRIS;
+        char path[4200];
+        if (demo_path(o, "8-debris-footprint.svg", path, sizeof path))
+            rc = demo_wrote(o, "8-debris-footprint.svg", dragarc_footprint_plot(path, &sp, im, &s, NULL, &err), &err);
     } else {
         rc = cli_report("demo", &err);
     }
@@ -453,7 +456,7 @@ int cmd_demo(int argc, char **argv)
     }
     if ((status_extra = demo_sprinkler(&notes, &files)) != EXIT_OK ||
         (status_extra = demo_drift(&notes, &files)) != EXIT_OK ||
-        (status_extra = demo_footprint(&notes)) != EXIT_OK) {
+        (status_extra = demo_footprint(&notes, &files)) != EXIT_OK) {
         dragarc_scenario_clear(&last);
         return status_extra;
     }

@@ -16,23 +16,11 @@
 # and an optional end of line (ISO 32000-1:2008, 7.5.2 and 7.5.5).
 
 import os
-import struct
 import subprocess
 import sys
 import tempfile
-import xml.etree.ElementTree as ET
 
-passed = failed = 0
-
-
-def check(name, ok, why=""):
-    global passed, failed
-    if ok:
-        passed += 1
-        print(f"ok   {name}")
-    else:
-        failed += 1
-        print(f"FAIL {name}: {why}")
+from plot_files import VALIDATORS, check, tally
 
 
 def run(*args):  # dragarc ARGS... in WORK
@@ -42,33 +30,7 @@ def run(*args):  # dragarc ARGS... in WORK
     return p.returncode, p.stdout, p.stderr.decode("utf-8", "replace")
 
 
-def valid_svg(path):
-    try:
-        root = ET.parse(path).getroot()
-    except ET.ParseError as e:
-        return False, f"not XML: {e}"
-    return root.tag == "{http://www.w3.org/2000/svg}svg", f"root element {root.tag}"
-
-
-def valid_png(path):
-    with open(path, "rb") as f:
-        b = f.read(33)
-    if b[:8] != b"\x89PNG\r\n\x1a\n":
-        return False, "no PNG signature"
-    length, kind = struct.unpack(">I4s", b[8:16])
-    if kind != b"IHDR" or length != 13:
-        return False, "no IHDR chunk first"
-    w, h = struct.unpack(">II", b[16:24])
-    return 300 <= w <= 4000 and 300 <= h <= 4000, f"{w} x {h} pixels"
-
-
-def valid_pdf(path):
-    with open(path, "rb") as f:
-        b = f.read()
-    return b.startswith(b"%PDF-") and b.rstrip(b"\r\n").endswith(b"%%EOF"), "no %PDF- header or %%EOF trailer"
-
-
-VALID = {"svg": valid_svg, "png": valid_png, "pdf": valid_pdf}
+VALID = VALIDATORS
 
 
 def clear():
@@ -179,5 +141,5 @@ with tempfile.TemporaryDirectory(prefix="dragarc-plots-aimtable.") as WORK:
         check(f"{name}: no file left", os.listdir(WORK) == [], f"left {os.listdir(WORK)}")
         clear()
 
-print(f"{passed} passed, {failed} failed")
-sys.exit(1 if failed else 0)
+print(f"{tally['passed']} passed, {tally['failed']} failed")
+sys.exit(1 if tally["failed"] else 0)

@@ -16,17 +16,7 @@ import sys
 import tempfile
 
 sys.path.insert(0, os.path.dirname(os.path.abspath(__file__)))
-passed = failed = 0
-
-
-def check(name, ok, why=""):
-    global passed, failed
-    if ok:
-        passed += 1
-        print(f"ok   {name}")
-    else:
-        failed += 1
-        print(f"FAIL {name}: {why}")
+from plot_files import VALIDATORS, check, tally
 
 
 def run(*args):  # dragarc ARGS... in WORK
@@ -40,13 +30,12 @@ if len(sys.argv) != 3:
     sys.exit(2)
 BIN = os.path.abspath(sys.argv[1])
 SRC = os.path.abspath(sys.argv[2])
-from check_plots_formats import valid_pdf, valid_png, valid_svg  # noqa: E402
 
 COMMANDS = {
     "sprinkler": (os.path.join(SRC, "docs", "examples", "sprinkler-garden.json"), ["--csv", "--grid"]),
     "drift": (os.path.join(SRC, "docs", "examples", "drift-boom.json"), ["--csv"]),
 }
-VALID = {"svg": valid_svg, "png": valid_png, "pdf": valid_pdf}
+VALID = VALIDATORS
 
 with tempfile.TemporaryDirectory(prefix="dragarc-spray-plots.") as WORK:
     for cmd, (scenario, file_opts) in COMMANDS.items():
@@ -98,5 +87,5 @@ with tempfile.TemporaryDirectory(prefix="dragarc-spray-plots.") as WORK:
             check(f"{cmd}, {name}: no output", out == b"", f"stdout {out[:80]!r}")
             check(f"{cmd}, {name}: no file left", os.listdir(WORK) == [], f"left {os.listdir(WORK)}")
 
-print(f"{passed} passed, {failed} failed")
-sys.exit(1 if failed else 0)
+print(f"{tally['passed']} passed, {tally['failed']} failed")
+sys.exit(1 if tally["failed"] else 0)

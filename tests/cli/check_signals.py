@@ -15,17 +15,7 @@ import sys
 import tempfile
 import time
 
-passed = failed = 0
-
-
-def check(name, ok, why=""):
-    global passed, failed
-    if ok:
-        passed += 1
-        print(f"ok   {name}")
-    else:
-        failed += 1
-        print(f"FAIL {name}: {why}")
+from plot_files import check, tally
 
 
 BIN, SRC = sys.argv[1], sys.argv[2]
@@ -93,5 +83,5 @@ with tempfile.TemporaryDirectory() as work:
     check("uninterrupted: exit 0 and both files", p.returncode == 0 and sorted(os.listdir(work)) == ["t.csv", "t.svg"],
           f"{p.returncode} {os.listdir(work)}")
 
-print(f"{passed} passed, {failed} failed")
-sys.exit(1 if failed else 0)
+print(f"{tally['passed']} passed, {tally['failed']} failed")
+sys.exit(1 if tally["failed"] else 0)

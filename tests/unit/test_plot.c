@@ -424,6 +424,8 @@ TEST(an_aim_table_plot_needs_a_range_reached)
                 "no range of the aim table was reached");
     CHECK(entries() == 0);
     dragarc_scenario_clear(&s);
+}
+
 /* Small markers (a cloud of impact points) are drawn; a marker size that is not a number, or over 20 mm, is
  * refused before anything is written. */
 TEST(markers_take_their_size_and_a_bad_size_is_refused)
