@@ -725,8 +725,10 @@ int dragarc_plot_write(const char *path, const dragarc_plot_figure *fig, dragarc
     plssub(1, (PLINT)fig->npanels);
     plinit();
     plsfont(PL_FCI_SANS, PL_FCI_UPRIGHT, PL_FCI_MEDIUM);
-    /* PLplot shrinks text by sqrt(rows) on subpages; 1.0 would then be too small to read in print */
-    PLFLT chr = 0.55 * sqrt((double)fig->npanels);
+    /* PLplot sizes text in proportion to the mean of the page's width and height and shrinks it by the square root
+     * of the number of subpages; undone here, so that text is the same size on every page (about 9 pt printed), that
+     * of three panels on the default 600 x 900 point page */
+    PLFLT chr = 0.55 * sqrt((double)fig->npanels) * (PAGE_W_PT + PAGE_H_PT) / (PAGE_W_PT + g_plot.page_h);
     for (size_t k = 0; k < fig->npanels && !g_plot.errcode && !g_plot.message[0]; k++)
         draw_panel(&fig->panels[k], x, y, chr);
     ended = 1;

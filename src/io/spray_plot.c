@@ -5,7 +5,9 @@
  * Nothing here computes a new number: the panels draw the result's own profile, grid, deposit bins and classes,
  * converted only in unit (fractions to per cent, metres to micrometres).
  *   sprinkler  the radial profile as steps over its rings (ring k spans [k w, (k+1) w)); the grid of cells as a
- *              colour map, cell for cell (it is already square, east and north of the sprinkler: no resampling).
+ *              colour map, cell for cell (it is already square, east and north of the sprinkler: no resampling);
+ *              with a layout, the combined rates at the catch points over the layout's cell (dragarc_sprinkler_overlap,
+ *              the numbers behind the reported CU and DU) as a second colour map, the sprinklers at its corners.
  *   drift      the deposit per metre as steps over its bins; the share deposited before x, a running sum over the
  *              bins, linear within each (as dragarc_drift_deposited_within); the spectrum's F(d) sampled evenly
  *              in d between the end classes' bounds, with its Dv10, Dv50, Dv90 (dragarc_spectrum_summarise).
@@ -89,8 +91,46 @@ int dragarc_sprinkler_plot(const char *path, const dragarc_sprinkler_spec *spec,
          .series = at, .nseries = 1, .equal_scale = 1, .raster = &grid, .scale_bar_unit = "m", .north_arrow = 1,
          .arrow = hypot(w[0], w[1]) > 0.0 ? &arrow : NULL},
     };
-    dragarc_plot_figure fig = {.panels = panels, .npanels = 2, .page_height = 820.0};
-    int rc = dragarc_plot_write(path, &fig, err);
+    /* with a layout: the overlap over its representative cell, each catch point a cell of the colour map */
+    dragarc_plot_panel all[3] = {panels[0], panels[1]};
+    dragarc_overlap ov;
+    memset(&ov, 0, sizeof ov);
+    size_t npanels = 2;
+    char title3[224], bar3[96], xl3[96], yl3[96];
+    double hx[4], hy[4];
+    dragarc_plot_raster cellmap;
+    dragarc_plot_series heads[1];
+    int rc = DRAGARC_OK;
+    if (r->layout_done) {
+        static const char *const KIND[] = {"square", "rectangular", "triangular"};
+        rc = dragarc_sprinkler_overlap(r, &r->layout, r->layout_points, &ov, err);
+        if (rc == DRAGARC_OK) {
+            double cw = ov.width, ch = ov.height;
+            int tri = r->layout.kind == DRAGARC_LAYOUT_TRIANGULAR;
+            size_t nh = tri ? 3 : 4; /* the sprinklers on the cell: its four corners, or the triangle's three */
+            const double cx[4] = {0.0, cw, tri ? 0.5 * cw : cw, 0.0}, cy[4] = {0.0, 0.0, ch, ch};
+            for (size_t k = 0; k < nh; k++)
+                hx[k] = cx[k], hy[k] = cy[k];
+            cellmap = (dragarc_plot_raster){.z = ov.rate, .nx = ov.nx, .ny = ov.ny, .x0 = 0.0, .x1 = cw, .y0 = 0.0,
+                                            .y1 = ch, .label = bar3};
+            snprintf(bar3, sizeof bar3, "combined application rate (mm/h)");
+            heads[0] = (dragarc_plot_series){.label = "sprinklers", .x = hx, .y = hy, .n = nh,
+                                             .style = DRAGARC_PLOT_MARKERS, .colour = DRAGARC_PLOT_BLACK,
+                                             .marker = DRAGARC_PLOT_TRIANGLE};
+            snprintf(title3, sizeof title3, "%s: overlapped, %s %.3g m: CU %.0f %%, DU %.0f %%", name,
+                     KIND[r->layout.kind], r->layout.spacing, ov.stats.cu, ov.stats.du_lq);
+            snprintf(xl3, sizeof xl3, "along the row (m)");
+            snprintf(yl3, sizeof yl3, "across the rows (m)");
+            all[2] = (dragarc_plot_panel){.title = title3, .xlabel = xl3, .ylabel = yl3, .series = heads,
+                                          .nseries = 1, .equal_scale = 1, .raster = &cellmap};
+            npanels = 3;
+        }
+    }
+    if (rc == DRAGARC_OK) {
+        dragarc_plot_figure fig = {.panels = all, .npanels = npanels, .page_height = npanels == 3 ? 1220.0 : 820.0};
+        rc = dragarc_plot_write(path, &fig, err);
+    }
+    dragarc_overlap_clear(&ov);
     free(px);
     return rc;
 }
