@@ -6,7 +6,9 @@
 #
 # Environment: FUZZ_SECONDS (default 64) is the time for all the harnesses together, shared evenly;
 # FUZZ_BUILD (default build-fuzz in the source tree) is the clang build folder, configured here when it has no
-# CMakeCache.txt; FUZZ_KEEP=1 keeps the work folder (grown corpora, logs) even when every harness passed.
+# CMakeCache.txt; FUZZ_KEEP=1 keeps the work folder (grown corpora, logs) even when every harness passed;
+# FUZZ_ARGS adds libFuzzer options (e.g. "-detect_leaks=0" for a faster exploring run, whose grown corpus is then
+# replayed with leak checks by build-asan/tests/replay_<harness>).
 #
 # The committed corpus is never written: each harness runs on a copy in a temporary folder, which is removed at
 # the end unless something failed (its path is printed). A crash, a leak, a timeout (-timeout=10 s for one input),
@@ -36,6 +38,8 @@ for h in "${harnesses[@]}"; do targets+=(--target "fuzz_$h"); done
 nice cmake --build "$build" -j2 "${targets[@]}" >"$build/fuzz-build.log" 2>&1 \
   || { tail -40 "$build/fuzz-build.log"; echo "fuzz: building the harnesses failed"; exit 2; }
 
+# UDUNITS-2's own leak on some malformed units (lsan.supp says which); any other leak still fails
+export LSAN_OPTIONS="suppressions=$here/lsan.supp${LSAN_OPTIONS:+:$LSAN_OPTIONS}"
 work="$(mktemp -d "${TMPDIR:-/tmp}/dragarc-fuzz.XXXXXX")"
 passed=0 failed=0
 for h in "${harnesses[@]}"; do
@@ -47,7 +51,7 @@ for h in "${harnesses[@]}"; do
   log="$work/$h.log"
   # stdin from /dev/null: a scenario may name any file (a profile, a catalogue), /dev/stdin among them
   (cd "$work" && nice "$build/fuzz/fuzz_$h" -max_total_time="$per" -timeout=10 -rss_limit_mb=2048 \
-     -print_final_stats=1 "${dict[@]}" -artifact_prefix="$work/artifacts/$h/" "$work/corpus/$h" \
+     -print_final_stats=1 ${FUZZ_ARGS:-} "${dict[@]}" -artifact_prefix="$work/artifacts/$h/" "$work/corpus/$h" \
      </dev/null >"$log" 2>&1)
   rc=$?
   execs=$(sed -n 's/^stat::number_of_executed_units: *//p' "$log" | tail -1)
