@@ -63,6 +63,11 @@ int dragarc_terminal_speed(const dragarc_scenario *s, double z, double *vt, drag
     int status = dragarc_brent_root(imbalance, &b, lo, hi, 1e-13, vt);
     if (status == GSL_ENOMEM)
         return dragarc_error_set(err, DRAGARC_ENOMEM, "", "could not allocate a root finder");
+    /* A balance far below the search's floor (found while fuzzing the fly pipeline: environment.gravity 1e-100
+     * made `fly` fail with exit 3): Brent's relative test cannot close on a root that close to the bracket's end
+     * at 0 in 200 steps. The bracket is then [0, hi], hi < 4e-12 m/s, and the speed is 0 to within that. */
+    if (!isfinite(*vt) && lo == 0.0)
+        *vt = 0.0;
     if (!isfinite(*vt))
         return dragarc_error_set(err, DRAGARC_ESOLVER, "", "terminal speed: Brent's method did not converge (%s)",
                                  gsl_strerror(status));

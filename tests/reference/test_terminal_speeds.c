@@ -119,6 +119,30 @@ TEST(skydiver_sized_body_falls_at_about_200_km_per_hour)
     dragarc_flight_clear(&f);
 }
 
+TEST(a_body_that_barely_falls_has_a_terminal_speed_of_zero_not_an_error)
+{
+    /* Found while fuzzing the fly pipeline (an extreme seed): with gravity 1e-100 m/s^2 the balance of drag and
+     * weight lies near 1e-49 m/s (quadratic drag: v = sqrt(2 m g / (rho A Cd))), below the bracket search's floor,
+     * where Brent's relative test never converged and the flight failed. It is 0 to within the bracket left, under
+     * 4e-12 m/s. */
+    dragarc_scenario s;
+    make_scenario(&s, RHO_AIR_20C, 0.145, 0.074, 1.0, 0.0, 0.0, 1e-100, 1e-8);
+    s.projectile.drag.model = DRAGARC_DRAG_CONSTANT;
+    s.projectile.drag.cd = 0.35;
+    double vt = NAN;
+    CHECK(dragarc_terminal_speed(&s, 0.0, &vt, NULL) == DRAGARC_OK);
+    CHECK(vt >= 0.0 && vt < 4e-12);
+    /* just above the floor the solver still converges: g = 1e-22 gives v = sqrt(2 (m - rho V) g / (rho A Cd))
+     * (weight less buoyancy against quadratic drag: Halliday, Resnick and Walker, Fundamentals of Physics, drag
+     * force and terminal speed; recalled), about 2.4e-11 m/s, to the solver's 1e-13 relative tolerance (1e-9
+     * leaves room for rounding) */
+    s.gravity = 1e-22;
+    CHECK(dragarc_terminal_speed(&s, 0.0, &vt, NULL) == DRAGARC_OK);
+    double area = 0.25 * PI * 0.074 * 0.074, buoyant = 0.145 - RHO_AIR_20C * PI * pow(0.074, 3) / 6.0;
+    CHECK_REL(vt, sqrt(2.0 * buoyant * 1e-22 / (RHO_AIR_20C * area * 0.35)), 1e-9);
+    dragarc_scenario_clear(&s);
+}
+
 int main(void)
 {
     dragarc_init();
@@ -127,5 +151,6 @@ int main(void)
     RUN(smallest_drop_agrees_with_schiller_naumann_law);
     RUN(terminal_speed_from_the_solver_is_reached_in_a_long_fall);
     RUN(skydiver_sized_body_falls_at_about_200_km_per_hour);
+    RUN(a_body_that_barely_falls_has_a_terminal_speed_of_zero_not_an_error);
     return check_summary();
 }
