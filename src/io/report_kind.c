@@ -130,7 +130,7 @@ static void atmosphere_input(report_pairs *p, const dragarc_scenario *s, const d
             SHOW(NULL, DRAGARC_Q_LENGTH, a->scale_height));
         break;
     case DRAGARC_ATMOSPHERE_LOCAL:
-        report_add(p, "atmosphere", "the day's weather: %.4g %s, %.5g %s, relative humidity %.0f %%",
+        report_add(p, "atmosphere", "the day's weather: %.5g %s, %.6g %s, relative humidity %.0f %%",
             SHOW("temperature", DRAGARC_Q_TEMPERATURE, a->temperature),
             SHOW("pressure", DRAGARC_Q_PRESSURE, a->pressure), 100.0 * a->relative_humidity);
         break;
@@ -304,3 +304,50 @@ int report_flight_sources(dragarc_report *r, const dragarc_scenario *s, dragarc_
     return DRAGARC_OK;
 }
 
+
+void report_spectrum_inputs(report_pairs *p, const dragarc_spectrum *sp, size_t nclasses,
+                            dragarc_spectrum_spacing spacing)
+{
+    switch (sp->form) {
+    case DRAGARC_SPECTRUM_ROSIN_RAMMLER:
+        report_add(p, "drop sizes", "Rosin-Rammler, Dv50 %.4g \xc2\xb5m, spread %.3g", sp->dv50 * 1e6, sp->spread);
+        break;
+    case DRAGARC_SPECTRUM_LOG_NORMAL:
+        report_add(p, "drop sizes", "log-normal, Dv50 %.4g \xc2\xb5m, sigma %.3g", sp->dv50 * 1e6, sp->sigma);
+        break;
+    default:
+        report_add(p, "drop sizes", "a table of %zu diameters, %.4g to %.4g \xc2\xb5m", sp->npoints,
+                   sp->npoints ? sp->diameter[0] * 1e6 : NAN, sp->npoints ? sp->diameter[sp->npoints - 1] * 1e6 : NAN);
+        break;
+    }
+    dragarc_spectrum_summary sum;
+    if (dragarc_spectrum_summarise(sp, &sum, NULL) == DRAGARC_OK)
+        report_add(p, "spectrum", "Dv10 %.4g \xc2\xb5m, Dv50 %.4g \xc2\xb5m, Dv90 %.4g \xc2\xb5m, relative span %.3g; %.3g %% of the "
+                   "volume in drops under 100 \xc2\xb5m", sum.dv10 * 1e6, sum.dv50 * 1e6, sum.dv90 * 1e6, sum.relative_span,
+                   100.0 * sum.driftable_fraction);
+    report_add(p, "classes", "%zu, %s spacing", nclasses,
+               spacing == DRAGARC_SPECTRUM_EQUAL_VOLUME ? "equal-volume" : "geometric");
+}
+
+int report_spray_sources(dragarc_report *r, const dragarc_scenario *base, dragarc_spectrum_form form,
+                         dragarc_error *err)
+{
+    int rc = report_flight_sources(r, base, base->solver.method, err);
+    if (rc != DRAGARC_OK)
+        return rc;
+    if (form == DRAGARC_SPECTRUM_ROSIN_RAMMLER)
+        rc = dragarc_report_source(r, "drop sizes", "the Rosin-Rammler distribution of the volume over the diameter",
+                                   "Rosin, P. & Rammler, E. (1933), The laws governing the fineness of powdered coal, "
+                                   "J. Inst. Fuel 7:29",
+                                   err);
+    else if (form == DRAGARC_SPECTRUM_LOG_NORMAL)
+        rc = dragarc_report_source(r, "drop sizes", "a log-normal distribution of the volume over the diameter",
+                                   "the normal distribution of ln d (GSL's gsl_cdf_ugaussian_P); docs/models.md", err);
+    else
+        rc = dragarc_report_source(r, "drop sizes", "the scenario's table of size classes, linear in ln d inside each",
+                                   "", err);
+    if (rc != DRAGARC_OK)
+        return rc;
+    return dragarc_report_source(r, "size classes", "the spectrum cut into classes, each flown at its volume-weighted "
+                                 "mean diameter", "dragarc, docs/models.md (Droplet size spectra)", err);
+}

@@ -12,6 +12,7 @@
 
 #include "dragarc/report.h"
 #include "dragarc/scenario.h"
+#include "dragarc/spectrum.h"
 #include "dragarc/units.h"
 
 #define REPORT_PI 3.14159265358979323846
@@ -70,5 +71,13 @@ int report_scenario_inputs(dragarc_report *r, const dragarc_scenario *s, const d
  * bounce, Earth, the integrator `method`; DRAGARC_METHOD_AUTO names both the integrators auto may choose) with the
  * sources docs/models.md gives, added to r's list (dragarc_report_source). */
 int report_flight_sources(dragarc_report *r, const dragarc_scenario *s, dragarc_method method, dragarc_error *err);
+
+/* The rows that describe a spray's drop sizes: the spectrum's form, its Dv10, Dv50, Dv90 and span, the classes. */
+void report_spectrum_inputs(report_pairs *p, const dragarc_spectrum *sp, size_t nclasses,
+                            dragarc_spectrum_spacing spacing);
+
+/* The models of a spray's flights (report_flight_sources of its base scenario) and of its drop sizes, with sources. */
+int report_spray_sources(dragarc_report *r, const dragarc_scenario *base, dragarc_spectrum_form form,
+                         dragarc_error *err);
 
 #endif
