@@ -71,13 +71,13 @@ static int solutions(dragarc_report *r, const dragarc_aim_request *q, const drag
     char head[SOL_COLS][64];
     const char *hp[SOL_COLS];
     const char *deg = report_unit(d, NULL, DRAGARC_Q_ANGLE);
-    snprintf(head[0], sizeof head[0], "solution");
+    snprintf(head[0], sizeof head[0], "#");
     snprintf(head[1], sizeof head[1], "elevation (%s)", deg);
     snprintf(head[2], sizeof head[2], "speed (%s)", report_unit(d, "launch_speed", DRAGARC_Q_SPEED));
     snprintf(head[3], sizeof head[3], "azimuth (%s)", deg);
-    snprintf(head[4], sizeof head[4], "aim correction, right + (%s)", deg);
-    snprintf(head[5], sizeof head[5], "time of flight (%s)", report_unit(d, "time_of_flight", DRAGARC_Q_TIME));
-    snprintf(head[6], sizeof head[6], "apex above the datum (%s)", report_unit(d, "apex_height", DRAGARC_Q_LENGTH));
+    snprintf(head[4], sizeof head[4], "aim, right + (%s)", deg);
+    snprintf(head[5], sizeof head[5], "time (%s)", report_unit(d, "time_of_flight", DRAGARC_Q_TIME));
+    snprintf(head[6], sizeof head[6], "apex (%s)", report_unit(d, "apex_height", DRAGARC_Q_LENGTH));
     snprintf(head[7], sizeof head[7], "impact speed (%s)", report_unit(d, "impact_speed", DRAGARC_Q_SPEED));
     snprintf(head[8], sizeof head[8], "impact angle (%s)", report_unit(d, "impact_angle", DRAGARC_Q_ANGLE));
     snprintf(head[9], sizeof head[9], "impact energy (%s)", report_unit(d, "impact_energy", DRAGARC_Q_ENERGY));
@@ -102,7 +102,8 @@ static int solutions(dragarc_report *r, const dragarc_aim_request *q, const drag
         report_grid_set(&g, i, 10, "%.3g", o->miss * 1e3);
     }
     if (rc == DRAGARC_OK)
-        rc = report_grid_emit(r, "Solutions, lowest elevation (or speed) first", &g, hp, numeric, err);
+        rc = report_grid_emit(r, "Solutions, lowest elevation (or speed) first; time of flight, apex above the datum, aim "
+                              "correction from the launch azimuth", &g, hp, numeric, err);
     report_grid_free(&g);
     return rc;
 }
