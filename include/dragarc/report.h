@@ -8,8 +8,8 @@
  * dragarc_report_write_html writes it as one HTML file with its CSS and SVG inline: no scripts, no external
  * references, print rules for A4 and Letter (src/io/report_html.c). Every text is escaped when written.
  *
- * A report kind (one per command: fly, and later aim, footprint, sprinkler, drift) is one function that fills a
- * report from the command's results, such as dragarc_report_fly below (DEVELOPERS.md: "How to add a report kind").
+ * A report kind (one per command: fly, aim, sprinkler, drift) is one function that fills a report from the
+ * command's results, such as dragarc_report_fly below (DEVELOPERS.md: "How to add a report kind").
  */
 #ifndef DRAGARC_REPORT_H
 #define DRAGARC_REPORT_H
@@ -17,10 +17,13 @@
 #include <stddef.h>
 #include <time.h>
 
+#include "dragarc/aim.h"
 #include "dragarc/dragarc.h"
+#include "dragarc/drift.h"
 #include "dragarc/flight.h"
 #include "dragarc/plot.h"
 #include "dragarc/scenario.h"
+#include "dragarc/sprinkler.h"
 #include "dragarc/units.h"
 
 #ifdef __cplusplus
@@ -102,6 +105,31 @@ int dragarc_report_write_html(const dragarc_report *r, const char *path, dragarc
 int dragarc_report_fly(dragarc_report *r, const char *where, const dragarc_scenario *s, const dragarc_flight *f,
                        const dragarc_flight *sampled, const dragarc_display *d,
                        const dragarc_flight_plot_options *po, dragarc_error *err);
+
+/* The `aim` report of scenario s (read from file `where`) for request q solved as a (dragarc_aim_solve, at least one
+ * solution): the target and the scenario, the maximum range, a table of every solution (elevation, speed, azimuth,
+ * aim correction, time of flight, apex, impact speed, angle and energy, miss), the figure of dragarc_aim_plot, the
+ * cautions `aim` prints and the models used; values in the units of display d (NULL: SI). Errors as
+ * dragarc_aim_plot, DRAGARC_ENOMEM. */
+int dragarc_report_aim(dragarc_report *r, const char *where, const dragarc_scenario *s, const dragarc_aim_request *q,
+                       const dragarc_aim_result *a, const dragarc_display *d, dragarc_error *err);
+
+/* The `sprinkler` report of spec (read from file `where`), run as res with its drop classes (spec->nclasses of
+ * them; dragarc_sprinkler_spec_run): the nozzle, arc, spectrum, air and layout; the jet, the pattern's statistics,
+ * the throw of every class and the radial profile as `sprinkler` prints them, the layout's uniformity when it has
+ * one; the figure of dragarc_sprinkler_plot, the cautions `sprinkler` prints and the models used. SI units. Errors
+ * as dragarc_sprinkler_plot, DRAGARC_ENOMEM. */
+int dragarc_report_sprinkler(dragarc_report *r, const char *where, const dragarc_sprinkler_spec *spec,
+                             const dragarc_spectrum_class *classes, const dragarc_sprinkler_result *res,
+                             dragarc_error *err);
+
+/* The `drift` report of spec (read from file `where`), run as res with its classes (dragarc_drift_spec_run): the
+ * release, the travel, the spectrum (Dv10, Dv50, Dv90) and the air; the deposited and airborne shares, the 90 % and
+ * 99 % distances, the buffer, the class table `drift` prints and the deposit downwind; the figure of
+ * dragarc_drift_plot, the cautions `drift` prints and the models used. SI units. Errors as dragarc_drift_plot,
+ * DRAGARC_ENOMEM. */
+int dragarc_report_drift(dragarc_report *r, const char *where, const dragarc_drift_spec *spec,
+                         const dragarc_spectrum_class *classes, const dragarc_drift_result *res, dragarc_error *err);
 
 #ifdef __cplusplus
 }

@@ -7,7 +7,10 @@
 #include <stdio.h>
 #include <time.h>
 
+#include "dragarc/aim.h"
 #include "dragarc/dragarc.h"
+#include "dragarc/drift.h"
+#include "dragarc/sprinkler.h"
 #include "dragarc/flight.h"
 #include "dragarc/quantity.h"
 #include "dragarc/units.h"
@@ -135,6 +138,24 @@ int cli_plot_option(const char *cmd, int argc, char **argv, int *i, const char *
 
 /* Report a failed plot (err from the library's plot functions) against --plot and return the exit status. */
 int cli_plot_failed(dragarc_error *err);
+
+/* The options of `aim` that say what to solve (--range, --height, --crossrange, --solve, --keep-azimuth), shared
+ * by `aim` and `report --command aim`. If argv[*i] is one, take it and its value (advancing *i) into *req (--range
+ * also sets *have_range) and return 0, or the exit status of the usage error printed; -1 when it is none of them. */
+int cli_aim_option(const char *cmd, int argc, char **argv, int *i, dragarc_aim_request *req, int *have_range);
+
+/* Check the request (a scenario file, --range given and positive), load the scenario and the units of c into *s and
+ * *d, and solve req into *r. 0 (the caller clears *s), or the exit status of the error printed (nothing to clear):
+ * 1 when the target is out of reach. */
+int cli_aim_load(const char *cmd, const cli_common *c, const dragarc_aim_request *req, int have_range,
+                 dragarc_display *d, dragarc_scenario *s, dragarc_aim_result *r);
+
+/* Read the sprinkler (drift) scenario file at path into *spec, cut its spectrum into *classes (allocated; the caller
+ * frees it) and run it into *r, with a progress bar unless quiet: shared by `sprinkler` (`drift`) and `report`.
+ * EXIT_OK, or the exit status of the error printed; either way the caller clears *spec and *r and frees *classes. */
+int cli_sprinkler_load(const char *path, int quiet, dragarc_sprinkler_spec *spec, dragarc_spectrum_class **classes,
+                       dragarc_sprinkler_result *r);
+int cli_drift_load(const char *path, dragarc_drift_spec *spec, dragarc_spectrum_class **classes, dragarc_drift_result *r);
 
 int cmd_fly(int argc, char **argv);
 int cmd_report(int argc, char **argv);

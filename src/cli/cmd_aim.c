@@ -50,6 +50,68 @@ static const char *branch_name(size_t i, size_t n, dragarc_aim_mode mode)
     return i == 0 ? " (direct)" : " (lofted)";
 }
 
+int cli_aim_option(const char *cmd, int argc, char **argv, int *i, dragarc_aim_request *req, int *have_range)
+{
+    const char *a = argv[*i];
+    double *target = NULL;
+    if (strcmp(a, "--keep-azimuth") == 0) {
+        req->solve_azimuth = 0;
+        return 0;
+    } else if (strcmp(a, "--range") == 0) {
+        target = &req->range;
+        *have_range = 1;
+    } else if (strcmp(a, "--height") == 0) {
+        target = &req->height;
+    } else if (strcmp(a, "--crossrange") == 0) {
+        target = &req->crossrange;
+    } else if (strcmp(a, "--solve") == 0) {
+        if (++*i >= argc)
+            return cli_usage_error(cmd, "--solve needs 'elevation' or 'speed'");
+        if (strcmp(argv[*i], "elevation") == 0)
+            req->mode = DRAGARC_AIM_ELEVATION;
+        else if (strcmp(argv[*i], "speed") == 0)
+            req->mode = DRAGARC_AIM_SPEED;
+        else
+            return cli_usage_error(cmd, "--solve needs 'elevation' or 'speed', not '%s'", argv[*i]);
+        return 0;
+    } else {
+        return -1;
+    }
+    char why[256];
+    if (++*i >= argc)
+        return cli_usage_error(cmd, "%s needs a number of metres", a);
+    if (cli_parse_value(argv[*i], DRAGARC_Q_LENGTH, target, why, sizeof why) != 0)
+        return why[0] ? cli_usage_error(cmd, "%s %s", a, why) : cli_usage_error(cmd, "%s needs a number of metres", a);
+    return 0;
+}
+
+int cli_aim_load(const char *cmd, const cli_common *c, const dragarc_aim_request *req, int have_range,
+                 dragarc_display *d, dragarc_scenario *s, dragarc_aim_result *r)
+{
+    int st;
+    if (!c->file || !*c->file)
+        return cli_usage_error(cmd, "needs a scenario file");
+    if (!have_range)
+        return cli_usage_error(cmd, "needs --range METRES");
+    if (!(req->range > 0.0))
+        return cli_usage_error(cmd, "--range must be positive (got %g)", req->range);
+    if ((st = cli_common_load(cmd, c, d, s)) != 0)
+        return st;
+    dragarc_error err;
+    if (dragarc_aim_solve(s, req, r, &err) == DRAGARC_OK)
+        return 0;
+    if (strcmp(err.field, "range") == 0 || strcmp(err.field, "height") == 0 || strcmp(err.field, "crossrange") == 0) {
+        char opt[32];
+        snprintf(opt, sizeof opt, "--%s", err.field);
+        err.field[0] = '\0';
+        st = cli_report(opt, &err);
+    } else {
+        st = cli_report(c->file, &err);
+    }
+    dragarc_scenario_clear(s);
+    return st;
+}
+
 int cmd_aim(int argc, char **argv)
 {
     dragarc_aim_request req;
@@ -60,7 +122,6 @@ int cmd_aim(int argc, char **argv)
     const char *plot = NULL;
     for (int i = 1; i < argc; i++) {
         const char *a = argv[i];
-        double *target = NULL;
         if (strcmp(a, "-h") == 0 || strcmp(a, "--help") == 0) {
             fputs(HELP, stdout);
             return EXIT_OK;
@@ -69,62 +130,20 @@ int cmd_aim(int argc, char **argv)
         } else if ((st = cli_plot_option("aim", argc, argv, &i, &plot)) >= 0) {
             if (st != 0)
                 return st;
-        } else if (strcmp(a, "--keep-azimuth") == 0) {
-            req.solve_azimuth = 0;
-        } else if (strcmp(a, "--range") == 0) {
-            target = &req.range;
-            have_range = 1;
-        } else if (strcmp(a, "--height") == 0) {
-            target = &req.height;
-        } else if (strcmp(a, "--crossrange") == 0) {
-            target = &req.crossrange;
-        } else if (strcmp(a, "--solve") == 0) {
-            if (++i >= argc)
-                return cli_usage_error("aim", "--solve needs 'elevation' or 'speed'");
-            if (strcmp(argv[i], "elevation") == 0)
-                req.mode = DRAGARC_AIM_ELEVATION;
-            else if (strcmp(argv[i], "speed") == 0)
-                req.mode = DRAGARC_AIM_SPEED;
-            else
-                return cli_usage_error("aim", "--solve needs 'elevation' or 'speed', not '%s'", argv[i]);
+        } else if ((st = cli_aim_option("aim", argc, argv, &i, &req, &have_range)) >= 0) {
+            if (st != 0)
+                return st;
         } else if ((st = cli_common_argument("aim", argc, argv, &i, &c)) != 0) {
             return st;
         }
-        if (target) {
-            char why[256];
-            if (++i >= argc)
-                return cli_usage_error("aim", "%s needs a number of metres", a);
-            if (cli_parse_value(argv[i], DRAGARC_Q_LENGTH, target, why, sizeof why) != 0)
-                return why[0] ? cli_usage_error("aim", "%s %s", a, why)
-                              : cli_usage_error("aim", "%s needs a number of metres", a);
-        }
     }
-    if (!c.file || !*c.file)
-        return cli_usage_error("aim", "needs a scenario file");
-    if (!have_range)
-        return cli_usage_error("aim", "needs --range METRES");
-    if (!(req.range > 0.0))
-        return cli_usage_error("aim", "--range must be positive (got %g)", req.range);
     dragarc_display d;
     dragarc_scenario s;
-    if ((st = cli_common_load("aim", &c, &d, &s)) != 0)
-        return st;
-    const char *file = c.file;
-    dragarc_error err;
     dragarc_aim_result r;
-    int rc = dragarc_aim_solve(&s, &req, &r, &err);
-    if (rc != DRAGARC_OK) {
-        if (strcmp(err.field, "range") == 0 || strcmp(err.field, "height") == 0 || strcmp(err.field, "crossrange") == 0) {
-            char opt[32];
-            snprintf(opt, sizeof opt, "--%s", err.field);
-            err.field[0] = '\0';
-            rc = cli_report(opt, &err);
-        } else {
-            rc = cli_report(file, &err);
-        }
-        dragarc_scenario_clear(&s);
-        return rc;
-    }
+    if ((st = cli_aim_load("aim", &c, &req, have_range, &d, &s, &r)) != 0)
+        return st;
+    dragarc_error err;
+    int rc;
     /* The picture first: when it cannot be drawn nothing is printed, as with a failed solve. */
     if (plot && (rc = dragarc_aim_plot(plot, &s, &req, &r, &d, NULL, &err)) != DRAGARC_OK) {
         dragarc_scenario_clear(&s);

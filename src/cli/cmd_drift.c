@@ -80,6 +80,21 @@ static void print_summary(const dragarc_drift_spec *sp, const dragarc_drift_resu
     dragarc_cautions_print(stdout, r->notes | DRAGARC_NOTE_SPRAY_DRIFT, 100);
 }
 
+int cli_drift_load(const char *path, dragarc_drift_spec *spec, dragarc_spectrum_class **classes, dragarc_drift_result *r)
+{
+    dragarc_error err;
+    memset(r, 0, sizeof *r);
+    *classes = NULL;
+    if (dragarc_drift_spec_read(path, spec, &err) != DRAGARC_OK)
+        return cli_report(path, &err);
+    *classes = calloc(spec->nclasses, sizeof **classes);
+    if (!*classes) {
+        dragarc_error_set(&err, DRAGARC_ENOMEM, "", "out of memory");
+        return cli_report(path, &err);
+    }
+    return dragarc_drift_spec_run(spec, *classes, r, &err) == DRAGARC_OK ? EXIT_OK : cli_report(path, &err);
+}
+
 int cmd_drift(int argc, char **argv)
 {
     static const char *const opts[] = {"--csv", "--plot", NULL};
@@ -88,19 +103,9 @@ int cmd_drift(int argc, char **argv)
     if (st >= 0)
         return st;
     dragarc_drift_spec spec;
-    dragarc_error err;
-    if (dragarc_drift_spec_read(path, &spec, &err) != DRAGARC_OK)
-        return cli_report(path, &err);
-    dragarc_spectrum_class *classes = calloc(spec.nclasses, sizeof *classes);
+    dragarc_spectrum_class *classes = NULL;
     dragarc_drift_result r;
-    memset(&r, 0, sizeof r);
-    int status = EXIT_OK;
-    if (!classes) {
-        dragarc_error_set(&err, DRAGARC_ENOMEM, "", "out of memory");
-        status = cli_report(path, &err);
-    } else if (dragarc_drift_spec_run(&spec, classes, &r, &err) != DRAGARC_OK) {
-        status = cli_report(path, &err);
-    }
+    int status = cli_drift_load(path, &spec, &classes, &r);
     const outputs o = {&spec, classes, &r};
     const cli_output_file out[1] = {{"--csv", files[0], write_csv}};
     if (status == EXIT_OK)

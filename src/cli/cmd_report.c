@@ -26,7 +26,7 @@ static const char HELP[] =
     "from a browser (docs/report.md).\n"
     "\n"
     "  -o, --output FILE    the HTML file (.html or .htm), written whole or not at all\n"
-    "  --command KIND       the command to report on; available: fly (the default)\n"
+    "  --command KIND       the command to report on: fly (the default), aim, sprinkler or drift\n"
     "  -h, --help           this help\n"
     "\n"
     "fly options:\n"
@@ -36,12 +36,23 @@ static const char HELP[] =
     "  --units si|us        the units of every value shown: SI (default) or US customary\n"
     "  --unit KEY=UNIT      one quantity or one field in a unit of its own; repeat for more (docs/units.md)\n"
     "\n"
+    "aim options, as for `dragarc aim` (--range is required):\n"
+    "  --range METRES  --height METRES  --crossrange METRES  --solve elevation|speed  --keep-azimuth\n"
+    "  --units si|us  --unit KEY=UNIT\n"
+    "\n"
+    "sprinkler options:\n"
+    "  --quiet              no progress bar (it shows only when stderr is a terminal)\n"
+    "drift: no options. The sprinkler and drift reports are in SI units, as those commands print them.\n"
+    "\n"
     "The date is the current time in UTC, or SOURCE_DATE_EPOCH (seconds since 1970) when that is set, for\n"
     "reports that come out the same byte for byte. Figures are drawn for a moment in $TMPDIR, else beside FILE.\n"
     "exit status: 0 success, 2 bad usage or input, 3 the computation failed.\n";
 
+typedef struct report_kind report_kind;
+
 /* What every kind is given: its own arguments (the scenario file among them) and where the report is written. */
 typedef struct report_job {
+    const report_kind *kind;
     int argc;
     char **argv;   /* argv[0] is "report" */
     const char *scratch; /* folder for the figures' temporary files */
@@ -53,15 +64,28 @@ typedef struct report_job {
 typedef int (*report_kind_fn)(const report_job *job, dragarc_report **out);
 
 static int kind_fly(const report_job *job, dragarc_report **out);
+static int kind_aim(const report_job *job, dragarc_report **out);
+static int kind_sprinkler(const report_job *job, dragarc_report **out);
+static int kind_drift(const report_job *job, dragarc_report **out);
 
-typedef struct report_kind {
+struct report_kind {
     const char *name;
     report_kind_fn run;
-} report_kind;
+    const char *const *options; /* the options it takes, NULL-terminated: others' options are refused by name */
+};
+
+static const char *const FLY_OPTIONS[] = {"--dt", "--plot-scale", "--units", "--unit", NULL};
+static const char *const AIM_OPTIONS[] = {"--range", "--height", "--crossrange", "--solve", "--keep-azimuth",
+                                          "--units", "--unit", NULL};
+static const char *const SPRINKLER_OPTIONS[] = {"--quiet", NULL};
+static const char *const DRIFT_OPTIONS[] = {NULL};
 
 /* The kinds that exist. A kind is added with one line here and one function (DEVELOPERS.md). */
 static const report_kind KINDS[] = {
-    {"fly", kind_fly},
+    {"fly", kind_fly, FLY_OPTIONS},
+    {"aim", kind_aim, AIM_OPTIONS},
+    {"sprinkler", kind_sprinkler, SPRINKLER_OPTIONS},
+    {"drift", kind_drift, DRIFT_OPTIONS},
 };
 #define NKINDS (sizeof KINDS / sizeof KINDS[0])
 
@@ -78,6 +102,42 @@ static void list_kinds(char *buf, size_t n)
     buf[0] = '\0';
     for (size_t i = 0; i < NKINDS; i++)
         snprintf(buf + strlen(buf), n - strlen(buf), "%s%s", i ? ", " : "", KINDS[i].name);
+}
+
+static int takes(const report_kind *k, const char *option)
+{
+    for (const char *const *o = k->options; *o; o++)
+        if (strcmp(*o, option) == 0)
+            return 1;
+    return 0;
+}
+
+/* argv[*i], which none of the kind's own options took: an option of another kind is refused by name ("--range is an
+ * option of the aim report, not of the fly report"); otherwise as cli_common_argument (--units and --unit only for
+ * kinds that take them, the scenario file). 0 when taken, else the exit status of the usage error printed. */
+static int other_argument(const report_job *job, int *i, cli_common *c)
+{
+    const char *a = job->argv[*i];
+    if (a[0] == '-' && a[1] == '-' && !takes(job->kind, a)) {
+        for (size_t k = 0; k < NKINDS; k++)
+            if (takes(&KINDS[k], a)) {
+                if (strcmp(a, "--units") == 0 || strcmp(a, "--unit") == 0)
+                    return cli_usage_error("report", "%s: the %s report takes no units: it is in SI units, as "
+                                           "`dragarc %s` prints them", a, job->kind->name, job->kind->name);
+                return cli_usage_error("report", "%s is an option of the %s report, not of the %s report", a,
+                                       KINDS[k].name, job->kind->name);
+            }
+    }
+    return cli_common_argument("report", job->argc, job->argv, i, c);
+}
+
+/* A new report titled with scenario `name` (else the file's base name), for the kind of job, its scratch folder set. */
+static int new_report(const report_job *job, const char *file, const char *name, dragarc_report **out,
+                      dragarc_error *err)
+{
+    const char *base = strrchr(file, '/') ? strrchr(file, '/') + 1 : file;
+    int rc = dragarc_report_new(out, name[0] ? name : base, job->kind->name, err);
+    return rc == DRAGARC_OK ? dragarc_report_set_scratch_dir(*out, job->scratch, err) : rc;
 }
 
 static int kind_fly(const report_job *job, dragarc_report **out)
@@ -98,7 +158,7 @@ static int kind_fly(const report_job *job, dragarc_report **out)
                 return why[0] ? cli_usage_error("report", "--dt %s", why)
                               : cli_usage_error("report", "--dt needs a positive number of seconds");
             o.dt_given = 1;
-        } else if ((st = cli_common_argument("report", job->argc, job->argv, &i, &c)) != 0) {
+        } else if ((st = other_argument(job, &i, &c)) != 0) {
             return st;
         }
     }
@@ -119,10 +179,8 @@ static int kind_fly(const report_job *job, dragarc_report **out)
         st = cli_report(c.file, &err);
     }
     if (rc == DRAGARC_OK) {
-        const char *base = strrchr(c.file, '/') ? strrchr(c.file, '/') + 1 : c.file;
         dragarc_flight_plot_options po = {.title = NULL, .free_scale = o.plot_free_scale};
-        if ((rc = dragarc_report_new(out, s.name[0] ? s.name : base, "fly", &err)) == DRAGARC_OK &&
-            (rc = dragarc_report_set_scratch_dir(*out, job->scratch, &err)) == DRAGARC_OK)
+        if ((rc = new_report(job, c.file, s.name, out, &err)) == DRAGARC_OK)
             rc = dragarc_report_fly(*out, c.file, &s, &f, &sampled, &o.display, &po, &err);
         if (rc != DRAGARC_OK) {
             err.field[0] = '\0';
@@ -135,6 +193,104 @@ static int kind_fly(const report_job *job, dragarc_report **out)
     dragarc_flight_clear(&f);
     dragarc_scenario_clear(&s);
     return rc == DRAGARC_OK ? EXIT_OK : st;
+}
+
+/* The library's error from filling the report, printed; the exit status. */
+static int fill_failed(dragarc_error *err)
+{
+    err->field[0] = '\0';
+    return cli_report("report", err);
+}
+
+static int kind_aim(const report_job *job, dragarc_report **out)
+{
+    dragarc_aim_request req;
+    dragarc_aim_request_default(&req);
+    cli_common c = {0};
+    int st, have_range = 0;
+    for (int i = 1; i < job->argc; i++) {
+        if ((st = cli_aim_option("report", job->argc, job->argv, &i, &req, &have_range)) > 0)
+            return st;
+        if (st < 0 && (st = other_argument(job, &i, &c)) != 0)
+            return st;
+    }
+    dragarc_display d;
+    dragarc_scenario s;
+    dragarc_aim_result a;
+    if ((st = cli_aim_load("report", &c, &req, have_range, &d, &s, &a)) != 0)
+        return st;
+    dragarc_error err;
+    int rc = new_report(job, c.file, s.name, out, &err);
+    if (rc == DRAGARC_OK)
+        rc = dragarc_report_aim(*out, c.file, &s, &req, &a, &d, &err);
+    st = rc == DRAGARC_OK ? EXIT_OK : fill_failed(&err);
+    if (st == EXIT_OK)
+        dragarc_report_set_date(*out, job->date);
+    dragarc_scenario_clear(&s);
+    return st;
+}
+
+/* The scenario file of a kind that takes no options but --quiet (quiet: NULL when it takes none). */
+static int spray_arguments(const report_job *job, int *quiet, const char **file)
+{
+    cli_common c = {0};
+    int st;
+    for (int i = 1; i < job->argc; i++) {
+        if (quiet && strcmp(job->argv[i], "--quiet") == 0)
+            *quiet = 1;
+        else if ((st = other_argument(job, &i, &c)) != 0)
+            return st;
+    }
+    if (!c.file || !*c.file)
+        return cli_usage_error("report", "needs a scenario file");
+    *file = c.file;
+    return 0;
+}
+
+static int kind_sprinkler(const report_job *job, dragarc_report **out)
+{
+    const char *path = NULL;
+    int quiet = 0, st = spray_arguments(job, &quiet, &path);
+    if (st != 0)
+        return st;
+    dragarc_sprinkler_spec spec;
+    dragarc_spectrum_class *classes;
+    dragarc_sprinkler_result r;
+    dragarc_error err;
+    if ((st = cli_sprinkler_load(path, quiet, &spec, &classes, &r)) == EXIT_OK) {
+        if (new_report(job, path, spec.base.name, out, &err) != DRAGARC_OK ||
+            dragarc_report_sprinkler(*out, path, &spec, classes, &r, &err) != DRAGARC_OK)
+            st = fill_failed(&err);
+        else
+            dragarc_report_set_date(*out, job->date);
+    }
+    dragarc_sprinkler_clear(&r);
+    free(classes);
+    dragarc_sprinkler_spec_clear(&spec);
+    return st;
+}
+
+static int kind_drift(const report_job *job, dragarc_report **out)
+{
+    const char *path = NULL;
+    int st = spray_arguments(job, NULL, &path);
+    if (st != 0)
+        return st;
+    dragarc_drift_spec spec;
+    dragarc_spectrum_class *classes;
+    dragarc_drift_result r;
+    dragarc_error err;
+    if ((st = cli_drift_load(path, &spec, &classes, &r)) == EXIT_OK) {
+        if (new_report(job, path, spec.base.name, out, &err) != DRAGARC_OK ||
+            dragarc_report_drift(*out, path, &spec, classes, &r, &err) != DRAGARC_OK)
+            st = fill_failed(&err);
+        else
+            dragarc_report_set_date(*out, job->date);
+    }
+    dragarc_drift_clear(&r);
+    free(classes);
+    dragarc_drift_spec_clear(&spec);
+    return st;
 }
 
 /* SOURCE_DATE_EPOCH when set (a whole number of seconds), else now. 0, or the exit status of the error printed. */
@@ -204,7 +360,7 @@ int cmd_report(int argc, char **argv)
         st = cli_usage_error("report", "needs the output file: -o FILE.html");
     if (st < 0 && !html_name(output))
         st = cli_usage_error("report", "-o '%s': the report is HTML, name it FILE.html", output);
-    report_job job = {.argc = nrest, .argv = rest};
+    report_job job = {.kind = kind, .argc = nrest, .argv = rest};
     if (st < 0 && report_date(&job.date) != 0)
         st = EXIT_BAD_INPUT;
     if (st >= 0) {

@@ -102,6 +102,26 @@ static void print_summary(const dragarc_sprinkler_spec *sp, const dragarc_spectr
     dragarc_cautions_print(stdout, r->notes | DRAGARC_NOTE_IRRIGATION, 100);
 }
 
+int cli_sprinkler_load(const char *path, int quiet, dragarc_sprinkler_spec *spec, dragarc_spectrum_class **classes,
+                       dragarc_sprinkler_result *r)
+{
+    dragarc_error err;
+    memset(r, 0, sizeof *r);
+    *classes = NULL;
+    if (dragarc_sprinkler_spec_read(path, spec, &err) != DRAGARC_OK)
+        return cli_report(path, &err);
+    *classes = calloc(spec->nclasses, sizeof **classes);
+    if (!*classes) {
+        dragarc_error_set(&err, DRAGARC_ENOMEM, "", "out of memory");
+        return cli_report(path, &err);
+    }
+    cli_progress bar;
+    cli_progress_begin(&bar, "flights", quiet);
+    int rc = dragarc_sprinkler_spec_run(spec, *classes, bar.enabled ? cli_progress_tick : NULL, &bar, r, &err);
+    cli_progress_end(&bar);
+    return rc == DRAGARC_OK ? EXIT_OK : cli_report(path, &err);
+}
+
 int cmd_sprinkler(int argc, char **argv)
 {
     static const char *const opts[] = {"--csv", "--grid", "--plot", NULL};
@@ -110,24 +130,9 @@ int cmd_sprinkler(int argc, char **argv)
     if (st >= 0)
         return st;
     dragarc_sprinkler_spec spec;
-    dragarc_error err;
-    if (dragarc_sprinkler_spec_read(path, &spec, &err) != DRAGARC_OK)
-        return cli_report(path, &err);
-    dragarc_spectrum_class *classes = calloc(spec.nclasses, sizeof *classes);
+    dragarc_spectrum_class *classes = NULL;
     dragarc_sprinkler_result r;
-    memset(&r, 0, sizeof r);
-    int status = EXIT_OK;
-    if (!classes) {
-        dragarc_error_set(&err, DRAGARC_ENOMEM, "", "out of memory");
-        status = cli_report(path, &err);
-    } else {
-        cli_progress bar;
-        cli_progress_begin(&bar, "flights", quiet);
-        int rc = dragarc_sprinkler_spec_run(&spec, classes, bar.enabled ? cli_progress_tick : NULL, &bar, &r, &err);
-        cli_progress_end(&bar);
-        if (rc != DRAGARC_OK)
-            status = cli_report(path, &err);
-    }
+    int status = cli_sprinkler_load(path, quiet, &spec, &classes, &r);
     const outputs o = {&r, &spec};
     const cli_output_file out[2] = {{"--csv", files[0], write_profile}, {"--grid", files[1], write_grid}};
     if (status == EXIT_OK)

@@ -30,7 +30,7 @@ static const char USAGE[] =
     "                        expectation; JSON, CSV points, GeoJSON, plot\n"
     "  uniformity CATCH.csv  how evenly a catch-can test was watered: Christiansen's CU, the\n"
     "                        low-quarter DU, CV\n"
-    "  report SCENARIO -o FILE.html [--command fly]\n"
+    "  report SCENARIO -o FILE.html [--command KIND]\n"
     "                        one self-contained HTML page: inputs, results, figures, cautions, sources\n"
     "  demo                  fly built-in example scenarios and explain what they show\n"
     "\n"

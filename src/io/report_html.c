@@ -513,6 +513,7 @@ static const char CSS[] =
     "table.pairs{width:100%}\n"
     "table.pairs th{width:13rem;font-weight:normal;color:var(--muted);white-space:nowrap}\n"
     ".num{text-align:right;font-variant-numeric:tabular-nums;white-space:nowrap}\n"
+    "thead th.num{white-space:normal}\n"
     "tbody tr:nth-child(even) td{background:#fafbfc}\n"
     "figure{margin:.6rem 0 1.6rem}\n"
     "figure svg{display:block;width:100%;height:auto;border:1px solid var(--rule)}\n"

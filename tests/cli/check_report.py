@@ -69,13 +69,47 @@ def finish(proc):
     return subprocess.CompletedProcess(proc.args, proc.returncode, out, err)
 
 
+def check_page(html, kind, tables):
+    """The file: one page, nothing outside it, unique ids, the footer, one figure, its tables, the cautions."""
+    check(html.startswith("<!DOCTYPE html>"), kind + ": doctype")
+    check("<script" not in html.lower(), "no <script>")
+    check(not re.search(r"https?:", html), "no http: or https: reference")
+    check(not re.search(r"\ssrc\s*=", html, re.I), "no src= attribute")
+    hrefs = re.findall(r"href\s*=\s*[\"']([^\"']*)", html)
+    # inside the page: an id, or an image inlined as a data: URI (the cairo driver's colour maps)
+    check(hrefs and all(h.startswith("#") or h.startswith("data:image/png;base64,") for h in hrefs),
+          kind + ": every href points inside the page")
+    check("@import" not in html and "url(" not in re.sub(r"url\(#[^)]*\)", "", html), "no url() outside the page")
+    ids = re.findall(r"\sid\s*=\s*[\"']([^\"']*)", html)
+    dup = sorted(i for i, n in collections.Counter(ids).items() if n > 1)
+    check(ids and not dup, "%d ids, duplicated: %s" % (len(ids), dup[:5]))
+    refs = set(re.findall(r"url\(#([^)]*)\)", html)) | {h[1:] for h in hrefs if h.startswith("#")}
+    check(refs and refs <= set(ids), "references without their id: %s" % sorted(refs - set(ids))[:5])
+    check(re.search(r"<footer>\n<p>Made by dragarc [0-9.]+ on 2026-01-01 00:00 UTC\.", html), "footer: version, date")
+    check(html.count("<svg ") == 1 and html.count("<figure>") == 1, kind + ": one figure")
+    check(html.count("<table class=\"data\">") + html.count("<table class=\"pairs\">") == tables,
+          "%s: %d tables, want %d" % (kind, html.count("<table class="), tables))
+    check("Read before acting" in html, kind + ": cautions")
+
+
 def run(dragarc, data, browser, work):
     scenario = os.path.join(data, "ball-in-wind.json")
     page = os.path.join(work, "fly.html")
 
     # usage errors: one line, exit 2, no file
-    for args, text in [(["--command", "aim"], "--command 'aim' has no report yet; available: fly"),
-                       (["--command", "frobnicate"], "available: fly"),
+    examples = os.path.join(os.path.dirname(os.path.dirname(data)), "docs", "examples")
+    for args, text in [(["--command", "frobnicate"], "available: fly, aim, sprinkler, drift"),
+                       (["--command", "aim", "-o", "x.html"], "needs --range METRES"),
+                       (["--command", "aim", "-o", "x.html", "--range", "-3"], "--range must be positive"),
+                       (["--command", "aim", "-o", "x.html", "--range", "60", "--solve", "spin"],
+                        "--solve needs 'elevation' or 'speed', not 'spin'"),
+                       (["-o", "x.html", "--range", "60"], "--range is an option of the aim report, not of the fly"),
+                       (["--command", "aim", "-o", "x.html", "--range", "60", "--dt", "1"],
+                        "--dt is an option of the fly report, not of the aim report"),
+                       (["--command", "drift", "-o", "x.html", "--units", "us"],
+                        "--units: the drift report takes no units"),
+                       (["--command", "sprinkler", "-o", "x.html", "--plot-scale", "free"],
+                        "--plot-scale is an option of the fly report, not of the sprinkler report"),
                        ([], "needs the output file: -o FILE.html"),
                        (["-o", "bad.txt"], "name it FILE.html"),
                        (["-o", "x.html", "--plot-scale", "tilted"], "--plot-scale needs 'equal' or 'free'")]:
@@ -88,6 +122,10 @@ def run(dragarc, data, browser, work):
     r = dragarc_run(dragarc, ["report", os.path.join(data, "missing-profile.json"), "-o", "x.html"], work)
     check(r.returncode == 2 and r.stderr.count("\n") == 1 and "missing-profile.json" in r.stderr,
           "a bad scenario: %r" % r.stderr)
+    r = dragarc_run(dragarc, ["report", scenario, "--command", "aim", "--range", "900", "-o", "x.html"], work)
+    check(r.returncode == 1 and r.stderr.count("\n") == 1 and "out of reach" in r.stderr, "aim out of reach: %r" % r.stderr)
+    r = dragarc_run(dragarc, ["report", scenario, "--command", "drift", "-o", "x.html"], work)
+    check(r.returncode == 2 and r.stderr.count("\n") == 1 and "unknown key" in r.stderr, "a fly scenario to drift")
     check(sorted(os.listdir(work)) == [], "files left by failed runs: %s" % os.listdir(work))
 
     # the report, twice with the same date: the same bytes
@@ -99,28 +137,36 @@ def run(dragarc, data, browser, work):
           "the same SOURCE_DATE_EPOCH gives the same page")
     check(sorted(os.listdir(work)) == ["again.html", "fly.html"], "scratch files left: %s" % os.listdir(work))
 
-    check(html.startswith("<!DOCTYPE html>"), "doctype")
-    check("<script" not in html.lower(), "no <script>")
-    check(not re.search(r"https?:", html), "no http: or https: reference")
-    check(not re.search(r"\ssrc\s*=", html, re.I), "no src= attribute")
-    hrefs = re.findall(r"href\s*=\s*[\"']([^\"']*)", html)
-    check(hrefs and all(h.startswith("#") for h in hrefs), "every href points inside the page")
-    check("@import" not in html and "url(" not in re.sub(r"url\(#[^)]*\)", "", html), "no url() outside the page")
-    ids = re.findall(r"\sid\s*=\s*[\"']([^\"']*)", html)
-    dup = sorted(i for i, n in collections.Counter(ids).items() if n > 1)
-    check(ids and not dup, "%d ids, duplicated: %s" % (len(ids), dup[:5]))
-    refs = set(re.findall(r"url\(#([^)]*)\)", html)) | {h[1:] for h in hrefs}
-    check(refs and refs <= set(ids), "references without their id: %s" % sorted(refs - set(ids))[:5])
-    check(re.search(r"<footer>\n<p>Made by dragarc [0-9.]+ on 2026-01-01 00:00 UTC\.", html), "footer: version, date")
+    check_page(html, "fly", 3)
     check(html.count("<svg ") == 1 and html.count("<table") == 3, "one figure, three tables")
     check("Read before acting" in html and html.count("<li>") >= 3, "cautions")
+
+    # the other kinds: the page as for fly, their own tables (pairs and data), the command's numbers
+    others = []
+    for kind, args, tables, size, text in [
+            ("aim", [scenario, "--command", "aim", "--range", "60"], 4, (1000, 2300), "<td>2 (lofted)</td>"),
+            ("sprinkler", [os.path.join(examples, "sprinkler-garden.json"), "--command", "sprinkler", "--quiet"], 5,
+             (1000, 3300), "wetted radius</th><td>10.00 m"),
+            ("drift", [os.path.join(examples, "drift-boom.json"), "--command", "drift"], 4, (1000, 2700),
+             "90 % deposits</th><td>within 0.47 m downwind")]:
+        page_k = os.path.join(work, kind + ".html")
+        r = dragarc_run(dragarc, ["report"] + args + ["-o", page_k], work)
+        check(r.returncode == 0 and r.stdout == "" and r.stderr == "", "%s: exit %d, %r" % (kind, r.returncode, r.stderr))
+        html_k = open(page_k, encoding="utf-8").read() if os.path.exists(page_k) else ""
+        check_page(html_k, kind, tables)
+        check(text in html_k, "%s: %r in the page" % (kind, text))
+        others.append((kind, page_k, os.path.join(work, kind + ".png"), size))
 
     if not browser:
         print("%d passed, %d failed (chromium not installed: the browser checks were skipped)" % (passed, failed))
         return 1 if failed else 77
 
-    # the DOM chromium builds and its console, a screenshot, a print to PDF: three browsers at once
+    # the DOM chromium builds and its console, a screenshot, a print to PDF: three browsers at once, and one
+    # screenshot of each other kind's report (its console checked too), all at once
     shot, pdf = os.path.join(work, "shot.png"), os.path.join(work, "fly.pdf")
+    kind_procs = [(kind, shot_k, size, chromium(browser, work, ["--screenshot=" + shot_k, "--window-size=%d,%d" % size,
+                                                                 "file://" + page_k]))
+                  for kind, page_k, shot_k, size in others]
     procs = [chromium(browser, work, ["--dump-dom", "file://" + page]),
              chromium(browser, work, ["--screenshot=" + shot, "--window-size=1000,1400", "file://" + page]),
              chromium(browser, work, ["--print-to-pdf=" + pdf, "--no-pdf-header-footer", "file://" + page])]
@@ -144,9 +190,19 @@ def run(dragarc, data, browser, work):
     pages = len(re.findall(rb"/Type\s*/Page[^s]", body))
     check(r_pdf.returncode == 0 and body[:5] == b"%PDF-" and b"%%EOF" in body[-1024:], "PDF signature")
     check(len(body) > 20000 and 2 <= pages <= 8, "PDF of %d bytes, %d pages" % (len(body), pages))
-    if os.environ.get("DRAGARC_REPORT_KEEP"):  # a folder to keep the screenshot and the PDF in, for a look
+    for kind, shot_k, size, proc in kind_procs:
+        r = finish(proc)
+        console = [l for l in r.stderr.splitlines() if "CONSOLE" in l]
+        check(r.returncode == 0 and not console, "%s: chromium exit %d, console %s" % (kind, r.returncode, console[:3]))
+        png = open(shot_k, "rb").read() if os.path.exists(shot_k) else b""
+        check(png[:8] == b"\x89PNG\r\n\x1a\n" and len(png) > 24 and struct.unpack(">II", png[16:24]) == size
+              and len(png) > 50000, "%s: screenshot of %d bytes" % (kind, len(png)))
+    if os.environ.get("DRAGARC_REPORT_KEEP"):  # a folder to keep the screenshots and the PDF in, for a look
         for f in (shot, pdf, page):
             shutil.copy(f, os.environ["DRAGARC_REPORT_KEEP"])
+        shutil.copy(shot, os.path.join(os.environ["DRAGARC_REPORT_KEEP"], "report-fly.png"))
+        for kind, shot_k, size, proc in kind_procs:
+            shutil.copy(shot_k, os.path.join(os.environ["DRAGARC_REPORT_KEEP"], "report-%s.png" % kind))
 
     print("%d passed, %d failed" % (passed, failed))
     return 1 if failed else 0

@@ -1,6 +1,6 @@
 /* test_report.c: the HTML report writer: text escaped, figures' ids prefixed so that several share a page, SVG
- * that could reach outside the page refused, files written whole or not at all, the fly kind's cautions the ones
- * `fly` prints.
+ * that could reach outside the page refused, files written whole or not at all; each kind (fly, aim, sprinkler,
+ * drift) holds its tables and its figure, and exactly the cautions its command prints.
  * SPDX-License-Identifier: GPL-3.0-or-later
  */
 #define _POSIX_C_SOURCE 200809L
@@ -282,6 +282,136 @@ TEST(the_fly_report_holds_the_inputs_results_figure_cautions_and_sources)
     dragarc_scenario_clear(&s);
 }
 
+/* The cautions box holds exactly these cautions: each one, escaped, and no other item. */
+static int cautions_exactly(const char *html, const char *const *c, size_t nc)
+{
+    const char *box = strstr(html, "class=\"cautions\"");
+    const char *end = box ? strstr(box, "</ul>") : NULL;
+    if (!end)
+        return 0;
+    size_t items = 0;
+    for (const char *p = box; (p = strstr(p, "<li>")) != NULL && p < end; p += 4)
+        items++;
+    for (size_t i = 0; i < nc; i++) {
+        char want[2048];
+        escaped(want, sizeof want, c[i]);
+        const char *at = strstr(box, want);
+        if (!at || at > end)
+            return 0;
+    }
+    return items == nc;
+}
+
+TEST(the_aim_report_holds_every_solution_the_figure_and_the_cautions_aim_prints)
+{
+    dragarc_scenario s;
+    dragarc_error e;
+    CHECK(dragarc_scenario_read(DATA_DIR "/ball-in-wind.json", "", &s, &e) == DRAGARC_OK);
+    dragarc_aim_request q;
+    dragarc_aim_request_default(&q);
+    q.range = 60.0;
+    dragarc_aim_result a;
+    CHECK(dragarc_aim_solve(&s, &q, &a, &e) == DRAGARC_OK);
+    CHECK(a.nsolutions == 2);
+    dragarc_report *r;
+    CHECK(dragarc_report_new(&r, s.name, "aim", &e) == DRAGARC_OK);
+    CHECK(dragarc_report_set_scratch_dir(r, dir, &e) == DRAGARC_OK);
+    CHECK(dragarc_report_aim(r, "ball-in-wind.json", &s, &q, &a, NULL, &e) == DRAGARC_OK);
+    char *html = written(r, "aim.html");
+    CHECK(html != NULL);
+    if (html) {
+        char cell[64];
+        snprintf(cell, sizeof cell, "<td class=\"num\">%.4f</td>", a.solutions[1].elevation * 180.0 / 3.14159265358979323846);
+        CHECK(strstr(html, "<td>1 (direct)</td>") != NULL && strstr(html, "<td>2 (lofted)</td>") != NULL);
+        CHECK(strstr(html, cell) != NULL); /* the lofted elevation, as `aim` prints it */
+        CHECK(strstr(html, "<th scope=\"col\" class=\"num\">impact speed (m/s)</th>") != NULL);
+        CHECK(strstr(html, "maximum range</th><td>96.31 m at 40.557 deg") != NULL); /* as `aim` prints it */
+        CHECK(count(html, "<figure>") == 1 && count(html, "<svg ") == 1);
+        CHECK(strstr(html, "Brent, R. P. (1973)") != NULL);
+        unsigned notes = a.solutions[0].notes | a.solutions[1].notes;
+        const char *c[DRAGARC_CAUTIONS_MAX];
+        size_t nc = dragarc_cautions_notes(notes, c, DRAGARC_CAUTIONS_MAX);
+        CHECK(nc >= 2 && cautions_exactly(html, c, nc));
+    }
+    CHECK(entries(dir) == 0);
+    free(html);
+    dragarc_report_free(r);
+    dragarc_scenario_clear(&s);
+}
+
+TEST(the_sprinkler_report_holds_the_throw_profile_layout_figure_and_cautions)
+{
+    dragarc_sprinkler_spec sp;
+    dragarc_error e;
+    CHECK(dragarc_sprinkler_spec_read(EXAMPLES_DIR "/sprinkler-garden.json", &sp, &e) == DRAGARC_OK);
+    dragarc_spectrum_class *cl = calloc(sp.nclasses, sizeof *cl);
+    dragarc_sprinkler_result res;
+    CHECK(cl && dragarc_sprinkler_spec_run(&sp, cl, NULL, NULL, &res, &e) == DRAGARC_OK);
+    dragarc_report *r;
+    CHECK(dragarc_report_new(&r, sp.base.name, "sprinkler", &e) == DRAGARC_OK);
+    CHECK(dragarc_report_set_scratch_dir(r, dir, &e) == DRAGARC_OK);
+    CHECK(dragarc_report_sprinkler(r, "sprinkler-garden.json", &sp, cl, &res, &e) == DRAGARC_OK);
+    char *html = written(r, "sprinkler.html");
+    CHECK(html != NULL);
+    if (html) {
+        CHECK(strstr(html, "<th scope=\"col\" class=\"num\">throw, mean (m)</th>") != NULL);
+        CHECK(strstr(html, "<th scope=\"col\" class=\"num\">application rate (mm/h)</th>") != NULL);
+        CHECK(count(html, "<table class=\"data\">") == 2); /* the throw by size and the profile */
+        CHECK(strstr(html, "wetted radius</th><td>10.00 m") != NULL); /* as `sprinkler` prints it */
+        CHECK(strstr(html, "Christiansen&#39;s CU</th><td>") != NULL && strstr(html, "Christiansen, J. E. (1942)") != NULL);
+        CHECK(strstr(html, "Rosin, P. &amp; Rammler, E. (1933)") != NULL && strstr(html, "Ranz") != NULL);
+        CHECK(count(html, "<figure>") == 1 && count(html, "<svg ") == 1);
+        const char *c[DRAGARC_CAUTIONS_MAX];
+        size_t nc = dragarc_cautions_notes(res.notes | DRAGARC_NOTE_IRRIGATION, c, DRAGARC_CAUTIONS_MAX);
+        CHECK(nc >= 3 && cautions_exactly(html, c, nc));
+    }
+    CHECK(entries(dir) == 0);
+    free(html);
+    dragarc_report_free(r);
+    dragarc_sprinkler_clear(&res);
+    free(cl);
+    dragarc_sprinkler_spec_clear(&sp);
+}
+
+TEST(the_drift_report_holds_the_deposit_distances_spectrum_figure_and_cautions)
+{
+    dragarc_drift_spec sp;
+    dragarc_error e;
+    CHECK(dragarc_drift_spec_read(EXAMPLES_DIR "/drift-boom.json", &sp, &e) == DRAGARC_OK);
+    dragarc_spectrum_class *cl = calloc(sp.nclasses, sizeof *cl);
+    dragarc_drift_result res;
+    CHECK(cl && dragarc_drift_spec_run(&sp, cl, &res, &e) == DRAGARC_OK);
+    dragarc_report *r;
+    CHECK(dragarc_report_new(&r, sp.base.name, "drift", &e) == DRAGARC_OK);
+    CHECK(dragarc_report_set_scratch_dir(r, dir, &e) == DRAGARC_OK);
+    CHECK(dragarc_report_drift(r, "drift-boom.json", &sp, cl, &res, &e) == DRAGARC_OK);
+    char *html = written(r, "drift.html");
+    CHECK(html != NULL);
+    if (html) {
+        dragarc_spectrum_summary sum;
+        CHECK(dragarc_spectrum_summarise(&sp.spectrum, &sum, &e) == DRAGARC_OK);
+        char want[96];
+        snprintf(want, sizeof want, "Dv10 %.4g \xc2\xb5m, Dv50 %.4g \xc2\xb5m, Dv90 %.4g \xc2\xb5m", sum.dv10 * 1e6,
+                 sum.dv50 * 1e6, sum.dv90 * 1e6);
+        CHECK(strstr(html, want) != NULL);
+        CHECK(strstr(html, "90 % deposits</th><td>within 0.47 m downwind") != NULL); /* as `drift` prints it */
+        CHECK(strstr(html, "airborne</th><td>1.220 % of the volume") != NULL);
+        CHECK(strstr(html, "<th scope=\"col\" class=\"num\">deposit (% of the volume per m)</th>") != NULL);
+        CHECK(strstr(html, "<th scope=\"col\">outcome</th>") != NULL && count(html, "<td>lands</td>") == 40);
+        CHECK(count(html, "<figure>") == 1 && count(html, "<svg ") == 1);
+        CHECK(strstr(html, "Picard, A.") != NULL && strstr(html, "Stull, R. B. (1988)") != NULL);
+        const char *c[DRAGARC_CAUTIONS_MAX];
+        size_t nc = dragarc_cautions_notes(res.notes | DRAGARC_NOTE_SPRAY_DRIFT, c, DRAGARC_CAUTIONS_MAX);
+        CHECK(nc >= 3 && cautions_exactly(html, c, nc));
+    }
+    CHECK(entries(dir) == 0);
+    free(html);
+    dragarc_report_free(r);
+    dragarc_drift_clear(&res);
+    free(cl);
+    dragarc_drift_spec_clear(&sp);
+}
+
 int main(void)
 {
     dragarc_init();
@@ -296,6 +426,9 @@ int main(void)
     RUN(a_failed_figure_leaves_the_scratch_folder_clean);
     RUN(a_failed_write_leaves_no_file_and_an_old_one_untouched);
     RUN(the_fly_report_holds_the_inputs_results_figure_cautions_and_sources);
+    RUN(the_aim_report_holds_every_solution_the_figure_and_the_cautions_aim_prints);
+    RUN(the_sprinkler_report_holds_the_throw_profile_layout_figure_and_cautions);
+    RUN(the_drift_report_holds_the_deposit_distances_spectrum_figure_and_cautions);
     rmdir(dir);
     return check_summary();
 }
