@@ -113,6 +113,11 @@ int cmd_sprinkler(int argc, char **argv)
     dragarc_error err;
     if (dragarc_sprinkler_spec_read(path, &spec, &err) != DRAGARC_OK)
         return cli_report(path, &err);
+    const double need = dragarc_sprinkler_memory_estimate(&spec);
+    if ((st = cli_memory_check(path, "sprinkler.directions", need)) != EXIT_OK) {
+        dragarc_sprinkler_spec_clear(&spec);
+        return st;
+    }
     dragarc_spectrum_class *classes = calloc(spec.nclasses, sizeof *classes);
     dragarc_sprinkler_result r;
     memset(&r, 0, sizeof r);
@@ -123,6 +128,7 @@ int cmd_sprinkler(int argc, char **argv)
     } else {
         cli_progress bar;
         cli_progress_begin(&bar, "flights", quiet);
+        cli_progress_plan(&bar, need);
         int rc = dragarc_sprinkler_spec_run(&spec, classes, bar.enabled ? cli_progress_tick : NULL, &bar, &r, &err);
         cli_progress_end(&bar);
         if (rc != DRAGARC_OK)
