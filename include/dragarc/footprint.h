@@ -142,6 +142,13 @@ int dragarc_fragment_catalogue_parse(char *text, const dragarc_named_drag *laws,
  * scenario file ("breakup.altitude", "fragments[2].mass"). */
 int dragarc_footprint_check(const dragarc_footprint_spec *spec, dragarc_error *err);
 
+/* The most memory (bytes) a run of spec takes, from the sizes of its arrays (pure arithmetic): per flight the
+ * dragarc_impact, the summary's columns (six doubles, a dragarc_impact_point and a casualty contribution) and the
+ * weighted quantiles' sort buffers (four doubles and an index); per class a dragarc_footprint_group; and the
+ * density grid at its largest (about 1003 x 1003 cells with the automatic cell, DRAGARC_SCATTER_GRID_MAX_CELLS with
+ * a given one). A population file adds its grid (8 bytes a cell), not counted here. */
+double dragarc_footprint_memory_estimate(const dragarc_footprint_spec *spec);
+
 /* Fly every sample of every class into out (nclasses x samples entries, class-major; the caller allocates).
  * Runs in parallel with OpenMP; the result does not depend on the thread count. A failed flight is recorded in
  * its entry's status and does not stop the run. `progress`, when not NULL, is called from one thread now and then

@@ -125,6 +125,11 @@ typedef struct dragarc_scatter_grid {
 int dragarc_scatter_grid_build(size_t n, const double *east, const double *north, const double *weight, double cell,
                                dragarc_scatter_density density, dragarc_scatter_grid *g, dragarc_error *err);
 
+/* The most memory (bytes) a grid of `cells` cells takes at once while it is built and its regions traced
+ * (dragarc_scatter_grid_build, then dragarc_scatter_region_of): its values and the histogram it is counted in, and
+ * the region's sorted cells, flags, pieces, vertex marks and boundary paths. Pure arithmetic on sizeof. */
+double dragarc_scatter_grid_memory(size_t cells);
+
 /* Free what dragarc_scatter_grid_build allocated; the struct may then be reused. NULL is fine. */
 void dragarc_scatter_grid_clear(dragarc_scatter_grid *g);
 

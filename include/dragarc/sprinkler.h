@@ -117,6 +117,11 @@ int dragarc_sprinkler_spec_read(const char *path, dragarc_sprinkler_spec *out, d
 int dragarc_sprinkler_spec_parse(const char *json, dragarc_sprinkler_spec *out, dragarc_error *err);
 void dragarc_sprinkler_spec_clear(dragarc_sprinkler_spec *spec);
 
+/* The most memory (bytes) a run of spec takes (pure arithmetic): per flight (classes x directions) a
+ * dragarc_sprinkler_drop and its notes; the grid and the rings at their largest (4e6 cells and 1e6 rings, a double
+ * each); per class its diameter, fraction and dragarc_spectrum_class; the layout's catch points. */
+double dragarc_sprinkler_memory_estimate(const dragarc_sprinkler_spec *spec);
+
 /* Discretise spec's spectrum and fly it: dragarc_sprinkler_run with the spec's request, and progress (NULL: none)
  * as its progress callback. The classes are written to classes (caller's array of spec->nclasses). */
 int dragarc_sprinkler_spec_run(const dragarc_sprinkler_spec *spec, dragarc_spectrum_class *classes,

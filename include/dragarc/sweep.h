@@ -150,6 +150,10 @@ int dragarc_sweep_run_progress(const dragarc_scenario *base, const dragarc_sweep
                                void (*progress)(size_t done, size_t total, void *user), void *user,
                                dragarc_sweep *out, dragarc_error *err);
 
+/* The memory (bytes) a table of nrows rows takes: nrows dragarc_sweep_row (pure arithmetic). A row that fails
+ * adds its dragarc_error, not counted here. */
+double dragarc_sweep_memory_estimate(size_t nrows);
+
 /* Free the rows and their errors and zero the record. Safe on a zeroed record and NULL. */
 void dragarc_sweep_clear(dragarc_sweep *t);
 

@@ -156,6 +156,12 @@ int cli_aim_load(const char *cmd, const cli_common *c, const dragarc_aim_request
 int cli_sprinkler_load(const char *path, int quiet, dragarc_sprinkler_spec *spec, dragarc_spectrum_class **classes,
                        dragarc_sprinkler_result *r);
 int cli_drift_load(const char *path, dragarc_drift_spec *spec, dragarc_spectrum_class **classes, dragarc_drift_result *r);
+/* The machine's physical memory in bytes (sysconf _SC_PHYS_PAGES x _SC_PAGESIZE; 0 when unknown). */
+double cli_physical_memory(void);
+
+/* Refuse, before any work, a run that needs more than the machine's physical memory (dragarc_memory_check): 0, or
+ * the exit status (2) after "dragarc: WHERE: FIELD: the run needs about ... of memory, more than ...". */
+int cli_memory_check(const char *where, const char *field, double need);
 
 int cmd_fly(int argc, char **argv);
 int cmd_report(int argc, char **argv);
@@ -172,13 +178,20 @@ int cmd_uniformity(int argc, char **argv);
 /* A progress bar on stderr for long runs: shown only when stderr is a terminal and `quiet` is 0, first after a
  * second of work, with the share done and an estimate of the time left; cli_progress_end clears its line. `unit`
  * names what is counted ("flights", "rows"). cli_progress_tick has the signature of the library's progress
- * callbacks (user: the cli_progress); it may be called from one thread at a time. */
+ * callbacks (user: the cli_progress); it may be called from one thread at a time.
+ * A big run (more than CLI_BIG_RUN flights or rows) first gets one line of its own, above the bar, when the bar
+ * first shows: "dragarc: 2400000 flights, about 1.1 GB, about 11 min on 2 threads", the time measured on the run's
+ * own first second (nothing is flown twice, and the results do not depend on it) and the memory from `bytes`
+ * (the command's memory estimate; 0 leaves it out). */
+#define CLI_BIG_RUN 20000
 typedef struct cli_progress {
     const char *unit;
-    time_t start;
+    struct timespec start;
+    double bytes;
     int enabled, shown;
 } cli_progress;
 void cli_progress_begin(cli_progress *p, const char *unit, int quiet);
+void cli_progress_plan(cli_progress *p, double bytes);
 void cli_progress_tick(size_t done, size_t total, void *user);
 void cli_progress_end(cli_progress *p);
 

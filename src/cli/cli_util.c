@@ -11,6 +11,7 @@
 #include "dragarc/cautions.h"
 #include "dragarc/output.h"
 #include "dragarc/plot.h"
+#include "dragarc/resources.h"
 #include "dragarc/sweep.h"
 #include "dragarc/units.h"
 
@@ -551,12 +552,57 @@ int cli_write_outputs(const cli_output_file *files, size_t n, const void *ctx,
 }
 
 
+double cli_physical_memory(void)
+{
+    long pages = sysconf(_SC_PHYS_PAGES), size = sysconf(_SC_PAGESIZE);
+    return pages > 0 && size > 0 ? (double)pages * (double)size : 0.0;
+}
+
+int cli_memory_check(const char *where, const char *field, double need)
+{
+    dragarc_error err;
+    if (dragarc_memory_check(need, cli_physical_memory(), field, &err) != DRAGARC_OK)
+        return cli_report(where, &err);
+    return 0;
+}
+
 void cli_progress_begin(cli_progress *p, const char *unit, int quiet)
 {
     p->unit = unit;
-    p->start = time(NULL);
+    timespec_get(&p->start, TIME_UTC); /* C17 has no monotonic clock; a second of drift only skews the estimate */
+    p->bytes = 0.0;
     p->enabled = !quiet && isatty(STDERR_FILENO);
     p->shown = 0;
+}
+
+void cli_progress_plan(cli_progress *p, double bytes)
+{
+    p->bytes = bytes;
+}
+
+/* s seconds as "40 s", "11 min" or "2.5 h" */
+static void format_duration(double s, char *buf, size_t size)
+{
+    if (s < 90.0)
+        snprintf(buf, size, "%.0f s", s);
+    else if (s < 5400.0)
+        snprintf(buf, size, "%.0f min", s / 60.0);
+    else
+        snprintf(buf, size, "%.1f h", s / 3600.0);
+}
+
+/* The big run's one line: its size, memory and the whole run's time at the pace of its first el seconds. */
+static void print_plan(const cli_progress *p, size_t done, size_t total, double el)
+{
+    char mem[48] = "", when[32];
+    if (p->bytes > 0.0) {
+        char b[32];
+        dragarc_bytes_format(p->bytes, b, sizeof b);
+        snprintf(mem, sizeof mem, ", about %s", b);
+    }
+    format_duration(el * (double)total / (double)done, when, sizeof when);
+    int n = dragarc_threads();
+    fprintf(stderr, "dragarc: %zu %s%s, about %s on %d thread%s\n", total, p->unit, mem, when, n, n == 1 ? "" : "s");
 }
 
 void cli_progress_tick(size_t done, size_t total, void *user)
@@ -564,9 +610,13 @@ void cli_progress_tick(size_t done, size_t total, void *user)
     cli_progress *p = user;
     if (!p->enabled || total == 0)
         return;
-    double el = difftime(time(NULL), p->start);
+    struct timespec now;
+    timespec_get(&now, TIME_UTC);
+    double el = (double)(now.tv_sec - p->start.tv_sec) + 1e-9 * (double)(now.tv_nsec - p->start.tv_nsec);
     if (el < 1.0 && done < total)
         return;
+    if (!p->shown && total > CLI_BIG_RUN && done > 0 && done < total)
+        print_plan(p, done, total, el);
     double left = done > 0 ? el * (double)(total - done) / (double)done : 0.0;
     int w = 30, f = (int)(w * (double)done / (double)total);
     fprintf(stderr, "\r  [%.*s%*s] %zu/%zu %s, about %.0f s left ", f, "##############################", w - f, "",

@@ -14,6 +14,7 @@
 #include "dragarc/geodesy.h"
 #include "dragarc/output.h"
 #include "dragarc/plot.h"
+#include "dragarc/resources.h"
 
 static const char HELP[] =
     "usage: dragarc footprint SCENARIO [--samples N] [--seed S] [--json] [--points FILE.csv] [--grid FILE.csv]\n"
@@ -208,8 +209,11 @@ int cmd_footprint(int argc, char **argv)
     memset(&sum, 0, sizeof sum);
     dragarc_impact *im = NULL;
     const dragarc_hazard_options *h = &spec.hazard;
+    const double need = dragarc_footprint_memory_estimate(&spec);
     if (dragarc_footprint_check(&spec, &err) != DRAGARC_OK)
         status = cli_report(path, &err);
+    else if ((status = cli_memory_check(path, "footprint.samples", need)) != EXIT_OK)
+        ; /* reported: nothing is read, allocated or flown */
     else if (h->population_given &&
              (h->population_file[0] ? dragarc_population_read(h->population_file, &pop, &err)
                                     : dragarc_population_uniform(&pop, h->density, &err)) != DRAGARC_OK)
@@ -223,6 +227,7 @@ int cmd_footprint(int argc, char **argv)
     if (status == EXIT_OK) {
         cli_progress bar;
         cli_progress_begin(&bar, "flights", quiet);
+        cli_progress_plan(&bar, need);
         int rc = dragarc_footprint_run(&spec, im, bar.enabled ? cli_progress_tick : NULL, &bar, &err);
         cli_progress_end(&bar);
         if (rc != DRAGARC_OK)

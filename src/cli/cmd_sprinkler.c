@@ -110,6 +110,10 @@ int cli_sprinkler_load(const char *path, int quiet, dragarc_sprinkler_spec *spec
     *classes = NULL;
     if (dragarc_sprinkler_spec_read(path, spec, &err) != DRAGARC_OK)
         return cli_report(path, &err);
+    const double need = dragarc_sprinkler_memory_estimate(spec);
+    int st = cli_memory_check(path, "sprinkler.directions", need);
+    if (st != EXIT_OK)
+        return st;
     *classes = calloc(spec->nclasses, sizeof **classes);
     if (!*classes) {
         dragarc_error_set(&err, DRAGARC_ENOMEM, "", "out of memory");
@@ -117,6 +121,7 @@ int cli_sprinkler_load(const char *path, int quiet, dragarc_sprinkler_spec *spec
     }
     cli_progress bar;
     cli_progress_begin(&bar, "flights", quiet);
+    cli_progress_plan(&bar, need);
     int rc = dragarc_sprinkler_spec_run(spec, *classes, bar.enabled ? cli_progress_tick : NULL, &bar, r, &err);
     cli_progress_end(&bar);
     return rc == DRAGARC_OK ? EXIT_OK : cli_report(path, &err);

@@ -424,8 +424,12 @@ int cmd_table(int argc, char **argv)
         return aim_table(file, ranges, height, format, output, plot, dp);
     if (naxes == 0)
         return cli_usage_error("table", "needs at least one --vary NAME=START:STOP:STEP");
-    if (dragarc_sweep_axes_check(axes, naxes, NULL, &err) != DRAGARC_OK)
+    size_t nrows;
+    if (dragarc_sweep_axes_check(axes, naxes, &nrows, &err) != DRAGARC_OK)
         return cli_usage_error("table", "--vary: %s%s%s", err.field, err.field[0] ? ": " : "", err.message);
+    const double need = dragarc_sweep_memory_estimate(nrows);
+    if ((st = cli_memory_check("table", "--vary", need)) != 0)
+        return st;
     dragarc_sweep_column column = DRAGARC_SWEEP_RANGE;
     if (plot && (st = plot_choice(plot_column, axes, naxes, &column)) != 0)
         return st;
@@ -436,6 +440,7 @@ int cmd_table(int argc, char **argv)
     dragarc_sweep t;
     cli_progress bar;
     cli_progress_begin(&bar, "rows", quiet);
+    cli_progress_plan(&bar, need);
     int rc = dragarc_sweep_run_progress(&s, axes, naxes, bar.enabled ? cli_progress_tick : NULL, &bar, &t, &err);
     cli_progress_end(&bar);
     dragarc_scenario_clear(&s);

@@ -170,6 +170,17 @@ int dragarc_footprint_check(const dragarc_footprint_spec *spec, dragarc_error *e
     return DRAGARC_OK;
 }
 
+double dragarc_footprint_memory_estimate(const dragarc_footprint_spec *spec)
+{
+    const double flights = (double)spec->samples * (double)spec->nclasses;
+    const double per_flight = sizeof(dragarc_impact) + 6.0 * sizeof(double) + sizeof(dragarc_impact_point) +
+                              sizeof(double) + 4.0 * sizeof(double) + sizeof(size_t);
+    /* the automatic cell is at least 1/1000 of the longer side, plus one empty cell each side and the rounding */
+    const double cells = spec->cell > 0.0 ? (double)DRAGARC_SCATTER_GRID_MAX_CELLS : 1003.0 * 1003.0;
+    return flights * per_flight + ((double)spec->nclasses + 1.0) * sizeof(dragarc_footprint_group) +
+           dragarc_scatter_grid_memory((size_t)cells);
+}
+
 /* A unit vector in the cone of half-angle th about the unit axis a, from two uniforms: cos of the angle from the
  * axis uniform on [cos th, 1] (uniform over the cap's area) and the turn about it uniform on [0, 2 pi). */
 static void cone_direction(const double a[3], double th, double u1, double u2, double out[3])

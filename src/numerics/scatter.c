@@ -399,6 +399,16 @@ static int auto_cell(size_t n, const double *east, const double *north, const do
     return DRAGARC_OK;
 }
 
+double dragarc_scatter_grid_memory(size_t cells)
+{
+    /* build: g->value and the gsl_histogram2d bins, a double each; region_of: cells_by_density's values and order,
+     * the cells list, in[], comp[], one visited byte and one stack_pos per vertex (about one vertex per cell), and
+     * the two boundary paths of at most 4 vertices per cell */
+    double per_cell = 2.0 * sizeof(double) + sizeof(double) + 2.0 * sizeof(size_t) + 1.0 + sizeof(uint32_t) + 1.0 +
+                      sizeof(uint32_t) + 2.0 * 4.0 * sizeof(uint32_t);
+    return (double)cells * per_cell;
+}
+
 int dragarc_scatter_grid_build(size_t n, const double *east, const double *north, const double *weight, double cell,
                                dragarc_scatter_density density, dragarc_scatter_grid *g, dragarc_error *err)
 {

@@ -26,6 +26,16 @@
 #define MAX_CELLS 4000000        /* grid cells allowed */
 #define MAX_RINGS 1000000        /* profile rings allowed */
 
+double dragarc_sprinkler_memory_estimate(const dragarc_sprinkler_spec *spec)
+{
+    const double flights = (double)spec->nclasses * (double)spec->ndirections;
+    const double points = spec->layout_given ? (double)spec->layout_points * (double)spec->layout_points : 0.0;
+    return flights * (sizeof(dragarc_sprinkler_drop) + sizeof(unsigned)) +
+           (double)MAX_CELLS * sizeof(double) + (double)MAX_RINGS * sizeof(double) +
+           (double)spec->nclasses * (2.0 * sizeof(double) + sizeof(dragarc_spectrum_class)) +
+           points * sizeof(double);
+}
+
 void dragarc_sprinkler_clear(dragarc_sprinkler_result *r)
 {
     if (!r)

@@ -448,6 +448,11 @@ int dragarc_sweep_check(const dragarc_scenario *base, const dragarc_sweep_axis *
     return DRAGARC_OK;
 }
 
+double dragarc_sweep_memory_estimate(size_t nrows)
+{
+    return (double)nrows * sizeof(dragarc_sweep_row);
+}
+
 /* Rows between two calls of a progress callback. */
 #define PROGRESS_EVERY 16
 
