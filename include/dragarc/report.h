@@ -21,6 +21,7 @@
 #include "dragarc/dragarc.h"
 #include "dragarc/drift.h"
 #include "dragarc/flight.h"
+#include "dragarc/footprint.h"
 #include "dragarc/plot.h"
 #include "dragarc/scenario.h"
 #include "dragarc/sprinkler.h"
@@ -130,6 +131,15 @@ int dragarc_report_sprinkler(dragarc_report *r, const char *where, const dragarc
  * DRAGARC_ENOMEM. */
 int dragarc_report_drift(dragarc_report *r, const char *where, const dragarc_drift_spec *spec,
                          const dragarc_spectrum_class *classes, const dragarc_drift_result *res, dragarc_error *err);
+
+/* The `footprint` report of footprint scenario sp (read from file `where`), its impacts and their summary s
+ * (dragarc_footprint_run, dragarc_footprint_summarise): the breakup and its spreads, the fragment classes, where each
+ * class and all fragments come down (mean, 1 sigma ellipse, impact speeds and energies, the share at or above the
+ * hazard energy, E_c), the extents and contours, the published criteria as references, the `footprint --plot`
+ * maps, the debris cautions and the models used; SI units. DRAGARC_EINVAL when s is not a summary of sp's run;
+ * otherwise errors as dragarc_footprint_plot, DRAGARC_ENOMEM. */
+int dragarc_report_footprint(dragarc_report *r, const char *where, const dragarc_footprint_spec *sp,
+                             const dragarc_impact *impacts, const dragarc_footprint_summary *s, dragarc_error *err);
 
 #ifdef __cplusplus
 }

@@ -10,6 +10,8 @@
 #include "dragarc/aim.h"
 #include "dragarc/dragarc.h"
 #include "dragarc/drift.h"
+#include "dragarc/footprint.h"
+#include "dragarc/population.h"
 #include "dragarc/sprinkler.h"
 #include "dragarc/flight.h"
 #include "dragarc/quantity.h"
@@ -156,6 +158,17 @@ int cli_aim_load(const char *cmd, const cli_common *c, const dragarc_aim_request
 int cli_sprinkler_load(const char *path, int quiet, dragarc_sprinkler_spec *spec, dragarc_spectrum_class **classes,
                        dragarc_sprinkler_result *r);
 int cli_drift_load(const char *path, dragarc_drift_spec *spec, dragarc_spectrum_class **classes, dragarc_drift_result *r);
+
+/* A whole number from lo to hi given to option opt of cmd (text NULL: missing) into *out: 0, or the exit status of
+ * the usage error printed ("--samples must be a whole number from 1 to 10000000 (got 'x')"). */
+int cli_count_argument(const char *cmd, const char *opt, const char *text, double lo, double hi, double *out);
+
+/* Read the footprint scenario at path (with --samples and --seed when > 0 and >= 0), check it and its memory need,
+ * read its population, fly it with a progress bar unless quiet, and summarise it into *sum: shared by `footprint`
+ * and `report`. EXIT_OK, or the exit status of the error printed; either way the caller clears *spec, *pop and *sum
+ * and frees *impacts. */
+int cli_footprint_load(const char *path, double samples, double seed, int quiet, dragarc_footprint_spec *spec,
+                       dragarc_population *pop, dragarc_impact **impacts, dragarc_footprint_summary *sum);
 /* The machine's physical memory in bytes (sysconf _SC_PHYS_PAGES x _SC_PAGESIZE; 0 when unknown). */
 double cli_physical_memory(void);
 

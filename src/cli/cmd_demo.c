@@ -25,7 +25,7 @@ static const char HELP[] =
     "\n"
     "Fly built-in example scenarios (a practice ball in a breeze, a sprinkler droplet, a fragment shed at\n"
     "3 km, one spinning ball driven at two venues, a garden sprinkler, a boom sprayer and a rocket's debris)\n"
-    "and explain what each shows. Their pictures (SVG) and an HTML report go into a folder: dragarc-demo\n"
+    "and explain what each shows. Their pictures (SVG) and two HTML reports go into a folder: dragarc-demo\n"
     "in the current folder unless --out names another (made if missing; files of the same names in it\n"
     "are replaced, each written whole or not at all). No file is read.\n"
     "\n"
@@ -293,6 +293,14 @@ static int demo_footprint(unsigned *notes, demo_files *o)
         char path[4200];
         if (demo_path(o, "8-debris-footprint.svg", path, sizeof path))
             rc = demo_wrote(o, "8-debris-footprint.svg", dragarc_footprint_plot(path, &sp, im, &s, NULL, &err), &err);
+        if (rc == EXIT_OK && demo_path(o, "report-debris-footprint.html", path, sizeof path)) {
+            dragarc_report *rep = NULL;
+            int w = dragarc_report_new(&rep, sp.base.name, "footprint", &err);
+            if (w == DRAGARC_OK && (w = dragarc_report_footprint(rep, "dragarc demo", &sp, im, &s, &err)) == DRAGARC_OK)
+                w = dragarc_report_write_html(rep, path, &err);
+            dragarc_report_free(rep);
+            rc = demo_wrote(o, "report-debris-footprint.html", w, &err);
+        }
     } else {
         rc = cli_report("demo", &err);
     }
@@ -463,7 +471,7 @@ int cmd_demo(int argc, char **argv)
     /* One list of cautions for the whole demo: the model limits plus whatever any case called for. */
     dragarc_cautions_print(stdout, notes, 100);
     if (files.dir) {
-        printf("\nPictures and a report, written into %s/ (open the .html file in a browser):\n", files.dir);
+        printf("\nPictures and reports, written into %s/ (open the .html files in a browser):\n", files.dir);
         for (size_t i = 0; i < files.count; i++)
             printf("  %s\n", files.names[i]);
     }

@@ -141,7 +141,7 @@ static void print_summary(const dragarc_footprint_spec *sp, const dragarc_footpr
     dragarc_cautions_print(stdout, DRAGARC_NOTE_DEBRIS, 100);
 }
 
-static int count_arg(const char *cmd, const char *opt, const char *text, double lo, double hi, double *out)
+int cli_count_argument(const char *cmd, const char *opt, const char *text, double lo, double hi, double *out)
 {
     double v;
     if (!text)
@@ -150,6 +150,50 @@ static int count_arg(const char *cmd, const char *opt, const char *text, double 
         return cli_usage_error(cmd, "%s must be a whole number from %.0f to %.0f (got '%s')", opt, lo, hi, text);
     *out = v;
     return 0;
+}
+
+int cli_footprint_load(const char *path, double samples, double seed, int quiet, dragarc_footprint_spec *spec,
+                       dragarc_population *pop, dragarc_impact **impacts, dragarc_footprint_summary *sum)
+{
+    dragarc_error err;
+    memset(pop, 0, sizeof *pop);
+    memset(sum, 0, sizeof *sum);
+    *impacts = NULL;
+    if (dragarc_footprint_spec_read(path, spec, &err) != DRAGARC_OK)
+        return cli_report(path, &err);
+    if (samples > 0.0)
+        spec->samples = (size_t)samples;
+    if (seed >= 0.0)
+        spec->seed = (uint64_t)seed;
+    int status = EXIT_OK;
+    const dragarc_hazard_options *h = &spec->hazard;
+    const double need = dragarc_footprint_memory_estimate(spec);
+    if (dragarc_footprint_check(spec, &err) != DRAGARC_OK)
+        status = cli_report(path, &err);
+    else if ((status = cli_memory_check(path, "footprint.samples", need)) != EXIT_OK)
+        ; /* reported: nothing is read, allocated or flown */
+    else if (h->population_given &&
+             (h->population_file[0] ? dragarc_population_read(h->population_file, pop, &err)
+                                    : dragarc_population_uniform(pop, h->density, &err)) != DRAGARC_OK)
+        status = cli_report(h->population_file[0] ? NULL : path, &err);
+    else if (h->population_file[0] && dragarc_population_set_background(pop, h->background, &err) != DRAGARC_OK)
+        status = cli_report(path, &err);
+    else if (!(*impacts = malloc(spec->nclasses * spec->samples * sizeof **impacts))) {
+        dragarc_error_set(&err, DRAGARC_ENOMEM, "", "out of memory for %zu flights", spec->nclasses * spec->samples);
+        status = cli_report(path, &err);
+    }
+    if (status == EXIT_OK) {
+        cli_progress bar;
+        cli_progress_begin(&bar, "flights", quiet);
+        cli_progress_plan(&bar, need);
+        int rc = dragarc_footprint_run(spec, *impacts, bar.enabled ? cli_progress_tick : NULL, &bar, &err);
+        cli_progress_end(&bar);
+        if (rc != DRAGARC_OK)
+            status = cli_report(path, &err);
+        else if (dragarc_footprint_summarise(spec, *impacts, h->population_given ? pop : NULL, sum, &err) != DRAGARC_OK)
+            status = cli_report(path, &err);
+    }
+    return status;
 }
 
 int cmd_footprint(int argc, char **argv)
@@ -166,11 +210,11 @@ int cmd_footprint(int argc, char **argv)
         else if (strcmp(a, "--quiet") == 0)
             quiet = 1;
         else if (strcmp(a, "--samples") == 0) {
-            if ((st = count_arg("footprint", a, i + 1 < argc ? argv[++i] : NULL, 1, DRAGARC_FOOTPRINT_MAX_SAMPLES,
+            if ((st = cli_count_argument("footprint", a, i + 1 < argc ? argv[++i] : NULL, 1, DRAGARC_FOOTPRINT_MAX_SAMPLES,
                                 &samples)) != 0)
                 return st;
         } else if (strcmp(a, "--seed") == 0) {
-            if ((st = count_arg("footprint", a, i + 1 < argc ? argv[++i] : NULL, 0, 9007199254740992.0, &seed)) != 0)
+            if ((st = cli_count_argument("footprint", a, i + 1 < argc ? argv[++i] : NULL, 0, 9007199254740992.0, &seed)) != 0)
                 return st;
         } else if (strcmp(a, "--points") == 0 || strcmp(a, "--geojson") == 0 || strcmp(a, "--grid") == 0) {
             if (++i >= argc)
@@ -195,46 +239,11 @@ int cmd_footprint(int argc, char **argv)
         if (files[k] && strcmp(files[k], plot) == 0)
             return cli_usage_error("footprint", "--plot and %s name the same file '%s'", opts[k], plot);
     dragarc_footprint_spec spec;
-    dragarc_error err;
-    if (dragarc_footprint_spec_read(path, &spec, &err) != DRAGARC_OK)
-        return cli_report(path, &err);
-    if (samples > 0.0)
-        spec.samples = (size_t)samples;
-    if (seed >= 0.0)
-        spec.seed = (uint64_t)seed;
-    int status = EXIT_OK;
     dragarc_population pop;
-    memset(&pop, 0, sizeof pop);
     dragarc_footprint_summary sum;
-    memset(&sum, 0, sizeof sum);
     dragarc_impact *im = NULL;
-    const dragarc_hazard_options *h = &spec.hazard;
-    const double need = dragarc_footprint_memory_estimate(&spec);
-    if (dragarc_footprint_check(&spec, &err) != DRAGARC_OK)
-        status = cli_report(path, &err);
-    else if ((status = cli_memory_check(path, "footprint.samples", need)) != EXIT_OK)
-        ; /* reported: nothing is read, allocated or flown */
-    else if (h->population_given &&
-             (h->population_file[0] ? dragarc_population_read(h->population_file, &pop, &err)
-                                    : dragarc_population_uniform(&pop, h->density, &err)) != DRAGARC_OK)
-        status = cli_report(h->population_file[0] ? NULL : path, &err);
-    else if (h->population_file[0] && dragarc_population_set_background(&pop, h->background, &err) != DRAGARC_OK)
-        status = cli_report(path, &err);
-    else if (!(im = malloc(spec.nclasses * spec.samples * sizeof *im))) {
-        dragarc_error_set(&err, DRAGARC_ENOMEM, "", "out of memory for %zu flights", spec.nclasses * spec.samples);
-        status = cli_report(path, &err);
-    }
-    if (status == EXIT_OK) {
-        cli_progress bar;
-        cli_progress_begin(&bar, "flights", quiet);
-        cli_progress_plan(&bar, need);
-        int rc = dragarc_footprint_run(&spec, im, bar.enabled ? cli_progress_tick : NULL, &bar, &err);
-        cli_progress_end(&bar);
-        if (rc != DRAGARC_OK)
-            status = cli_report(path, &err);
-        else if (dragarc_footprint_summarise(&spec, im, h->population_given ? &pop : NULL, &sum, &err) != DRAGARC_OK)
-            status = cli_report(path, &err);
-    }
+    dragarc_error err;
+    int status = cli_footprint_load(path, samples, seed, quiet, &spec, &pop, &im, &sum);
     /* the plot first: a plot that cannot be drawn (a driver, a folder) then leaves none of the other files */
     if (status == EXIT_OK && plot && dragarc_footprint_plot(plot, &spec, im, &sum, NULL, &err) != DRAGARC_OK) {
         err.field[0] = '\0';

@@ -26,7 +26,7 @@ static const char HELP[] =
     "from a browser (docs/report.md).\n"
     "\n"
     "  -o, --output FILE    the HTML file (.html or .htm), written whole or not at all\n"
-    "  --command KIND       the command to report on: fly (the default), aim, sprinkler or drift\n"
+    "  --command KIND       the command to report on: fly (the default), aim, sprinkler, drift or footprint\n"
     "  -h, --help           this help\n"
     "\n"
     "fly options:\n"
@@ -43,6 +43,8 @@ static const char HELP[] =
     "sprinkler options:\n"
     "  --quiet              no progress bar (it shows only when stderr is a terminal)\n"
     "drift: no options. The sprinkler and drift reports are in SI units, as those commands print them.\n"
+    "footprint options, as for `dragarc footprint`:\n"
+    "  --samples N  --seed S  --quiet      (SI units, as `dragarc footprint` prints them)\n"
     "\n"
     "The date is the current time in UTC, or SOURCE_DATE_EPOCH (seconds since 1970) when that is set, for\n"
     "reports that come out the same byte for byte. Figures are drawn for a moment in $TMPDIR, else beside FILE.\n"
@@ -67,6 +69,7 @@ static int kind_fly(const report_job *job, dragarc_report **out);
 static int kind_aim(const report_job *job, dragarc_report **out);
 static int kind_sprinkler(const report_job *job, dragarc_report **out);
 static int kind_drift(const report_job *job, dragarc_report **out);
+static int kind_footprint(const report_job *job, dragarc_report **out);
 
 struct report_kind {
     const char *name;
@@ -79,6 +82,7 @@ static const char *const AIM_OPTIONS[] = {"--range", "--height", "--crossrange",
                                           "--units", "--unit", NULL};
 static const char *const SPRINKLER_OPTIONS[] = {"--quiet", NULL};
 static const char *const DRIFT_OPTIONS[] = {NULL};
+static const char *const FOOTPRINT_OPTIONS[] = {"--samples", "--seed", "--quiet", NULL};
 
 /* The kinds that exist. A kind is added with one line here and one function (DEVELOPERS.md). */
 static const report_kind KINDS[] = {
@@ -86,6 +90,7 @@ static const report_kind KINDS[] = {
     {"aim", kind_aim, AIM_OPTIONS},
     {"sprinkler", kind_sprinkler, SPRINKLER_OPTIONS},
     {"drift", kind_drift, DRIFT_OPTIONS},
+    {"footprint", kind_footprint, FOOTPRINT_OPTIONS},
 };
 #define NKINDS (sizeof KINDS / sizeof KINDS[0])
 
@@ -290,6 +295,49 @@ static int kind_drift(const report_job *job, dragarc_report **out)
     dragarc_drift_clear(&r);
     free(classes);
     dragarc_drift_spec_clear(&spec);
+    return st;
+}
+
+static int kind_footprint(const report_job *job, dragarc_report **out)
+{
+    cli_common c = {0};
+    int quiet = 0, st;
+    double samples = -1.0, seed = -1.0;
+    for (int i = 1; i < job->argc; i++) {
+        const char *a = job->argv[i];
+        const char *next = i + 1 < job->argc ? job->argv[i + 1] : NULL;
+        if (strcmp(a, "--quiet") == 0) {
+            quiet = 1;
+        } else if (strcmp(a, "--samples") == 0) {
+            if ((st = cli_count_argument("report", a, next, 1, DRAGARC_FOOTPRINT_MAX_SAMPLES, &samples)) != 0)
+                return st;
+            i++;
+        } else if (strcmp(a, "--seed") == 0) {
+            if ((st = cli_count_argument("report", a, next, 0, 9007199254740992.0, &seed)) != 0)
+                return st;
+            i++;
+        } else if ((st = other_argument(job, &i, &c)) != 0) {
+            return st;
+        }
+    }
+    if (!c.file || !*c.file)
+        return cli_usage_error("report", "needs a scenario file");
+    dragarc_footprint_spec spec;
+    dragarc_population pop;
+    dragarc_footprint_summary sum;
+    dragarc_impact *im = NULL;
+    dragarc_error err;
+    if ((st = cli_footprint_load(c.file, samples, seed, quiet, &spec, &pop, &im, &sum)) == EXIT_OK) {
+        if (new_report(job, c.file, spec.base.name, out, &err) != DRAGARC_OK ||
+            dragarc_report_footprint(*out, c.file, &spec, im, &sum, &err) != DRAGARC_OK)
+            st = fill_failed(&err);
+        else
+            dragarc_report_set_date(*out, job->date);
+    }
+    dragarc_footprint_summary_clear(&sum);
+    dragarc_population_clear(&pop);
+    free(im);
+    dragarc_footprint_spec_clear(&spec);
     return st;
 }
 

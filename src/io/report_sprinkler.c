@@ -164,8 +164,12 @@ int dragarc_report_sprinkler(dragarc_report *r, const char *where, const dragarc
         (rc = pattern(r, res, err)) != DRAGARC_OK || (rc = profile_table(r, sp, res, err)) != DRAGARC_OK ||
         (rc = dragarc_report_section(r, "Figures", err)) != DRAGARC_OK ||
         (rc = dragarc_report_figure_draw(r,
-                                         "The radial profile with the wetted radius; the pattern as a colour map "
-                                         "with the wind at the nozzle, a scale bar and north.",
+                                         res->layout_done
+                                             ? "The radial profile with the wetted radius; the pattern as a colour "
+                                               "map with the wind at the nozzle, a scale bar and north; the rates "
+                                               "overlapped on the layout over its cell, the sprinklers at its corners."
+                                             : "The radial profile with the wetted radius; the pattern as a colour "
+                                               "map with the wind at the nozzle, a scale bar and north.",
                                          draw_sprinkler, &job, err)) != DRAGARC_OK ||
         (rc = dragarc_report_section(r, "By drop size", err)) != DRAGARC_OK ||
         (rc = classes_table(r, classes, res, err)) != DRAGARC_OK ||

@@ -1,5 +1,5 @@
 #!/usr/bin/python3
-# check_demo.py: `dragarc demo` writes its pictures and report into the folder it names. The folder holds exactly
+# check_demo.py: `dragarc demo` writes its pictures and reports into the folder it names. The folder holds exactly
 # the files the demo lists, each a valid SVG (plot_files.py) or a self-contained HTML page with its figures inline;
 # a second run replaces them and leaves no temporary file; --no-files writes nothing; the text printed is the same
 # with and without files, apart from the closing list.
@@ -18,7 +18,7 @@ from plot_files import check, tally, validate
 BIN = os.path.abspath(sys.argv[1])
 ENV = dict(os.environ, LC_ALL="C")
 ENV.pop("DRAGARC_PROFILE_PATH", None)
-LISTED = "Pictures and a report, written into"
+LISTED = "Pictures and reports, written into"
 
 
 def run(args, cwd):
@@ -32,7 +32,7 @@ with tempfile.TemporaryDirectory(prefix="dragarc-demo.") as work:
     folder = os.path.join(work, "dragarc-demo")
     names = sorted(os.listdir(folder)) if os.path.isdir(folder) else []
     listed = sorted(line.strip() for line in out.split(LISTED, 1)[-1].splitlines()[1:] if line.startswith("  "))
-    check("default: the folder holds what the demo lists", names == listed and len(names) == 10,
+    check("default: the folder holds what the demo lists", names == listed and len(names) == 11,
           f"{names} against {listed}")
     check("default: nothing else in the current folder", os.listdir(work) == ["dragarc-demo"], str(os.listdir(work)))
     for name in names:

@@ -98,7 +98,7 @@ def run(dragarc, data, browser, work):
 
     # usage errors: one line, exit 2, no file
     examples = os.path.join(os.path.dirname(os.path.dirname(data)), "docs", "examples")
-    for args, text in [(["--command", "frobnicate"], "available: fly, aim, sprinkler, drift"),
+    for args, text in [(["--command", "frobnicate"], "available: fly, aim, sprinkler, drift, footprint"),
                        (["--command", "aim", "-o", "x.html"], "needs --range METRES"),
                        (["--command", "aim", "-o", "x.html", "--range", "-3"], "--range must be positive"),
                        (["--command", "aim", "-o", "x.html", "--range", "60", "--solve", "spin"],
@@ -108,6 +108,8 @@ def run(dragarc, data, browser, work):
                         "--dt is an option of the fly report, not of the aim report"),
                        (["--command", "drift", "-o", "x.html", "--units", "us"],
                         "--units: the drift report takes no units"),
+                       (["--command", "footprint", "-o", "x.html", "--samples", "0"],
+                        "--samples must be a whole number from 1 to"),
                        (["--command", "sprinkler", "-o", "x.html", "--plot-scale", "free"],
                         "--plot-scale is an option of the fly report, not of the sprinkler report"),
                        ([], "needs the output file: -o FILE.html"),
@@ -146,9 +148,11 @@ def run(dragarc, data, browser, work):
     for kind, args, tables, size, text in [
             ("aim", [scenario, "--command", "aim", "--range", "60"], 4, (1000, 2300), "<td>2 (lofted)</td>"),
             ("sprinkler", [os.path.join(examples, "sprinkler-garden.json"), "--command", "sprinkler", "--quiet"], 5,
-             (1000, 3300), "wetted radius</th><td>10.00 m"),
+             (1000, 3900), "wetted radius</th><td>10.00 m"),
             ("drift", [os.path.join(examples, "drift-boom.json"), "--command", "drift"], 4, (1000, 2700),
-             "90 % deposits</th><td>within 0.47 m downwind")]:
+             "90 % deposits</th><td>within 0.47 m downwind"),
+            ("footprint", [os.path.join(examples, "footprint-rocket.json"), "--command", "footprint", "--samples",
+                           "300", "--quiet"], 5, (1000, 3600), "samples</th><td>300 per class, 900 flights, seed 42")]:
         page_k = os.path.join(work, kind + ".html")
         r = dragarc_run(dragarc, ["report"] + args + ["-o", page_k], work)
         check(r.returncode == 0 and r.stdout == "" and r.stderr == "", "%s: exit %d, %r" % (kind, r.returncode, r.stderr))

@@ -412,6 +412,57 @@ TEST(the_drift_report_holds_the_deposit_distances_spectrum_figure_and_cautions)
     dragarc_drift_spec_clear(&sp);
 }
 
+/* The footprint report: the summary's own numbers (the E_c of all fragments, each class's landed flights), the
+ * published criteria as references, the maps, and exactly the debris cautions `footprint` prints. A small run
+ * (60 samples a class) of the invented example keeps it quick; the numbers are compared with the same run's
+ * summary, not with fixed values. */
+TEST(the_footprint_report_holds_the_classes_summary_criteria_maps_and_cautions)
+{
+    dragarc_footprint_spec sp;
+    dragarc_error e;
+    CHECK(dragarc_footprint_spec_read(EXAMPLES_DIR "/footprint-rocket.json", &sp, &e) == DRAGARC_OK);
+    sp.samples = 60;
+    dragarc_impact *im = malloc(sp.nclasses * sp.samples * sizeof *im);
+    dragarc_population pop;
+    dragarc_footprint_summary s;
+    memset(&pop, 0, sizeof pop);
+    memset(&s, 0, sizeof s);
+    CHECK(im && dragarc_population_uniform(&pop, sp.hazard.density, &e) == DRAGARC_OK);
+    CHECK(dragarc_footprint_run(&sp, im, NULL, NULL, &e) == DRAGARC_OK);
+    CHECK(dragarc_footprint_summarise(&sp, im, &pop, &s, &e) == DRAGARC_OK);
+    dragarc_report *r;
+    CHECK(dragarc_report_new(&r, sp.base.name, "footprint", &e) == DRAGARC_OK);
+    CHECK(dragarc_report_set_scratch_dir(r, dir, &e) == DRAGARC_OK);
+    /* a summary of another run is refused */
+    dragarc_footprint_summary other = s;
+    other.ngroups = 1;
+    CHECK_ERROR(dragarc_report_footprint(r, "x.json", &sp, im, &other, &e), DRAGARC_EINVAL, e, "", "summarised run");
+    CHECK(dragarc_report_footprint(r, "footprint-rocket.json", &sp, im, &s, &e) == DRAGARC_OK);
+    char *html = written(r, "footprint.html");
+    CHECK(html != NULL);
+    if (html) {
+        char want[128];
+        snprintf(want, sizeof want, "expected casualties</th><td>E_c = %.3e</td>", s.casualty.expected_casualties);
+        CHECK(strstr(html, want) != NULL);
+        snprintf(want, sizeof want, "<td class=\"num\">%zu/%zu</td>", s.groups[0].landed, s.groups[0].flights);
+        CHECK(strstr(html, want) != NULL);
+        CHECK(strstr(html, "Published criteria, for comparison only (not an approval)") != NULL);
+        CHECK(strstr(html, "14 CFR 450.101") != NULL);
+        CHECK(count(html, "<figure>") == 1 && count(html, "<svg ") == 1);
+        CHECK(strstr(html, "Matsumoto, M. &amp; Nishimura") != NULL && strstr(html, "Karney") != NULL);
+        const char *c[DRAGARC_CAUTIONS_MAX];
+        size_t nc = dragarc_cautions_notes(DRAGARC_NOTE_DEBRIS, c, DRAGARC_CAUTIONS_MAX);
+        CHECK(nc >= 2 && cautions_exactly(html, c, nc));
+    }
+    CHECK(entries(dir) == 0);
+    free(html);
+    dragarc_report_free(r);
+    dragarc_footprint_summary_clear(&s);
+    dragarc_population_clear(&pop);
+    free(im);
+    dragarc_footprint_spec_clear(&sp);
+}
+
 int main(void)
 {
     dragarc_init();
@@ -429,6 +480,7 @@ int main(void)
     RUN(the_aim_report_holds_every_solution_the_figure_and_the_cautions_aim_prints);
     RUN(the_sprinkler_report_holds_the_throw_profile_layout_figure_and_cautions);
     RUN(the_drift_report_holds_the_deposit_distances_spectrum_figure_and_cautions);
+    RUN(the_footprint_report_holds_the_classes_summary_criteria_maps_and_cautions);
     rmdir(dir);
     return check_summary();
 }
