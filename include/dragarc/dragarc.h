@@ -43,6 +43,12 @@ const char *dragarc_version(void);
 /* Process-wide set-up to call once before other calls: switches GSL's aborting error handler off so
  * that GSL failures come back as return codes. Idempotent. */
 void dragarc_init(void);
+/* Text in and out (scenario files, JSON, CSV, GeoJSON, reports) is read and written with the C library's number
+ * functions, whose decimal separator follows the LC_NUMERIC locale of the calling thread. The dragarc program
+ * never calls setlocale, so it runs in the "C" locale whatever the environment says (tests/cli/check_locale.py). A
+ * program that embeds the library and sets another LC_NUMERIC must call dragarc's text functions with "C" in force
+ * for the thread (uselocale(newlocale(LC_NUMERIC_MASK, "C", 0)) around them), or numbers are written with its
+ * decimal comma. */
 
 /* Fill err (if not NULL) with code, field path and a printf-style message; returns code, so that a
  * failing function can `return dragarc_error_set(err, DRAGARC_EINVAL, "launch.speed", "...")`. */
