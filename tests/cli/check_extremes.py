@@ -3,8 +3,8 @@
 # line that says why (the field at fault), never with a crash, a NaN or an infinity. The cases: a 1 um water drop
 # (from 2 m it stays aloft past the hour the solver allows: a clear failure; from 1 cm it lands, slowly), a
 # fragment at 10 km/s (Mach 30) from 1 km, a launch above the 86 km top of the U.S. Standard Atmosphere 1976 (a
-# clear refusal), tolerances of 1e-12 (the same range as the default ones to 1e-6, and finite), and a footprint
-# whose fragments leave at 10 km/s.
+# clear refusal), tolerances of 1e-12 (the same range as the default ones to 1e-6, and finite), a footprint
+# whose fragments leave at 10 km/s, and fragment catalogues of 100 000 and 100 001 rows.
 # SPDX-License-Identifier: GPL-3.0-or-later
 #
 # usage: check_extremes.py DRAGARC_BINARY
@@ -120,6 +120,22 @@ with tempfile.TemporaryDirectory(prefix="dragarc-extremes.") as work:
         check("fast breakup: works, every number in the groups finite", bad == [], str(bad[:5]))
     else:
         check("fast breakup: refused with one line", rc in (2, 3) and err.count("\n") == 1, f"exit {rc}, {err!r}")
+
+    # fragment catalogues at the limit of 100 000 classes (docs/limits.md): one row more is refused before anything is
+    # flown, with the line of the file; the limit itself is read, checked and refused only for its flights (100 000
+    # classes x 300 samples is over the 20 million flights a run may have)
+    for rows, want in ((100001, "more than 100000 classes"), (100000, "more than 20000000 flights")):
+        with open(os.path.join(work, "big.csv"), "w") as f:
+            f.write("name,count,mass,area,drag\n")
+            for i in range(rows):
+                f.write(f"piece {i},1,0.5,0.01,1.1\n")
+        big = dict(fp, fragments="big.csv", footprint={"samples": 300, "seed": 1})
+        with open(os.path.join(work, "big.json"), "w") as f:
+            json.dump(big, f)
+        rc, text, err = run(["footprint", "big.json", "--quiet", "--points", "big-points.csv"], work)
+        check(f"a catalogue of {rows} rows: exit 2, one line ({want})", rc == 2 and text == "" and
+              err.count("\n") == 1 and want in err, f"exit {rc}, {err!r}")
+        check(f"a catalogue of {rows} rows: no points file", not os.path.exists(os.path.join(work, "big-points.csv")))
 
 print(f"{tally['passed']} passed, {tally['failed']} failed")
 sys.exit(1 if tally["failed"] else 0)
