@@ -108,13 +108,16 @@ int dragarc_output_open(dragarc_output *o, const char *path, dragarc_error *err)
         return dragarc_error_set(err, DRAGARC_EIO, "", "output path is too long: %s", path);
     snprintf(o->path, sizeof o->path, "%s", path);
     snprintf(o->tmp_path, sizeof o->tmp_path, "%s.tmp-XXXXXX", path);
+    /* tracked before the file exists, so that a signal arriving just after mkstemp made it still removes it (before
+     * that, the handler only unlinks a name that does not exist) */
+    pending_add(o->tmp_path);
     int fd = mkstemp(o->tmp_path);
     if (fd < 0) {
         int e = errno;
+        pending_drop(o->tmp_path);
         o->tmp_path[0] = '\0';
         return dragarc_error_set(err, DRAGARC_EIO, "", "cannot write %s: %s", path, strerror(e));
     }
-    pending_add(o->tmp_path);
     /* mkstemp makes the file private (0600); results are ordinary documents, readable by others. */
     (void)fchmod(fd, 0644);
     o->fp = fdopen(fd, "w");
