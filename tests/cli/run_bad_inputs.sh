@@ -16,6 +16,8 @@
 #   DRAGARC_TEST_TIMEOUT  seconds allowed per case (default 30)
 #   DRAGARC_TEST_EVERY    run only every Nth case (1st, N+1st, ...; default 1: all), for slow wrappers; the
 #                         manifest checks (files listed and present) always run in full
+#   DRAGARC_TEST_FIRST    with DRAGARC_TEST_EVERY, start at this case (default 1): EVERY=2 with FIRST=1 and FIRST=2
+#                         splits the corpus into two halves that ctest runs side by side
 #   DRAGARC_TEST_WRAPPER  command put in front of dragarc, split at spaces, e.g.
 #                         "valgrind --error-exitcode=99 -q --leak-check=full"
 #
@@ -61,9 +63,11 @@ fi
 
 limit=${DRAGARC_TEST_TIMEOUT:-30}
 every=${DRAGARC_TEST_EVERY:-1}
-case $every in
-'' | *[!0-9]* | 0) echo "$0: DRAGARC_TEST_EVERY must be a positive whole number" >&2; exit 2 ;;
+first=${DRAGARC_TEST_FIRST:-1}
+case $every$first in
+'' | *[!0-9]* | 0*) echo "$0: DRAGARC_TEST_EVERY and DRAGARC_TEST_FIRST must be positive whole numbers" >&2; exit 2 ;;
 esac
+case $every in 0) echo "$0: DRAGARC_TEST_EVERY must be positive" >&2; exit 2 ;; esac
 wrapper=()
 if [ -n "${DRAGARC_TEST_WRAPPER:-}" ]; then
     IFS=' ' read -r -a wrapper <<<"$DRAGARC_TEST_WRAPPER"
@@ -132,7 +136,7 @@ run_case() {
     local name=$1 want=$2 text=$3 prefix=$4
     shift 4
     case_no=$((case_no + 1))
-    if [ $(((case_no - 1) % every)) -ne 0 ]; then
+    if [ "$case_no" -lt "$first" ] || [ $(((case_no - first) % every)) -ne 0 ]; then
         return
     fi
     local -a why=()
