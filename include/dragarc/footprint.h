@@ -151,8 +151,9 @@ double dragarc_footprint_memory_estimate(const dragarc_footprint_spec *spec);
 
 /* Fly every sample of every class into out (nclasses x samples entries, class-major; the caller allocates).
  * Runs in parallel with OpenMP; the result does not depend on the thread count. A failed flight is recorded in
- * its entry's status and does not stop the run. `progress`, when not NULL, is called from one thread now and then
- * with the flights done and the total (for a progress bar); it must not call into dragarc. */
+ * its entry's status and does not stop the run. `progress`, when not NULL, is called every 64 flights and at the
+ * last, on one thread at a time, with the flights done (rising) and the total (for a progress bar); it must not call
+ * into dragarc. */
 int dragarc_footprint_run(const dragarc_footprint_spec *spec, dragarc_impact *out,
                           void (*progress)(size_t done, size_t total, void *user), void *user, dragarc_error *err);
 

@@ -37,8 +37,8 @@ typedef struct dragarc_sprinkler_request {
     const double *fractions; /* volume fraction of the flow in each class; they sum to 1 */
     double ring_width;       /* m: the radial profile's bins */
     double cell;             /* m: the grid's cell size */
-    /* NULL, or called now and then from one thread with the flights done and the total, for a progress bar; it must
-     * not call into dragarc. Reporting never changes the results. */
+    /* NULL, or called every 16 flights and at the last, on one thread at a time, with the flights done (rising) and
+     * the total, for a progress bar; it must not call into dragarc. Reporting never changes the results. */
     void (*progress)(size_t done, size_t total, void *user);
     void *progress_user;
 } dragarc_sprinkler_request;

@@ -348,18 +348,26 @@ int cli_fly_sampled(const dragarc_scenario *s, const dragarc_flight *f, const cl
     return dragarc_flight_run(s, dt, out, err);
 }
 
+/* 0 when path names a plot format (.svg, .png, .pdf), else the exit status of the usage error printed. */
+static int plot_path_check(const char *cmd, const char *path)
+{
+    dragarc_plot_format fmt;
+    dragarc_error err;
+    if (dragarc_plot_format_from_path(path, &fmt, &err) != DRAGARC_OK)
+        return cli_usage_error(cmd, "--plot: %s", err.message);
+    return 0;
+}
+
 int cli_plot_option(const char *cmd, int argc, char **argv, int *i, const char **path)
 {
     if (strcmp(argv[*i], "--plot") != 0)
         return -1;
     if (++*i >= argc || !*argv[*i])
         return cli_usage_error(cmd, "--plot needs a file name ending in .svg, .png or .pdf");
-    dragarc_plot_format fmt;
-    dragarc_error err;
-    if (dragarc_plot_format_from_path(argv[*i], &fmt, &err) != DRAGARC_OK)
-        return cli_usage_error(cmd, "--plot: %s", err.message);
-    *path = argv[*i];
-    return 0;
+    int st = plot_path_check(cmd, argv[*i]);
+    if (st == 0)
+        *path = argv[*i];
+    return st;
 }
 
 int cli_plot_failed(dragarc_error *err)
@@ -497,12 +505,9 @@ int cli_scenario_args(const char *cmd, const char *help, int argc, char **argv, 
     if (!*path)
         return cli_usage_error(cmd, "needs a scenario file");
     for (int k = 0; file_opts[k]; k++) {
-        if (strcmp(file_opts[k], "--plot") == 0 && files[k]) {
-            dragarc_plot_format fmt;
-            dragarc_error err;
-            if (dragarc_plot_format_from_path(files[k], &fmt, &err) != DRAGARC_OK)
-                return cli_usage_error(cmd, "--plot: %s", err.message);
-        }
+        int st = strcmp(file_opts[k], "--plot") == 0 && files[k] ? plot_path_check(cmd, files[k]) : 0;
+        if (st != 0)
+            return st;
         for (int m = 0; m < k; m++)
             if (files[k] && files[m] && strcmp(files[k], files[m]) == 0 && strcmp(files[k], "-") != 0)
                 return cli_usage_error(cmd, "%s and %s name the same file '%s'", file_opts[m], file_opts[k], files[k]);

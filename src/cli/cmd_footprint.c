@@ -220,14 +220,9 @@ int cmd_footprint(int argc, char **argv)
             if (++i >= argc)
                 return cli_usage_error("footprint", "%s needs a file name", a);
             *(a[2] == 'p' ? &points : a[3] == 'e' ? &geojson : &grid) = argv[i];
-        } else if (strcmp(a, "--plot") == 0) {
-            if (++i >= argc)
-                return cli_usage_error("footprint", "--plot needs a file name ending in .svg, .png or .pdf");
-            plot = argv[i];
-            dragarc_plot_format fmt;
-            dragarc_error err;
-            if (dragarc_plot_format_from_path(plot, &fmt, &err) != DRAGARC_OK)
-                return cli_usage_error("footprint", "--plot: %s", err.message);
+        } else if ((st = cli_plot_option("footprint", argc, argv, &i, &plot)) >= 0) {
+            if (st != 0)
+                return st;
         } else if ((st = cli_file_argument("footprint", "scenario file", a, &path)) != 0) {
             return st;
         }
@@ -245,10 +240,8 @@ int cmd_footprint(int argc, char **argv)
     dragarc_error err;
     int status = cli_footprint_load(path, samples, seed, quiet, &spec, &pop, &im, &sum);
     /* the plot first: a plot that cannot be drawn (a driver, a folder) then leaves none of the other files */
-    if (status == EXIT_OK && plot && dragarc_footprint_plot(plot, &spec, im, &sum, NULL, &err) != DRAGARC_OK) {
-        err.field[0] = '\0';
-        status = cli_report("--plot", &err);
-    }
+    if (status == EXIT_OK && plot && dragarc_footprint_plot(plot, &spec, im, &sum, NULL, &err) != DRAGARC_OK)
+        status = cli_plot_failed(&err);
     if (status == EXIT_OK && points) {
         const void *ctx[2] = {&spec, im};
         status = cli_write_output("--points", points, write_points, ctx);

@@ -19,10 +19,8 @@
 #include "core/constants.h"
 #include "dragarc/flight.h"
 #include "dragarc/footprint.h"
+#include "numerics/progress.h"
 
-#ifdef _OPENMP
-#include <omp.h>
-#endif
 
 uint64_t dragarc_footprint_stream_seed(uint64_t seed, uint32_t cls, uint32_t sample)
 {
@@ -363,9 +361,9 @@ int dragarc_footprint_run(const dragarc_footprint_spec *spec, dragarc_impact *ou
                                      "is not positive semi-definite (an eigenvalue below zero)");
     }
     const size_t total = spec->nclasses * spec->samples;
-    size_t done = 0;
+    progress_count prog = progress_start(progress, user, total, 64);
     int nomem = 0;
-#pragma omp parallel default(none) shared(ctx, out, spec, total, done, nomem, progress, user, gsl_rng_mt19937)
+#pragma omp parallel default(none) shared(ctx, out, spec, total, prog, nomem, gsl_rng_mt19937)
     {
         gsl_rng *r = gsl_rng_alloc(gsl_rng_mt19937);
         if (!r) {
@@ -383,16 +381,7 @@ int dragarc_footprint_run(const dragarc_footprint_spec *spec, dragarc_impact *ou
                 continue;
             }
             fly_sample(&ctx, r, o->cls, o->sample, o);
-            size_t d;
-#pragma omp atomic capture
-            d = ++done;
-#ifdef _OPENMP
-            if (progress && omp_get_thread_num() == 0 && (d % 64 == 0 || d == total))
-                progress(d, total, user);
-#else
-            if (progress && (d % 64 == 0 || d == total))
-                progress(d, total, user);
-#endif
+            progress_step(&prog);
         }
         gsl_rng_free(r);
     }

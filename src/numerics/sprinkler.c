@@ -13,14 +13,12 @@
 #include <stdlib.h>
 #include <string.h>
 
-#ifdef _OPENMP
-#include <omp.h>
-#endif
 
 #include "core/constants.h"
 #include "dragarc/flight.h"
 #include "dragarc/sprinkler.h"
 #include "dragarc/sweep.h"
+#include "numerics/progress.h"
 
 #define SUBSAMPLES 8             /* K: sub-samples per drop and dimension */
 #define MAX_CELLS 4000000        /* grid cells allowed */
@@ -179,26 +177,14 @@ int dragarc_sprinkler_run(const dragarc_scenario *base, const dragarc_sprinkler_
     }
     const double speed = out->exit_speed;
     dragarc_sprinkler_drop *drops = out->drops;
-    size_t done = 0;
-#pragma omp parallel for schedule(dynamic) default(none) shared(base, req, drops, notes, n, nd, speed, arc, full, done)
+    progress_count prog = progress_start(req->progress, req->progress_user, n, 16);
+#pragma omp parallel for schedule(dynamic) default(none) shared(base, req, drops, notes, n, nd, speed, arc, full, prog)
     for (size_t k = 0; k < n; k++) {
         size_t i = k / nd, j = k % nd;
         double az = req->arc_from + arc * (full ? (j + 0.5) / nd : nd > 1 ? (double)j / (nd - 1) : 0.5);
         fly_drop(base, speed, req->diameters[i], az, &drops[k], &notes[k]);
-        /* the count is shared; only the first thread reports it, so the callback never runs twice at once */
-        size_t d;
-#pragma omp atomic capture
-        d = ++done;
-#ifdef _OPENMP
-        int reporter = omp_get_thread_num() == 0;
-#else
-        int reporter = 1;
-#endif
-        if (req->progress && reporter && d % 16 == 0)
-            req->progress(d, n, req->progress_user);
+        progress_step(&prog);
     }
-    if (req->progress)
-        req->progress(n, n, req->progress_user);
     double xmin = 0.0, xmax = 0.0, ymin = 0.0, ymax = 0.0, rmax = 0.0;
     for (size_t k = 0; k < n; k++) {
         out->notes |= notes[k];

@@ -20,6 +20,7 @@
 #include "core/constants.h"
 #include "dragarc/flight.h"
 #include "dragarc/sweep.h"
+#include "numerics/progress.h"
 
 typedef enum param_id {
     P_SPEED,
@@ -526,22 +527,11 @@ int dragarc_sweep_run_progress(const dragarc_scenario *base, const dragarc_sweep
     out->nrows = n;
     const dragarc_sweep_axis *ax = out->axes;
     dragarc_sweep_row *rows = out->rows;
-    /* The count of rows done is shared; only the thread that brings it to a multiple of PROGRESS_EVERY (or to
-     * n) calls progress, and that call sits in a critical section, so the callback runs on one thread at a time
-     * (the caller's, when there is one thread). Rows never read it: the results do not depend on it. */
-    size_t done = 0;
-#pragma omp parallel for schedule(dynamic) default(none) shared(base, ax, naxes, n, rows, done, progress, user)
+    progress_count prog = progress_start(progress, user, n, PROGRESS_EVERY);
+#pragma omp parallel for schedule(dynamic) default(none) shared(base, ax, naxes, n, rows, prog)
     for (size_t r = 0; r < n; r++) {
         fly_row(base, ax, naxes, r, &rows[r]);
-        if (progress) {
-            size_t d;
-#pragma omp atomic capture
-            d = ++done;
-            if (d % PROGRESS_EVERY == 0 || d == n) {
-#pragma omp critical(dragarc_sweep_progress)
-                progress(d, n, user);
-            }
-        }
+        progress_step(&prog);
     }
     for (size_t r = 0; r < n; r++) {
         if (rows[r].status != DRAGARC_OK)
