@@ -4,6 +4,9 @@
 #ifndef DRAGARC_TESTS_HELPERS_H
 #define DRAGARC_TESTS_HELPERS_H
 
+#include <dirent.h>
+#include <string.h>
+
 #include "dragarc/flight.h"
 #include "dragarc/scenario.h"
 
@@ -33,6 +36,21 @@ static inline void make_scenario(dragarc_scenario *s, double density, double m, 
     s->gravity = g;
     s->solver.rtol = tol;
     s->solver.atol = tol;
+}
+
+/* How many entries a folder holds besides . and .. (-1 when it cannot be opened): the tests that write files check
+ * with it that nothing (no temporary file) is left behind. */
+static inline int folder_entries(const char *folder)
+{
+    DIR *d = opendir(folder);
+    if (!d)
+        return -1;
+    int n = 0;
+    for (struct dirent *e; (e = readdir(d)) != NULL;)
+        if (strcmp(e->d_name, ".") != 0 && strcmp(e->d_name, "..") != 0)
+            n++;
+    closedir(d);
+    return n;
 }
 
 #endif

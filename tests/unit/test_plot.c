@@ -27,15 +27,7 @@ static char dir[64]; /* a fresh folder for this run's files */
 /* How many entries the folder holds (besides . and ..). */
 static int entries(void)
 {
-    DIR *d = opendir(dir);
-    if (!d)
-        return -1;
-    int n = 0;
-    for (struct dirent *e; (e = readdir(d)) != NULL;)
-        if (strcmp(e->d_name, ".") != 0 && strcmp(e->d_name, "..") != 0)
-            n++;
-    closedir(d);
-    return n;
+    return folder_entries(dir);
 }
 
 /* The first bytes of a file, and its size (-1 when it cannot be read). */

@@ -17,20 +17,13 @@
 #include "dragarc/cautions.h"
 #include "dragarc/output.h"
 #include "dragarc/report.h"
+#include "helpers.h"
 
 static char dir[64]; /* a fresh folder for this run's files */
 
 static int entries(const char *folder)
 {
-    DIR *d = opendir(folder);
-    if (!d)
-        return -1;
-    int n = 0;
-    for (struct dirent *e; (e = readdir(d)) != NULL;)
-        if (strcmp(e->d_name, ".") != 0 && strcmp(e->d_name, "..") != 0)
-            n++;
-    closedir(d);
-    return n;
+    return folder_entries(folder);
 }
 
 static char *slurp(const char *path)
