@@ -12,6 +12,9 @@
  *   spin_table D = 1/2 rho Cd(Re, S) A |v_rel|, Cd tabulated against Reynolds number and spin factor S
  *              (a spinning ball's drag rises with S; S as in lift.h)
  *
+ * Every law's D is multiplied by its `scale` (the scenario's drag.cd_scale): a ball whose C_D curve has the
+ * shape of a published one but sits higher or lower, as a fit to a measured flight finds (fit.h).
+ *
  * Re = rho |v_rel| d / mu with d the diameter; Mach = |v_rel| / a.
  */
 #ifndef DRAGARC_DRAG_H
@@ -57,6 +60,7 @@ typedef struct dragarc_drag {
     void *interp; /* gsl_interp *, owned (table); gsl_interp2d *, owned (spin_table) */
     size_t ns;    /* spin_table: spin factors, from 0 up, strictly increasing, in s */
     double *s;    /* spin_table: y holds Cd at (x[i], s[j]) as y[j * npoints + i], GSL's order */
+    double scale; /* factor on the law's drag (its C_D, k or c), > 0; 0 is read as 1, so a zeroed drag is unscaled */
 } dragarc_drag;
 
 /* Names used in scenario files: "none", "constant", ...; NULL for an unknown value. */
@@ -65,7 +69,10 @@ int dragarc_drag_model_from_name(const char *name, dragarc_drag_model *out);
 const char *dragarc_drag_axis_name(dragarc_drag_axis axis);
 int dragarc_drag_axis_from_name(const char *name, dragarc_drag_axis *out);
 
-/* Make `drag` a table model; copies x and y (n >= 2, x strictly increasing and positive for a
+/* The factor a drag law's D is multiplied by: its scale, or 1 when the scale is 0 (unset). */
+double dragarc_drag_scale(const dragarc_drag *drag);
+
+/* Make `drag` a table model (keeping its scale); copies x and y (n >= 2, x strictly increasing and positive for a
  * Reynolds axis, y positive). Monotone (Steffen) interpolation for n >= 3, linear for n = 2, clamped
  * at the ends. On failure the drag is left untouched and err->field names "points[i]". */
 int dragarc_drag_table_set(dragarc_drag *drag, dragarc_drag_axis axis, const double *x, const double *y,
@@ -94,8 +101,8 @@ double dragarc_sphere_cd(double re);
 /* Cd * Re / 24 of the same correlation: finite as Re -> 0, where it tends to 1 (Stokes' law). */
 double dragarc_sphere_cd_re24(double re);
 
-/* Drag coefficient of a Cd-based model at the given flow (constant, sphere, table); NaN for the
- * models that are not written with a Cd (none, linear, quadratic). */
+/* Drag coefficient of a Cd-based model at the given flow (constant, sphere, table), times its scale; NaN for
+ * the models that are not written with a Cd (none, linear, quadratic). */
 double dragarc_drag_cd(const dragarc_drag *drag, double reynolds, double mach, double speed);
 
 /* The drag factor D (kg/s) at air-relative speed `speed` (m/s), for a body of diameter d (m) and

@@ -113,6 +113,14 @@ typedef struct dragarc_flight {
  * DRAGARC_ERANGE (the atmosphere model was left, e.g. above 86 km). */
 int dragarc_flight_run(const dragarc_scenario *s, double dt, dragarc_flight *out, dragarc_error *err);
 
+/* Fly scenario s as dragarc_flight_run does, sampling at the listed times (s since launch, n of them, finite,
+ * >= 0, non-decreasing) instead of at a fixed interval: out->points holds the launch, one row for each listed time
+ * before the flight ends (in the order given), and the impact row; with a ground surface also the start of each
+ * rebound, and the rest row. Times after the end are not sampled. Errors as dragarc_flight_run, and DRAGARC_EINVAL
+ * (field "times[i]") for a bad list. */
+int dragarc_flight_run_at(const dragarc_scenario *s, const double *times, size_t n, dragarc_flight *out,
+                          dragarc_error *err);
+
 /* Free the samples and zero the record. Safe on a zeroed record. */
 void dragarc_flight_clear(dragarc_flight *f);
 

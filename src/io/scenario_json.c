@@ -199,6 +199,7 @@ static const struct {
     {"projectile.area", DRAGARC_Q_AREA},
     {"projectile.volume", DRAGARC_Q_VOLUME},
     {"projectile.drag.cd", DRAGARC_Q_NUMBER},
+    {"projectile.drag.cd_scale", DRAGARC_Q_NUMBER},
     {"projectile.drag.k", DRAGARC_Q_LINEAR_DRAG},
     {"projectile.drag.c", DRAGARC_Q_QUADRATIC_DRAG},
     {"launch.speed", DRAGARC_Q_SPEED},
@@ -490,38 +491,42 @@ static int read_drag(const cJSON *j, const char *path, dragarc_drag *d, dragarc_
     memset(d, 0, sizeof *d);
     d->model = m;
     switch (m) {
-    case DRAGARC_DRAG_NONE:
-    case DRAGARC_DRAG_SPHERE: {
+    case DRAGARC_DRAG_NONE: {
         static const char *const keys[] = {"model", "source", NULL};
         TRY(check_keys(j, path, keys, err));
         break;
     }
+    case DRAGARC_DRAG_SPHERE: {
+        static const char *const keys[] = {"model", "cd_scale", "source", NULL};
+        TRY(check_keys(j, path, keys, err));
+        break;
+    }
     case DRAGARC_DRAG_CONSTANT: {
-        static const char *const keys[] = {"model", "cd", "source", NULL};
+        static const char *const keys[] = {"model", "cd", "cd_scale", "source", NULL};
         TRY(check_keys(j, path, keys, err));
         TRY(get_number(j, path, "cd", 1, &d->cd, NULL, err));
         break;
     }
     case DRAGARC_DRAG_LINEAR: {
-        static const char *const keys[] = {"model", "k", "source", NULL};
+        static const char *const keys[] = {"model", "k", "cd_scale", "source", NULL};
         TRY(check_keys(j, path, keys, err));
         TRY(get_number(j, path, "k", 1, &d->k, NULL, err));
         break;
     }
     case DRAGARC_DRAG_QUADRATIC: {
-        static const char *const keys[] = {"model", "c", "source", NULL};
+        static const char *const keys[] = {"model", "c", "cd_scale", "source", NULL};
         TRY(check_keys(j, path, keys, err));
         TRY(get_number(j, path, "c", 1, &d->c, NULL, err));
         break;
     }
     case DRAGARC_DRAG_SPIN_TABLE: {
-        static const char *const keys[] = {"model", "reynolds", "spin_factor", "cd", "source", NULL};
+        static const char *const keys[] = {"model", "reynolds", "spin_factor", "cd", "cd_scale", "source", NULL};
         TRY(check_keys(j, path, keys, err));
         TRY(read_spin_table(j, path, d, err));
         break;
     }
     case DRAGARC_DRAG_TABLE: {
-        static const char *const keys[] = {"model", "x", "points", "source", NULL};
+        static const char *const keys[] = {"model", "x", "points", "cd_scale", "source", NULL};
         TRY(check_keys(j, path, keys, err));
         const char *axis = NULL;
         TRY(get_string(j, path, "x", 1, &axis, err));
@@ -543,6 +548,15 @@ static int read_drag(const cJSON *j, const char *path, dragarc_drag *d, dragarc_
             return rc;
         break;
     }
+    }
+    if (m != DRAGARC_DRAG_NONE) {
+        int has_scale = 0;
+        double scale = 1.0;
+        TRY(get_number(j, path, "cd_scale", 0, &scale, &has_scale, err));
+        join(field, sizeof field, path, "cd_scale");
+        if (has_scale && !(scale > 0.0 && scale <= 100.0))
+            return dragarc_error_set(err, DRAGARC_EINVAL, field, "must be positive and at most 100 (got %g)", scale);
+        d->scale = has_scale ? scale : 0.0;
     }
     int rc = dragarc_drag_check(d, err);
     if (rc != DRAGARC_OK)

@@ -41,9 +41,14 @@
 #include "dragarc/evaporation.h"
 #include "dragarc/forces.h"
 #include "numerics/dop853.h"
+#include "numerics/flight_track.h"
 
 /* Most samples one flight may keep (80 bytes each): beyond this the sampling interval is unreasonable. */
 #define MAX_SAMPLES 2000000
+
+/* m below the datum: the impact plane of a track (dragarc_flight_track), which flies on through the ground to its
+ * last time; deep enough never to be reached, finite for CVODE's root functions. */
+#define TRACK_DEPTH 1e30
 
 /* Flights whose estimated duration exceeds this many drag relaxation times go to BDF. An explicit method
  * needs steps of about a relaxation time for stability, so its cost grows with the ratio while BDF's does
@@ -68,7 +73,31 @@ typedef struct flight_ctx {
     const dop853 *stepper; /* the DOP853 stepper, while it runs */
     double *breaks;        /* m above the datum: heights where the equations of motion are not smooth */
     size_t nbreaks;
+    const double *times;   /* s since launch, non-decreasing: sample there instead of every dt (NULL: every dt) */
+    size_t ntimes;
+    size_t next_time;      /* the first of times not yet sampled */
+    double t_offset;       /* s, launch -> the start of the segment being integrated (a rebound's landing) */
+    double plane;          /* m above the datum: the impact plane (the ground, or far below for a track) */
+    double t_limit;        /* s: the flight ends here without an impact (solver.max_time, or a track's last time) */
 } flight_ctx;
+
+/* When the next sample is due, in s from the start of the segment: sample k (from 1) every dt, or the next of the
+ * listed times; INFINITY when none is. */
+static double sample_due(const flight_ctx *c, double dt, long k)
+{
+    if (c->times)
+        return c->next_time < c->ntimes ? c->times[c->next_time] - c->t_offset : INFINITY;
+    return dt > 0.0 ? (double)k * dt : INFINITY;
+}
+
+/* The sample due has been taken. */
+static void sample_taken(flight_ctx *c, long *k)
+{
+    if (c->times)
+        c->next_time++;
+    else
+        (*k)++;
+}
 
 /* The state y of c->n values as NS values (the launch spin and mass where they are not integrated), with the height
  * held at the top of the atmosphere model: trial states of a step may poke above it, and see the air at the top
@@ -131,7 +160,7 @@ static int roots(sunrealtype t, N_Vector y, sunrealtype *g, void *user)
     const flight_ctx *c = user;
     const double *yv = N_VGetArrayPointer(y);
     const double h = height(c, yv);
-    g[0] = h - c->forces.ground_elevation;
+    g[0] = h - c->plane;
     g[1] = climb(c, yv);
     g[2] = isfinite(c->ceiling) ? h - c->ceiling : -1.0;
     g[3] = c->n == NS && c->mass_stop > 0.0 ? yv[7] - c->mass_stop : 1.0;
@@ -385,7 +414,7 @@ static int integrate_cvode(const dragarc_scenario *s, flight_ctx *cx, dragarc_me
     if (flag == CV_SUCCESS)
         flag = CVodeSStolerances(mem, s->solver.rtol, s->solver.atol);
     if (flag == CV_SUCCESS)
-        flag = CVodeSetStopTime(mem, s->solver.max_time);
+        flag = CVodeSetStopTime(mem, cx->t_limit);
     if (flag == CV_SUCCESS)
         flag = CVodeSetMaxNumSteps(mem, s->solver.max_steps);
     if (flag == CV_SUCCESS)
@@ -420,7 +449,7 @@ static int integrate_cvode(const dragarc_scenario *s, flight_ctx *cx, dragarc_me
     double t = 0.0;
     int landed = 0;
     while (!landed) {
-        flag = CVode(mem, s->solver.max_time, y, &t, CV_ONE_STEP);
+        flag = CVode(mem, cx->t_limit, y, &t, CV_ONE_STEP);
         if (flag < 0) {
             rc = cvode_failure(cx, flag, t, err);
             goto done;
@@ -437,8 +466,7 @@ static int integrate_cvode(const dragarc_scenario *s, flight_ctx *cx, dragarc_me
             goto done;
         }
         const double *yv = N_VGetArrayPointer(y);
-        while (dt > 0.0 && k * dt < t) {
-            double ts = k * dt;
+        for (double ts; (ts = sample_due(cx, dt, k)) < t;) {
             if (out->npoints >= MAX_SAMPLES) {
                 rc = dragarc_error_set(err, DRAGARC_EINVAL, "dt",
                                        "a sampling interval of %g s gives more than %d rows over this flight; "
@@ -450,7 +478,7 @@ static int integrate_cvode(const dragarc_scenario *s, flight_ctx *cx, dragarc_me
                 break;
             if ((rc = push_point(out, cap_, cx, ts, widen(cx, N_VGetArrayPointer(ytmp), yw))) != DRAGARC_OK)
                 goto nomem;
-            k++;
+            sample_taken(cx, &k);
         }
         observe(out, cx, widen(cx, yv, yw));
         if (flag == CV_ROOT_RETURN) {
@@ -465,15 +493,15 @@ static int integrate_cvode(const dragarc_scenario *s, flight_ctx *cx, dragarc_me
                 out->apex_height = h;
                 out->apex_time = t;
             }
-            if (found[1] && h < s->ground_elevation) {
-                rc = err_peaks_below(err, h, s->ground_elevation);
+            if (found[1] && h < cx->plane) {
+                rc = err_peaks_below(err, h, cx->plane);
                 goto done;
             }
             if (found[3])
                 out->evaporated = 1;
             if (found[0] || found[3])
                 landed = 1;
-        } else if (flag == CV_TSTOP_RETURN || t >= s->solver.max_time) {
+        } else if (flag == CV_TSTOP_RETURN || t >= cx->t_limit) {
             rc = err_no_impact(err, s, height(cx, yv));
             goto done;
         }
@@ -487,7 +515,7 @@ static int integrate_cvode(const dragarc_scenario *s, flight_ctx *cx, dragarc_me
     if (out->evaporated)
         out->impact[7] = cx->mass_stop; /* the root finder leaves it at round-off level */
     else if (!cx->forces.spherical)
-        out->impact[2] = s->ground_elevation; /* the root finder leaves |z - z_g| at round-off level */
+        out->impact[2] = cx->plane; /* the root finder leaves |z - z_g| at round-off level */
     if ((rc = push_point(out, cap_, cx, t, out->impact)) != DRAGARC_OK)
         goto nomem;
     CVodeGetNumSteps(mem, &out->steps);
@@ -651,7 +679,7 @@ static int integrate_rk(const dragarc_scenario *s, flight_ctx *cx, double dt, co
     for (;;) {
         double tprev = t;
         memcpy(yprev, y, sizeof y);
-        int st = gsl_odeiv2_evolve_apply(ev, con, step, &sys, &t, s->solver.max_time, &h, y);
+        int st = gsl_odeiv2_evolve_apply(ev, con, step, &sys, &t, cx->t_limit, &h, y);
         if (st != GSL_SUCCESS) {
             if (cx->rhs_failed)
                 rc = dragarc_error_set(err, cx->rhs_err.code == DRAGARC_ERANGE ? DRAGARC_ERANGE : DRAGARC_ESOLVER,
@@ -671,7 +699,7 @@ static int integrate_rk(const dragarc_scenario *s, flight_ctx *cx, double dt, co
         /* Events inside this step, in time order: leaving the atmosphere, the apex, the impact. */
         double t_top = INFINITY, t_apex = INFINITY, t_hit = INFINITY;
         double y_apex[NS], y_hit[NS], y_top[NS];
-        const double zg = s->ground_elevation;
+        const double zg = cx->plane;
         const double zh = height(cx, y), zhprev = height(cx, yprev);
         if (isfinite(cx->ceiling) && zh > cx->ceiling && zhprev <= cx->ceiling &&
             rk_locate(part, &sys, tprev, yprev, tprev, yprev, t, y, 2, cx->ceiling, -1.0, &t_top, y_top) != 0)
@@ -700,7 +728,7 @@ static int integrate_rk(const dragarc_scenario *s, flight_ctx *cx, double dt, co
             }
         }
         double t_stop = fmin(t, fmin(t_hit, t_top));
-        while (dt > 0.0 && k * dt < t_stop) {
+        for (double ts; (ts = sample_due(cx, dt, k)) < t_stop;) {
             if (out->npoints >= MAX_SAMPLES) {
                 rc = dragarc_error_set(err, DRAGARC_EINVAL, "dt",
                                        "a sampling interval of %g s gives more than %d rows over this flight; use a "
@@ -708,11 +736,11 @@ static int integrate_rk(const dragarc_scenario *s, flight_ctx *cx, double dt, co
                                        dt, MAX_SAMPLES);
                 goto done;
             }
-            if (rk_partial(part, &sys, tprev, yprev, k * dt - tprev, ytmp) != GSL_SUCCESS)
+            if (rk_partial(part, &sys, tprev, yprev, ts - tprev, ytmp) != GSL_SUCCESS)
                 goto partial_failed;
-            if ((rc = push_point(out, cap, cx, k * dt, ytmp)) != DRAGARC_OK)
+            if ((rc = push_point(out, cap, cx, ts, ytmp)) != DRAGARC_OK)
                 goto done;
-            k++;
+            sample_taken(cx, &k);
         }
         if (isfinite(t_top) && t_top <= fmin(t_hit, t_apex)) {
             rc = err_left_atmosphere(cx, err, t_top);
@@ -724,8 +752,8 @@ static int integrate_rk(const dragarc_scenario *s, flight_ctx *cx, double dt, co
                 out->apex_height = ha;
                 out->apex_time = t_apex;
             }
-            if (ha < s->ground_elevation) {
-                rc = err_peaks_below(err, ha, s->ground_elevation);
+            if (ha < cx->plane) {
+                rc = err_peaks_below(err, ha, cx->plane);
                 goto done;
             }
         }
@@ -735,7 +763,7 @@ static int integrate_rk(const dragarc_scenario *s, flight_ctx *cx, double dt, co
             if (out->evaporated)
                 out->impact[7] = cx->mass_stop;
             else if (!cx->forces.spherical)
-                out->impact[2] = s->ground_elevation; /* the crossing is located to round-off */
+                out->impact[2] = cx->plane; /* the crossing is located to round-off */
             if ((rc = push_point(out, cap, cx, t_hit, out->impact)) != DRAGARC_OK)
                 goto done;
             *t_end = t_hit;
@@ -746,7 +774,7 @@ static int integrate_rk(const dragarc_scenario *s, flight_ctx *cx, double dt, co
             out->apex_height = zh;
             out->apex_time = t;
         }
-        if (t >= s->solver.max_time) {
+        if (t >= cx->t_limit) {
             rc = err_no_impact(err, s, zh);
             goto done;
         }
@@ -905,10 +933,10 @@ static int dop_failure(const flight_ctx *cx, int st, double t, dragarc_error *er
 
 /* The events and samples inside the step just taken, from its continuous extension: leaving the atmosphere
  * (an error), the apex, the impact (*landed = 1, *t_end its time), and the samples due before them. */
-static int dop_step_events(const dragarc_scenario *s, flight_ctx *cx, dop853 *st, double dt, long *k, int crosses_top,
+static int dop_step_events(flight_ctx *cx, dop853 *st, double dt, long *k, int crosses_top,
                            int apex, dragarc_flight *out, size_t *cap, int *landed, double *t_end, dragarc_error *err)
 {
-    const double zg = s->ground_elevation, *yp = st->y_old, *y = st->y;
+    const double zg = cx->plane, *yp = st->y_old, *y = st->y;
     int rc;
     if (dop853_dense(st) != DOP853_OK)
         return dop_failure(cx, DOP853_ERHS, st->t, err);
@@ -944,17 +972,17 @@ static int dop_step_events(const dragarc_scenario *s, flight_ctx *cx, dop853 *st
         }
     }
     double t_stop = fmin(st->t, fmin(t_hit, t_top));
-    while (dt > 0.0 && *k * dt < t_stop) {
+    for (double ts; (ts = sample_due(cx, dt, *k)) < t_stop;) {
         if (out->npoints >= MAX_SAMPLES)
             return dragarc_error_set(err, DRAGARC_EINVAL, "dt",
                                      "a sampling interval of %g s gives more than %d rows over this flight; use "
                                      "a larger interval",
                                      dt, MAX_SAMPLES);
         double ys[NS];
-        dop853_dense_eval(st, *k * dt, ys);
-        if ((rc = push_point(out, cap, cx, *k * dt, ys)) != DRAGARC_OK)
+        dop853_dense_eval(st, ts, ys);
+        if ((rc = push_point(out, cap, cx, ts, ys)) != DRAGARC_OK)
             return rc;
-        (*k)++;
+        sample_taken(cx, k);
     }
     if (isfinite(t_top) && t_top <= fmin(t_hit, t_apex))
         return err_left_atmosphere(cx, err, t_top);
@@ -996,7 +1024,7 @@ static int integrate_dop853(const dragarc_scenario *s, flight_ctx *cx, double dt
         ys0[i] = 0.0; /* not integrated: kept out of the starting-step estimate (eval_checked uses spin0, the launch mass) */
     if (cx->n == NS && !(cx->spin0 > 0.0))
         ys0[6] = 0.0;
-    int rc, ds = dop853_init(&st, dop_rhs, cx, s->solver.rtol, s->solver.atol, 0.0, ys0, s->solver.max_time);
+    int rc, ds = dop853_init(&st, dop_rhs, cx, s->solver.rtol, s->solver.atol, 0.0, ys0, cx->t_limit);
     if (ds != DOP853_OK)
         return dop_failure(cx, ds, 0.0, err);
     /* components that stay exactly zero (a spin rate not integrated, no spin on an evaporating drop) do not
@@ -1013,10 +1041,10 @@ static int integrate_dop853(const dragarc_scenario *s, flight_ctx *cx, double dt
     observe(out, cx, y0);
     out->apex_height = y0[2];
     out->apex_time = 0.0;
-    const double zg = s->ground_elevation;
+    const double zg = cx->plane;
     long k = 1;
     for (;;) {
-        ds = dop853_step(&st, s->solver.max_time);
+        ds = dop853_step(&st, cx->t_limit);
         if (ds == DOP853_EEND) {
             return err_no_impact(err, s, height(cx, st.y));
         }
@@ -1035,11 +1063,11 @@ static int integrate_dop853(const dragarc_scenario *s, flight_ctx *cx, double dt
         int crosses_top = isfinite(cx->ceiling) && h > cx->ceiling && hp <= cx->ceiling;
         int apex = climb(cx, yp) > 0.0 && climb(cx, y) <= 0.0;
         int may_land = fmax(hp, h) > zg || apex;
-        int sample = dt > 0.0 && k * dt < st.t;
+        int sample = sample_due(cx, dt, k) < st.t;
         int vanishes = cx->n == NS && cx->mass_stop > 0.0 && y[7] <= cx->mass_stop;
         if (crosses_top || apex || (may_land && h <= zg) || sample || vanishes) {
             int landed = 0;
-            rc = dop_step_events(s, cx, &st, dt, &k, crosses_top, apex, out, cap, &landed, t_end, err);
+            rc = dop_step_events(cx, &st, dt, &k, crosses_top, apex, out, cap, &landed, t_end, err);
             if (rc != DRAGARC_OK || landed)
                 return rc;
         }
@@ -1048,7 +1076,7 @@ static int integrate_dop853(const dragarc_scenario *s, flight_ctx *cx, double dt
             out->apex_height = h;
             out->apex_time = st.t;
         }
-        if (st.t >= s->solver.max_time)
+        if (st.t >= cx->t_limit)
             return err_no_impact(err, s, h);
     }
 }
@@ -1176,6 +1204,7 @@ static int bounce_and_roll(const dragarc_scenario *s, flight_ctx *c, dragarc_met
         memset(&seg, 0, sizeof seg);
         size_t segcap = 0;
         double t_seg = 0.0;
+        c->t_offset = t;
         rc = integrate(s, c, method, dt, y0, &seg, &segcap, &t_seg, err);
         if (rc == DRAGARC_OK && (rc = append_segment(out, cap, &seg, t)) != DRAGARC_OK)
             dragarc_error_set(err, DRAGARC_ENOMEM, "", "out of memory for trajectory samples");
@@ -1194,7 +1223,10 @@ static int bounce_and_roll(const dragarc_scenario *s, flight_ctx *c, dragarc_met
     }
 }
 
-int dragarc_flight_run(const dragarc_scenario *s, double dt, dragarc_flight *out, dragarc_error *err)
+/* Fly s, sampling every dt or at the listed times (times non-NULL). A track (track = 1) flies through the
+ * ground to the last listed time, and ends there with the samples only (no summary). */
+static int run(const dragarc_scenario *s, double dt, const double *times, size_t ntimes, int track,
+               dragarc_flight *out, dragarc_error *err)
 {
     memset(out, 0, sizeof *out);
     out->terminal_speed = out->vacuum_range = out->relaxation_time = NAN;
@@ -1206,6 +1238,16 @@ int dragarc_flight_run(const dragarc_scenario *s, double dt, dragarc_flight *out
 
     flight_ctx c;
     memset(&c, 0, sizeof c);
+    c.times = times;
+    c.ntimes = ntimes;
+    c.plane = s->ground_elevation;
+    c.t_limit = s->solver.max_time;
+    if (track) {
+        c.plane = -TRACK_DEPTH;
+        /* just past the last time, so that the last step holds it */
+        if (ntimes > 0)
+            c.t_limit = fmin(c.t_limit, times[ntimes - 1] + 1e-9 * (1.0 + times[ntimes - 1]));
+    }
     dragarc_forces_init(&c.forces, &s->projectile, &s->atmosphere, &s->wind, s->gravity, s->ground_elevation);
     if (s->projectile.evaporation.enabled) {
         /* The drop's temperature comes from its heat balance at each evaluation (forces.c); reported here is the
@@ -1273,8 +1315,14 @@ int dragarc_flight_run(const dragarc_scenario *s, double dt, dragarc_flight *out
     size_t cap = 0;
     double t = 0.0;
     rc = integrate(s, &c, method, dt, y0, out, &cap, &t, err);
+    if (track && rc == DRAGARC_ENOLAND && c.next_time == ntimes)
+        return DRAGARC_OK; /* every listed time flown */
     if (rc != DRAGARC_OK)
         return rc;
+    if (track)
+        return dragarc_error_set(err, DRAGARC_ERANGE, "track",
+                                 "the flight ends (%s) at t = %.6g s, before the track's last point at %.6g s",
+                                 out->evaporated ? "the drop evaporates" : "it lands", t, times[ntimes - 1]);
     if (c.forces.spherical) {
         /* the impact as reported on the sphere (earth.h): offsets along the great circle, the height, the velocity
          * in the local frame there; the last row (the impact's) on the ground exactly, as on the flat Earth */
@@ -1308,4 +1356,59 @@ int dragarc_flight_run(const dragarc_scenario *s, double dt, dragarc_flight *out
     if (s->ground_surface_given)
         return bounce_and_roll(s, &c, method, dt, out, &cap, t, err);
     return DRAGARC_OK;
+}
+
+int dragarc_flight_run(const dragarc_scenario *s, double dt, dragarc_flight *out, dragarc_error *err)
+{
+    return run(s, dt, NULL, 0, 0, out, err);
+}
+
+int dragarc_flight_run_at(const dragarc_scenario *s, const double *times, size_t n, dragarc_flight *out,
+                          dragarc_error *err)
+{
+    memset(out, 0, sizeof *out);
+    out->terminal_speed = out->vacuum_range = out->relaxation_time = NAN;
+    if (n > MAX_SAMPLES)
+        return dragarc_error_set(err, DRAGARC_EINVAL, "times", "%zu sample times are more than the %d a flight keeps",
+                                 n, MAX_SAMPLES);
+    if (n > 0 && !times)
+        return dragarc_error_set(err, DRAGARC_EINVAL, "times", "no array of %zu sample times", n);
+    for (size_t i = 0; i < n; i++) {
+        char field[48];
+        snprintf(field, sizeof field, "times[%zu]", i);
+        if (!(times[i] >= 0.0 && isfinite(times[i])))
+            return dragarc_error_set(err, DRAGARC_EINVAL, field, "must be a finite time since launch, >= 0 (got %g)",
+                                     times[i]);
+        if (i > 0 && times[i] < times[i - 1])
+            return dragarc_error_set(err, DRAGARC_EINVAL, field, "must not come before the time before it (%g < %g)",
+                                     times[i], times[i - 1]);
+    }
+    static const double none = INFINITY; /* no sample due */
+    return run(s, 0.0, n ? times : &none, n, 0, out, err);
+}
+
+int dragarc_flight_track(const dragarc_scenario *s, const double *times, size_t n, double *states,
+                         dragarc_error *err)
+{
+    if (n == 0 || n > MAX_SAMPLES)
+        return dragarc_error_set(err, DRAGARC_EINVAL, "times", "a track needs 1 to %d sample times (got %zu)",
+                                 MAX_SAMPLES, n);
+    for (size_t i = 0; i < n; i++)
+        if (!(times[i] >= 0.0 && isfinite(times[i])) || (i > 0 && !(times[i] > times[i - 1])))
+            return dragarc_error_set(err, DRAGARC_EINVAL, "times", "times[%zu] = %g: sample times must be finite, "
+                                     ">= 0 and increasing", i, times[i]);
+    dragarc_flight f;
+    dragarc_error e = {0}; /* the integrator's "no impact" at the last time is no error here */
+    int rc = run(s, 0.0, times, n, 1, &f, &e);
+    if (rc != DRAGARC_OK && err)
+        *err = e;
+    if (rc == DRAGARC_OK && f.npoints != n + 1)
+        rc = dragarc_error_set(err, DRAGARC_ESOLVER, "track", "the flight kept %zu samples for %zu times",
+                               f.npoints - 1, n);
+    for (size_t i = 0; rc == DRAGARC_OK && i < n; i++) {
+        memcpy(states + 6 * i, f.points[i + 1].pos, 3 * sizeof *states);
+        memcpy(states + 6 * i + 3, f.points[i + 1].vel, 3 * sizeof *states);
+    }
+    dragarc_flight_clear(&f);
+    return rc;
 }

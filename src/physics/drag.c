@@ -127,7 +127,13 @@ static double spin_table_cd(const dragarc_drag *d, double re, double S)
     return gsl_interp2d_eval((const gsl_interp2d *)d->interp, d->u, d->s, d->y, u, S, NULL, NULL);
 }
 
-double dragarc_drag_cd(const dragarc_drag *d, double reynolds, double mach, double speed)
+double dragarc_drag_scale(const dragarc_drag *d)
+{
+    return d->scale == 0.0 ? 1.0 : d->scale;
+}
+
+/* The unscaled law. */
+static double law_cd(const dragarc_drag *d, double reynolds, double mach, double speed)
 {
     switch (d->model) {
     case DRAGARC_DRAG_CONSTANT: return d->cd;
@@ -139,14 +145,20 @@ double dragarc_drag_cd(const dragarc_drag *d, double reynolds, double mach, doub
     }
 }
 
+double dragarc_drag_cd(const dragarc_drag *d, double reynolds, double mach, double speed)
+{
+    return dragarc_drag_scale(d) * law_cd(d, reynolds, mach, speed);
+}
+
 double dragarc_drag_factor(const dragarc_drag *d, double speed, const dragarc_air *air, double diameter,
                            double area)
 {
     return dragarc_drag_factor_spin(d, speed, air, diameter, area, 0.0);
 }
 
-double dragarc_drag_factor_spin(const dragarc_drag *d, double speed, const dragarc_air *air, double diameter,
-                                double area, double spin_factor)
+/* The unscaled law. */
+static double law_factor(const dragarc_drag *d, double speed, const dragarc_air *air, double diameter, double area,
+                         double spin_factor)
 {
     switch (d->model) {
     case DRAGARC_DRAG_NONE: return 0.0;
@@ -172,6 +184,12 @@ double dragarc_drag_factor_spin(const dragarc_drag *d, double speed, const draga
     return 0.0;
 }
 
+double dragarc_drag_factor_spin(const dragarc_drag *d, double speed, const dragarc_air *air, double diameter,
+                                double area, double spin_factor)
+{
+    return dragarc_drag_scale(d) * law_factor(d, speed, air, diameter, area, spin_factor);
+}
+
 void dragarc_drag_clear(dragarc_drag *d)
 {
     if (!d)
@@ -192,7 +210,9 @@ void dragarc_drag_clear(dragarc_drag *d)
 static void install(dragarc_drag *d, dragarc_drag_model model, dragarc_drag_axis axis, size_t n, double *x, double *u,
                     double *y, size_t ns, double *s, void *interp)
 {
+    const double scale = d->scale;
     dragarc_drag_clear(d);
+    d->scale = scale;
     d->model = model;
     d->axis = axis;
     d->npoints = n;
@@ -332,6 +352,9 @@ int dragarc_drag_copy(dragarc_drag *dst, const dragarc_drag *src, dragarc_error 
 
 int dragarc_drag_check(const dragarc_drag *d, dragarc_error *err)
 {
+    if (!(d->scale >= 0.0 && d->scale <= 100.0))
+        return dragarc_error_set(err, DRAGARC_EINVAL, "cd_scale", "must be positive and at most 100 (got %g)",
+                                 d->scale);
     switch (d->model) {
     case DRAGARC_DRAG_NONE:
     case DRAGARC_DRAG_SPHERE: return DRAGARC_OK;
