@@ -28,6 +28,9 @@ size_t dragarc_cautions_notes(unsigned notes, const char **out, size_t max);
 /* The cautions of an optimum (dragarc_optimize_solve) whose flight has these notes: those of the flight, then
  * that the optimum is that of one modelled flight. */
 size_t dragarc_cautions_optimum(unsigned notes, const char **out, size_t max);
+/* The cautions that go with a fit to a measured track (fit.h); static strings. */
+size_t dragarc_cautions_fit(const char **out, size_t max);
+
 /* The cautions that go with a uniformity result (catch-can tests, overlapped patterns); static strings. */
 size_t dragarc_cautions_uniformity(const char **out, size_t max);
 /* Print "Cautions:" and those cautions as wrapped "  - " items. */

@@ -90,6 +90,34 @@ struct dragarc_aim_result;
 char *dragarc_aim_json(const dragarc_scenario *s, const struct dragarc_aim_request *req,
                        const struct dragarc_aim_result *r, const dragarc_display *d);
 
+/* ---- fits to measured tracks (fit.h; the output is documented in docs/fit.md) ---- */
+
+struct dragarc_fit_result;
+struct dragarc_track;
+
+/* The unit an estimate is shown in ("", "m/s", "deg", "kg/m^2", "m") and its value in that unit (angles in
+ * degrees; everything else SI). */
+const char *dragarc_fit_param_unit(int param);
+double dragarc_fit_param_shown(int param, double si);
+
+/* The decimals that quote a value with standard error se to two significant figures of se (common practice, no
+ * source), between 0 and 12. */
+int dragarc_fit_decimals(double se);
+
+/* The result's warnings as sentences, one per DRAGARC_FIT_* flag set, into out[k] (at most max, each n bytes);
+ * returns how many. */
+size_t dragarc_fit_warnings(const struct dragarc_fit_result *r, char (*out)[512], size_t max);
+
+/* The `fit --json` document: the scenario and track, the method and its convergence, the estimates (start, value,
+ * standard error, 95 % interval, in the units of dragarc_fit_param_unit), the correlation matrix, chi-square, the
+ * residual RMS, the conditioning, the warnings and cautions. Caller frees with free(); NULL when out of memory. */
+char *dragarc_fit_json(const char *scenario, const char *track_file, const struct dragarc_track *track,
+                       const struct dragarc_fit_result *r);
+
+/* The residuals (measured - fitted) as CSV: t_s, dx_m, dy_m, dz_m (and dvx_m_s, dvy_m_s, dvz_m_s with velocities). */
+int dragarc_fit_write_residuals_csv(FILE *fp, const struct dragarc_track *track, const struct dragarc_fit_result *r,
+                                    dragarc_error *err);
+
 /* ---- optima (optimize.h; the output is documented in docs/optimize.md) ---- */
 
 /* The unit the objective of an optimisation is shown in: the "range" field's for the carry, the length

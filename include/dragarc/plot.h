@@ -147,6 +147,17 @@ typedef struct dragarc_plot_figure {
  * PLplot or its driver failed: the message says which). Not thread-safe (see above). */
 int dragarc_plot_write(const char *path, const dragarc_plot_figure *fig, dragarc_error *err);
 
+/* ---- the picture of a fit (src/io/fit_plot.c; described in docs/plots.md) ---- */
+
+struct dragarc_track;
+struct dragarc_fit_result;
+
+/* The track's points over the fitted flight, side on and in plan, and the residuals against time, into path.
+ * `fitted` is the scenario with the estimates in it (dragarc_fit_run's), r the fit. Errors as dragarc_plot_write,
+ * and those of flying the fitted scenario. */
+int dragarc_fit_plot(const char *path, const dragarc_scenario *fitted, const struct dragarc_track *track,
+                     const struct dragarc_fit_result *r, dragarc_error *err);
+
 /* ---- the pictures of a flight (src/io/flight_plot.c; described in docs/plots.md) ---- */
 
 /* The same launch as scenario s without air, over flat ground at s's ground elevation: n points (n >= 2) evenly in

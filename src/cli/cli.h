@@ -186,6 +186,7 @@ int cmd_sprinkler(int argc, char **argv);
 int cmd_drift(int argc, char **argv);
 int cmd_footprint(int argc, char **argv);
 int cmd_optimize(int argc, char **argv);
+int cmd_fit(int argc, char **argv);
 int cmd_uniformity(int argc, char **argv);
 
 /* A progress bar on stderr for long runs: shown only when stderr is a terminal and `quiet` is 0, first after a

@@ -22,6 +22,8 @@ static const char USAGE[] =
     "                        fly it for every combination of varied values; text, CSV, JSON, Markdown\n"
     "  optimize SCENARIO --maximize carry|total [--vary NAME[=LO:HI]] ...\n"
     "                        the launch within bounds that carries farthest, with its sensitivities\n"
+    "  fit SCENARIO TRACK.csv --estimate NAME[,NAME...]\n"
+    "                        fit drag, lift, wind or launch to a measured track, with standard errors\n"
     "  atmosphere ALT...     U.S. Standard Atmosphere 1976 at geometric altitudes in metres, or the\n"
     "                        day's weather at a site (--temperature, --pressure, --relative-humidity)\n"
     "  sprinkler SCENARIO    a sprinkler's drops: where each size lands, the application-rate pattern (mm/h)\n"
@@ -38,7 +40,8 @@ static const char USAGE[] =
     "  -h, --help            this help; 'dragarc COMMAND --help' for a command's own\n"
     "  -V, --version         print the version\n"
     "\n"
-    "exit status: 0 success, 1 no solution (aim: target out of reach; optimize: no launch lands),\n"
+    "exit status: 0 success, 1 no solution (aim: target out of reach; optimize: no launch lands; fit: the\n"
+    "iterations ran out),\n"
     "2 bad usage or input, 3 the computation (or a table row) failed; stopped by SIGINT, SIGTERM or SIGHUP:\n"
     "the run ends by that signal (a shell shows 128 + its number) and leaves no partial file.\n"
     "Scenario files, models and sources: see docs/ in the source tree.\n";
@@ -113,6 +116,8 @@ static int run(int argc, char **argv)
         return cmd_table(argc - 1, argv + 1);
     if (strcmp(cmd, "optimize") == 0)
         return cmd_optimize(argc - 1, argv + 1);
+    if (strcmp(cmd, "fit") == 0)
+        return cmd_fit(argc - 1, argv + 1);
     if (strcmp(cmd, "atmosphere") == 0)
         return cmd_atmosphere(argc - 1, argv + 1);
     if (strcmp(cmd, "uniformity") == 0)

@@ -52,6 +52,16 @@ static const char DENSE[] =
     "The fluid's density is more than 1 % of the body's: buoyancy is included, but added mass and unsteady "
     "(history) forces are not, so the acceleration phase is only approximate.";
 
+static const char FIT_MODEL[] =
+    "The estimates describe this track under this model (its drag and lift laws, wind and air): they carry over to "
+    "other flights only as far as those flights resemble this one in speed, spin and conditions.";
+static const char FIT_ERRORS[] =
+    "The standard errors and 95 % intervals are linearised and assume independent Gaussian measurement errors: "
+    "tracking systems that smooth or filter positions, or a biased calibration, make them too narrow.";
+static const char FIT_USE[] =
+    "Predictions made with fitted values, such as where balls land near spectators or how far drops drift, are "
+    "estimates: safety margins, local codes, product labels, regulations and licensed practice decide.";
+
 static const char UNIFORMITY_LIMITS[] =
     "CU and DU describe these catches only: wind, pressure, spacing, the number and placement of the cans and "
     "evaporation from them all change the result, and a test with few cans is a rough estimate.";
@@ -116,6 +126,15 @@ size_t dragarc_cautions_optimum(unsigned notes, const char **out, size_t max)
     size_t n = dragarc_cautions_notes(notes, out, max);
     if (n < max)
         out[n++] = OPTIMUM;
+    return n;
+}
+
+size_t dragarc_cautions_fit(const char **out, size_t max)
+{
+    static const char *const all[] = {FIT_MODEL, FIT_ERRORS, FIT_USE};
+    size_t n = 0;
+    for (; n < max && n < sizeof all / sizeof *all; n++)
+        out[n] = all[n];
     return n;
 }
 

@@ -15,6 +15,7 @@
 #include "dragarc/cautions.h"
 #include "dragarc/catch_data.h"
 #include "dragarc/drift.h"
+#include "dragarc/fit.h"
 #include "dragarc/footprint.h"
 #include "dragarc/geodesy.h"
 #include "dragarc/optimize.h"
@@ -644,5 +645,85 @@ char *dragarc_footprint_json(const dragarc_footprint_spec *spec, const dragarc_i
         {"density_threshold", "1/km^2"}, {"grid_cell", "m"}};
     add_units(doc, U, sizeof U / sizeof U[0]);
     add_cautions(doc, DRAGARC_NOTE_DEBRIS);
+    return finish(doc);
+}
+
+/* ---- fits to measured tracks ---- */
+
+/* The RMS residuals east, north, up and all three together. */
+static cJSON *rms_object(const double *v)
+{
+    cJSON *o = cJSON_CreateObject();
+    add_num(o, "east", v[0]);
+    add_num(o, "north", v[1]);
+    add_num(o, "up", v[2]);
+    add_num(o, "all", v[3]);
+    return o;
+}
+
+char *dragarc_fit_json(const char *scenario, const char *track_file, const dragarc_track *track,
+                       const dragarc_fit_result *r)
+{
+    cJSON *doc = start(scenario);
+    if (!doc)
+        return NULL;
+    cJSON *tr = cJSON_AddObjectToObject(doc, "track");
+    cJSON_AddStringToObject(tr, "file", track_file);
+    cJSON_AddNumberToObject(tr, "points", (double)r->npoints);
+    cJSON_AddNumberToObject(tr, "residuals", (double)r->nresiduals);
+    cJSON_AddBoolToObject(tr, "velocities", track->vel != NULL);
+    cJSON_AddBoolToObject(tr, "weighted", r->weighted);
+    add_num(tr, "first_time", track->n ? track->t[0] : NAN);
+    add_num(tr, "last_time", track->n ? track->t[track->n - 1] : NAN);
+    cJSON_AddStringToObject(doc, "method", r->accel_used ? "levenberg-marquardt with geodesic acceleration"
+                                                          : "levenberg-marquardt");
+    cJSON_AddBoolToObject(doc, "converged", r->converged);
+    cJSON_AddNumberToObject(doc, "iterations", r->iterations);
+    cJSON_AddNumberToObject(doc, "flights", (double)r->flights);
+    cJSON *est = cJSON_AddArrayToObject(doc, "estimates");
+    for (int k = 0; k < r->np; k++) {
+        const int p = r->param[k];
+        cJSON *e = cJSON_CreateObject();
+        cJSON_AddStringToObject(e, "name", dragarc_fit_param_name(r->param[k]));
+        cJSON_AddStringToObject(e, "unit", dragarc_fit_param_unit(p));
+        add_num(e, "start", dragarc_fit_param_shown(p, r->start[k]));
+        add_num(e, "value", dragarc_fit_param_shown(p, r->value[k]));
+        add_num(e, "std_error", dragarc_fit_param_shown(p, r->se[k]));
+        add_num(e, "lower_95", dragarc_fit_param_shown(p, r->lower[k]));
+        add_num(e, "upper_95", dragarc_fit_param_shown(p, r->upper[k]));
+        cJSON_AddItemToArray(est, e);
+    }
+    cJSON *corr = cJSON_AddArrayToObject(doc, "correlation");
+    for (int i = 0; i < r->np; i++) {
+        cJSON *row = cJSON_CreateArray();
+        for (int j = 0; j < r->np; j++) {
+            double v = r->corr[i * r->np + j];
+            cJSON_AddItemToArray(row, isfinite(v) ? cJSON_CreateNumber(v) : cJSON_CreateNull());
+        }
+        cJSON_AddItemToArray(corr, row);
+    }
+    cJSON_AddNumberToObject(doc, "degrees_of_freedom", (double)r->dof);
+    add_num(doc, "chi_square", r->chisq);
+    add_num(doc, "chi_square_p", r->chisq_p);
+    add_num(doc, "residual_sd", r->sigma);
+    cJSON *rm = cJSON_AddObjectToObject(doc, "rms_residual");
+    cJSON_AddItemToObject(rm, "position", rms_object(r->rms_pos));
+    cJSON_AddItemToObject(rm, "velocity", track->vel ? rms_object(r->rms_vel) : cJSON_CreateNull());
+    cJSON *cond = cJSON_AddObjectToObject(doc, "conditioning");
+    add_num(cond, "rcond", r->rcond);
+    cJSON *weak = cJSON_AddObjectToObject(cond, "weakest_combination");
+    for (int k = 0; k < r->np; k++)
+        add_num(weak, dragarc_fit_param_name(r->param[k]), r->weak_direction[k]);
+    cJSON *units = cJSON_AddObjectToObject(doc, "units");
+    cJSON_AddStringToObject(units, "rms_residual.position", "m");
+    cJSON_AddStringToObject(units, "rms_residual.velocity", "m/s");
+    cJSON_AddStringToObject(units, "residual_sd", "m");
+    char warn[8][512];
+    size_t nw = dragarc_fit_warnings(r, warn, 8);
+    cJSON *wa = cJSON_AddArrayToObject(doc, "warnings");
+    for (size_t i = 0; i < nw; i++)
+        cJSON_AddItemToArray(wa, cJSON_CreateString(warn[i]));
+    const char *cautions[DRAGARC_CAUTIONS_MAX];
+    add_caution_list(doc, cautions, dragarc_cautions_fit(cautions, DRAGARC_CAUTIONS_MAX));
     return finish(doc);
 }
