@@ -98,7 +98,7 @@ void dragarc_fit_options_default(dragarc_fit_options *o);
 
 /* Warnings about the result (bit flags). */
 enum {
-    DRAGARC_FIT_ILL_CONDITIONED = 1u << 0, /* the scaled Jacobian is near singular: see weak_direction */
+    DRAGARC_FIT_ILL_CONDITIONED = 1u << 0, /* rcond < 0.05: the scaled Jacobian is near singular (see weak_direction) */
     DRAGARC_FIT_CORRELATED = 1u << 1,      /* two estimates correlate beyond 0.99: see worst_pair */
     DRAGARC_FIT_CHISQ_HIGH = 1u << 2,      /* given sigmas: chi^2 / dof far above 1 (p < 0.001), model or sigmas wrong */
     DRAGARC_FIT_CHISQ_LOW = 1u << 3,       /* given sigmas: chi^2 / dof far below 1 (p > 0.999), sigmas too large */

@@ -493,9 +493,10 @@ static int summarise(fit_ctx *c, const gsl_vector *x, gsl_matrix *J, double chis
             for (size_t k = 0; k < p; k++)
                 r->weak_direction[k] = -r->weak_direction[k];
     }
-    /* a scaled condition number of 1e3 means a relative error in the data is amplified a thousandfold in some
-     * combination of the estimates: common practice, no source */
-    if (r->rcond < 1e-3)
+    /* With two estimates whose columns meet at correlation rho, rcond = sqrt((1 - rho) / (1 + rho)): 0.05 is a
+     * pair at 0.995, just past the correlation warning's 0.99, and the same bar catches near-dependences among
+     * three or more estimates that no pair shows (threshold: common practice, no source) */
+    if (r->rcond < 0.05)
         r->warnings |= DRAGARC_FIT_ILL_CONDITIONED;
     for (int k = 0; k < np; k++) {
         r->lower[k] = r->value[k] - q * r->se[k];

@@ -50,6 +50,37 @@ TEST(drag_factor_of_a_constant_cd_is_half_rho_cd_a_v)
     CHECK_REL(dragarc_drag_factor(&quad, 20.0, &air, 0.1, 0.00785), 0.04, 1e-15);
 }
 
+TEST(cd_scale_multiplies_every_law_and_zero_reads_as_one)
+{
+    /* D = scale x the law's D, and the C_D reported with it; a zeroed scale is the law as given */
+    dragarc_air air = {.density = 1.2, .viscosity = 1.8e-5, .speed_of_sound = 340.0, .temperature = 293.0};
+    dragarc_drag laws[] = {{.model = DRAGARC_DRAG_CONSTANT, .cd = 0.47}, {.model = DRAGARC_DRAG_LINEAR, .k = 0.3},
+                           {.model = DRAGARC_DRAG_QUADRATIC, .c = 0.002}, {.model = DRAGARC_DRAG_SPHERE}};
+    for (size_t i = 0; i < sizeof laws / sizeof *laws; i++) {
+        double d1 = dragarc_drag_factor(&laws[i], 20.0, &air, 0.1, 0.00785);
+        double cd1 = dragarc_drag_cd(&laws[i], 1.3e5, 0.06, 20.0);
+        CHECK(dragarc_drag_scale(&laws[i]) == 1.0);
+        laws[i].scale = 1.25;
+        CHECK_REL(dragarc_drag_factor(&laws[i], 20.0, &air, 0.1, 0.00785), 1.25 * d1, 1e-15);
+        if (isfinite(cd1))
+            CHECK_REL(dragarc_drag_cd(&laws[i], 1.3e5, 0.06, 20.0), 1.25 * cd1, 1e-15);
+        dragarc_error e;
+        CHECK(dragarc_drag_check(&laws[i], &e) == DRAGARC_OK);
+        laws[i].scale = -1.0;
+        CHECK_ERROR(dragarc_drag_check(&laws[i], &e), DRAGARC_EINVAL, e, "cd_scale", "must be positive");
+    }
+    /* a table keeps its scale when set and copied */
+    dragarc_drag t = {.scale = 0.8};
+    double x[2] = {0.5, 1.0}, y[2] = {0.3, 0.6};
+    CHECK(dragarc_drag_table_set(&t, DRAGARC_AXIS_MACH, x, y, 2, NULL) == DRAGARC_OK);
+    dragarc_drag c;
+    CHECK(dragarc_drag_copy(&c, &t, NULL) == DRAGARC_OK);
+    CHECK(t.scale == 0.8 && c.scale == 0.8);
+    CHECK_REL(dragarc_drag_cd(&c, 1e5, 0.75, 255.0), 0.8 * 0.45, 1e-15);
+    dragarc_drag_clear(&t);
+    dragarc_drag_clear(&c);
+}
+
 TEST(sphere_drag_factor_is_stokes_drag_at_rest)
 {
     /* F = 3 pi mu d v (Stokes 1851) so D = 3 pi mu d at v -> 0, finite at v = 0. */
@@ -167,6 +198,7 @@ int main(void)
     RUN(sphere_drag_factor_is_stokes_drag_at_rest);
     RUN(reynolds_table_interpolates_monotonically_in_log_re_and_clamps);
     RUN(two_point_table_is_linear_in_mach);
+    RUN(cd_scale_multiplies_every_law_and_zero_reads_as_one);
     RUN(table_rejects_bad_points_and_names_them);
     RUN(spin_table_is_bilinear_in_log_re_and_spin_factor_and_clamps);
     return check_summary();

@@ -78,6 +78,22 @@ TEST(a_profile_can_be_named_by_path_relative_to_the_scenario)
     dragarc_scenario_clear(&s);
 }
 
+TEST(cd_scale_is_read_on_every_drag_law)
+{
+    const char *j = "{\"projectile\": {\"mass\": 1, \"diameter\": 0.1, \"drag\": {\"model\": \"table\", \"x\": "
+                    "\"mach\", \"points\": [[0.5, 0.3], [1.0, 0.6]], \"cd_scale\": 1.1}}, \"launch\": {\"speed\": 1, "
+                    "\"elevation\": 5}}";
+    dragarc_scenario s;
+    CHECK(dragarc_scenario_parse(j, NULL, NULL, &s, NULL) == DRAGARC_OK);
+    CHECK(s.projectile.drag.scale == 1.1);
+    dragarc_scenario_clear(&s);
+    const char *k = "{\"projectile\": {\"mass\": 1, \"diameter\": 0.1, \"drag\": {\"model\": \"constant\", \"cd\": 0.4}},"
+                    " \"launch\": {\"speed\": 1, \"elevation\": 5}}";
+    CHECK(dragarc_scenario_parse(k, NULL, NULL, &s, NULL) == DRAGARC_OK);
+    CHECK(dragarc_drag_scale(&s.projectile.drag) == 1.0);
+    dragarc_scenario_clear(&s);
+}
+
 TEST(errors_name_the_field_path)
 {
     struct {
@@ -94,6 +110,10 @@ TEST(errors_name_the_field_path)
         {"{\"projectile\": \"no-such-ball\", \"launch\": {\"speed\": 1, \"elevation\": 5}}", "projectile", "no profile named"},
         {"{\"projectile\": {\"mass\": 1, \"diameter\": 0.1}, \"launch\": {\"speed\": 1, \"elevation\": 5}}",
          "projectile.drag", "is required"},
+        {"{\"projectile\": {\"mass\": 1, \"diameter\": 0.1, \"drag\": {\"model\": \"sphere\", \"cd_scale\": 0}}, \"launch\": {\"speed\": 1, \"elevation\": 5}}",
+         "projectile.drag.cd_scale", "must be positive and at most 100"},
+        {"{\"projectile\": {\"mass\": 1, \"diameter\": 0.1, \"drag\": {\"model\": \"none\", \"cd_scale\": 2}}, \"launch\": {\"speed\": 1, \"elevation\": 5}}",
+         "projectile.drag.cd_scale", "unknown key"},
         {"[1, 2]", "", "must be a JSON object"},
         {"{\"launch\": {\"speed\": 1, \"elevation\": 5}", "", "not valid JSON (line 1, column"},
     };
@@ -116,6 +136,7 @@ int main(void)
     RUN(density_gives_the_mass_of_the_volume);
     RUN(every_shipped_profile_loads_by_name);
     RUN(a_profile_can_be_named_by_path_relative_to_the_scenario);
+    RUN(cd_scale_is_read_on_every_drag_law);
     RUN(errors_name_the_field_path);
     return check_summary();
 }
