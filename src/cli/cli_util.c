@@ -147,6 +147,10 @@ static void describe_drag(char *buf, size_t n, const dragarc_drag *d)
         break;
     default: snprintf(buf, n, "none"); break;
     }
+    const double scale = dragarc_drag_scale(d);
+    size_t len = strlen(buf);
+    if (scale != 1.0 && d->model != DRAGARC_DRAG_NONE && len < n)
+        snprintf(buf + len, n - len, ", times cd_scale %.4g", scale);
 }
 
 void cli_print_flight(FILE *fp, const char *label, const dragarc_scenario *s, const dragarc_flight *f,

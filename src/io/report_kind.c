@@ -111,6 +111,8 @@ static void drag_input(report_pairs *p, const dragarc_drag *g)
         break;
     default: report_add(p, "drag", "none"); break;
     }
+    if (dragarc_drag_scale(g) != 1.0 && g->model != DRAGARC_DRAG_NONE)
+        report_add(p, "drag scale", "the law's drag times cd_scale %.4g", dragarc_drag_scale(g));
 }
 
 static void atmosphere_input(report_pairs *p, const dragarc_scenario *s, const dragarc_display *d)
