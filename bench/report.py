@@ -3,7 +3,8 @@
 # Copyright (C) 2026 the dragarc developers.
 #
 # report.py: write docs/performance.md from the JSON results of bench_flight and scipy_bench.py.
-# Usage: report.py MACHINE_TXT OUT_MD C_JSON SCIPY_JSON [C_JSON SCIPY_JSON ...]  (one pair per round)
+# Usage: report.py MACHINE_TXT OUT_MD C_JSON SCIPY_JSON [C_JSON SCIPY_JSON ...] [--patterns JSON] [--fit JSON]
+#   (one pair per round)
 
 import json
 import sys
@@ -59,6 +60,11 @@ def main():
     if "--patterns" in args:
         k = args.index("--patterns")
         patterns = args[k + 1]
+        del args[k:k + 2]
+    fits = None
+    if "--fit" in args:
+        k = args.index("--fit")
+        fits = args[k + 1]
         del args[k:k + 2]
     machine_path, out_path = args[0:2]
     pairs = args[2:]
@@ -245,6 +251,33 @@ def main():
                  "`dragarc footprint docs/examples/footprint-rocket.json --samples 2000 --json`), "
                  "medians of 5 runs, measured by `bench/patterns.sh`; the 1-thread run is the same work one flight "
                  "after another.")
+    if fits:
+        with open(fits) as f:
+            fit = json.load(f)
+        L.append("")
+        L.append("## Fits to tracks")
+        L.append("")
+        L.append("Measured by `bench_fit` (bench/bench_fit.c): three invented problems, each a noisy synthetic track of "
+                 "a known truth, fitted from %d random starts around the truth (every estimate off by up to the "
+                 "spread, uniformly; angles by that share of 0.5 rad, launch offsets of 1 m). *Found* counts fits that "
+                 "converged to the best minimum (within 0.1 standard error of the fit started at the truth). The "
+                 "first three rows of each spread start from the random point as it is (`--start scenario`): plain "
+                 "Levenberg-Marquardt, with geodesic acceleration, and the default policy (plain, retried "
+                 "accelerated when it stalls); *auto+track* is the default with its default start, where launch "
+                 "estimates begin at values read off the track's first points when those fit better. The "
+                 "reference is one flight of the truth over the track's times, timed in the same run; *flights' "
+                 "time* is a fit's time over it." % fit["starts"])
+        for p in fit["problems"]:
+            L.append("")
+            L.append("**%s** (`--estimate %s`; one flight %.1f µs)" % (p["name"], p["estimates"],
+                                                                      1e6 * p["flight_seconds"]))
+            L.append("")
+            L.append("| spread | method | found | iterations | flights | ms a fit | flights' time |")
+            L.append("|---:|---|---:|---:|---:|---:|---:|")
+            for c in p["cases"]:
+                L.append("| ±%.0f %% | %s | %d of %d | %.1f | %.0f | %.2f | %.0f |" % (
+                    100 * c["spread"], c["mode"], c["found"], fit["starts"], c["iterations"], c["flights"],
+                    1e3 * c["seconds_per_fit"], c["seconds_per_fit"] / p["flight_seconds"]))
     L.append("")
     with open(out_path, "w") as f:
         f.write("\n".join(L))

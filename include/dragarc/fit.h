@@ -88,6 +88,7 @@ typedef enum dragarc_fit_accel {
 typedef struct dragarc_fit_options {
     unsigned estimate;      /* bit mask of (1u << dragarc_fit_param), at least one */
     dragarc_fit_accel accel;
+    int scenario_start;     /* 1: start from the scenario's values only, never from the track's first points */
     int max_iterations;     /* per attempt (default 200) */
     double xtol;            /* relative step size that ends the search (default 1e-10) */
     double gtol;            /* scaled gradient that ends it (default 1e-12) */
@@ -102,7 +103,8 @@ enum {
     DRAGARC_FIT_CORRELATED = 1u << 1,      /* two estimates correlate beyond 0.99: see worst_pair */
     DRAGARC_FIT_CHISQ_HIGH = 1u << 2,      /* given sigmas: chi^2 / dof far above 1 (p < 0.001), model or sigmas wrong */
     DRAGARC_FIT_CHISQ_LOW = 1u << 3,       /* given sigmas: chi^2 / dof far below 1 (p > 0.999), sigmas too large */
-    DRAGARC_FIT_NOT_CONVERGED = 1u << 4    /* the iterations ran out before a tolerance was met */
+    DRAGARC_FIT_NOT_CONVERGED = 1u << 4,   /* the iterations ran out before a tolerance was met */
+    DRAGARC_FIT_AT_LIMIT = 1u << 5         /* an estimate ended against a limit of what can be flown: see at_limit */
 };
 
 /* The fit. Arrays are of np (or np x np), in the order of dragarc_fit_param; SI units and radians. */
@@ -131,12 +133,16 @@ typedef struct dragarc_fit_result {
     int iterations;      /* of the attempt that ended the fit */
     long flights;        /* flights flown in all */
     int accel_used;      /* 1: geodesic acceleration */
-    int converged;       /* 1: a tolerance was met */
+    int converged;       /* 1: a tolerance was met, with no estimate held at a limit */
+    int start_from_track; /* 1: the launch estimates started from values read off the track's first points */
+    unsigned at_limit;   /* bit k: estimate k ended against a limit (a side of it could not be flown) */
     unsigned warnings;   /* DRAGARC_FIT_* */
     double *residuals;   /* owned: npoints x 6 (measured minus fitted: position, velocity or NaN), row by row */
 } dragarc_fit_result;
 
-/* Fit the estimates o->estimate of scenario s to the track. Starting values are the scenario's. The flights go on
+/* Fit the estimates o->estimate of scenario s to the track. Starting values are the scenario's; launch estimates
+ * start instead from the track's first points (a quadratic in t per coordinate over up to 7 points, at t = 0) when
+ * those fit the track better. The flights go on
  * below the scenario's ground as far as the track needs, have no bounces, and are integrated with tolerances at
  * least as tight as rtol 1e-10, atol 1e-9. fitted (NULL: not wanted) receives a copy of s with the estimates in
  * it (caller clears). *r is filled (caller frees with dragarc_fit_result_clear, also after failure).

@@ -1,5 +1,5 @@
 /* cmd_fit.c: `dragarc fit SCENARIO TRACK.csv --estimate NAME[,NAME...] [--json] [--residuals FILE.csv]
- * [--plot FILE] [--geodesic auto|on|off] [--max-iterations N]`: drag, lift, wind or launch fitted to a track.
+ * [--plot FILE] [--start auto|scenario] [--geodesic auto|on|off] [--max-iterations N]`: drag, lift, wind or launch fitted to a track.
  * SPDX-License-Identifier: GPL-3.0-or-later
  */
 #include <math.h>
@@ -15,7 +15,8 @@
 
 static const char HELP[] =
     "usage: dragarc fit SCENARIO TRACK.csv --estimate NAME[,NAME...] [--json] [--residuals FILE.csv]\n"
-    "                   [--plot FILE.svg|png|pdf] [--geodesic auto|on|off] [--max-iterations N]\n"
+    "                   [--plot FILE.svg|png|pdf] [--start auto|scenario] [--geodesic auto|on|off]\n"
+    "                   [--max-iterations N]\n"
     "\n"
     "Fit parameters of the scenario file SCENARIO to a measured flight: the values that make the modelled\n"
     "flight pass closest to the track's points, by weighted nonlinear least squares (GSL's Levenberg-\n"
@@ -27,7 +28,8 @@ static const char HELP[] =
     "sd_y, sd_z for the positions, sd_v or sd_vx, sd_vy, sd_vz for the velocities (needed with them).\n"
     "Without standard deviations the fit is unweighted and they are estimated from the residuals.\n"
     "\n"
-    "  --estimate NAMES     what to fit, comma-separated, starting from the scenario's values:\n"
+    "  --estimate NAMES     what to fit, comma-separated, starting from the scenario's values (launch values\n"
+    "                       from the track's first points instead, when those fit better):\n"
     "                         cd            a constant drag coefficient (replaces the drag law)\n"
     "                         cd_scale      a factor on the drag law's C_D curve (drag.cd_scale)\n"
     "                         bc            the ballistic coefficient m / (C_D A), kg/m^2 (sets cd_scale)\n"
@@ -39,13 +41,16 @@ static const char HELP[] =
     "  --residuals FILE     write the residuals (measured - fitted) at each point as CSV\n"
     "  --plot FILE          draw the track and the fitted flight (side and plan views) and the residuals\n"
     "                       against time into FILE, an .svg, .png or .pdf file\n"
+    "  --start MODE         auto (default): launch estimates start from the track's first points when\n"
+    "                       those fit better than the scenario's values; scenario: always the scenario's\n"
     "  --geodesic MODE      auto (default): Levenberg-Marquardt, again with geodesic acceleration if it\n"
     "                       stalls; on: with acceleration from the start; off: never\n"
     "  --max-iterations N   per attempt (default 200)\n"
     "  -h, --help           this help\n"
     "\n"
     "Estimates are shown in SI units, angles in degrees. The method is in docs/fit.md.\n"
-    "exit status: 0 converged, 1 the iterations ran out (the last values are printed, with a warning),\n"
+    "exit status: 0 converged, 1 not converged: the iterations ran out or an estimate ended against a limit\n"
+    "(the last values are printed, with a warning),\n"
     "2 bad usage or input, 3 the computation failed.\n";
 
 typedef struct outputs {
@@ -77,6 +82,8 @@ static void print_summary(const char *track_file, const dragarc_scenario *s, con
     printf("  method        Levenberg-Marquardt%s: %s after %d iterations, %ld flights\n",
            r->accel_used ? " with geodesic acceleration" : "", r->converged ? "converged" : "NOT converged",
            r->iterations, r->flights);
+    printf("  start         %s\n", r->start_from_track ? "the scenario's values, with the launch read off the track's first points"
+                                                             : "the scenario's values");
     if (r->weighted)
         printf("  weights       the track's standard deviations: chi-square %.4g on %zu degrees of freedom "
                "(p = %.3g)\n", r->chisq, r->dof, r->chisq_p);
@@ -161,6 +168,10 @@ int cmd_fit(int argc, char **argv)
                 o.accel = DRAGARC_FIT_ACCEL_OFF;
             else
                 return cli_usage_error("fit", "--geodesic needs auto, on or off (got '%s')", argv[i]);
+        } else if (strcmp(a, "--start") == 0) {
+            if (++i >= argc || (strcmp(argv[i], "auto") != 0 && strcmp(argv[i], "scenario") != 0))
+                return cli_usage_error("fit", "--start needs auto or scenario");
+            o.scenario_start = strcmp(argv[i], "scenario") == 0;
         } else if (strcmp(a, "--max-iterations") == 0) {
             double n;
             if ((st = cli_count_argument("fit", "--max-iterations", ++i < argc ? argv[i] : NULL, 1, 100000, &n)) != 0)

@@ -53,6 +53,19 @@ size_t dragarc_fit_warnings(const dragarc_fit_result *r, char (*out)[512], size_
                  "The fit did not converge in %d iterations: the values are the last iterate, not a minimum. Start "
                  "closer (the scenario's values are the start), estimate fewer parameters, or allow more iterations.",
                  r->iterations);
+    if ((r->warnings & DRAGARC_FIT_AT_LIMIT) && n < max) {
+        char names[256] = "";
+        size_t len = 0;
+        for (int k = 0; k < r->np && len < sizeof names - 32; k++)
+            if (r->at_limit & (1u << k))
+                len += (size_t)snprintf(names + len, sizeof names - len, "%s%s", len ? ", " : "",
+                                        dragarc_fit_param_name(r->param[k]));
+        snprintf(out[n++], sizeof *out,
+                 "The search ended against a limit of what can be flown (%s: a value just beyond it is refused, such "
+                 "as a C_D at 0 or a C_L above 1): the values there are no minimum of the residuals, and no standard "
+                 "errors hold for them. Start closer to the truth, or hold that parameter fixed in the scenario.",
+                 names);
+    }
     if ((r->warnings & DRAGARC_FIT_CORRELATED) && n < max && r->worst_pair[0] >= 0)
         snprintf(out[n++], sizeof *out,
                  "%s and %s correlate at %.3f: this track hardly tells them apart, so their standard errors are large "

@@ -678,6 +678,7 @@ char *dragarc_fit_json(const char *scenario, const char *track_file, const draga
     cJSON_AddStringToObject(doc, "method", r->accel_used ? "levenberg-marquardt with geodesic acceleration"
                                                           : "levenberg-marquardt");
     cJSON_AddBoolToObject(doc, "converged", r->converged);
+    cJSON_AddStringToObject(doc, "start", r->start_from_track ? "track" : "scenario");
     cJSON_AddNumberToObject(doc, "iterations", r->iterations);
     cJSON_AddNumberToObject(doc, "flights", (double)r->flights);
     cJSON *est = cJSON_AddArrayToObject(doc, "estimates");

@@ -21,6 +21,7 @@
 #include <gsl/gsl_errno.h>
 #include <gsl/gsl_linalg.h>
 #include <gsl/gsl_matrix.h>
+#include <gsl/gsl_multifit.h>
 #include <gsl/gsl_multifit_nlinear.h>
 #include <gsl/gsl_vector.h>
 
@@ -274,6 +275,7 @@ typedef struct fit_ctx {
     long flights;
     dragarc_error first_err; /* why the first unflyable candidate failed */
     int unflyable;
+    unsigned one_sided; /* bit k: the last Jacobian's column k was one-sided (a side could not be flown) */
 } fit_ctx;
 
 /* Fly the candidate x; the predicted states (with the launch offsets) in c->states. */
@@ -356,6 +358,7 @@ static int jacobian(fit_ctx *c, const double *x, gsl_matrix *J)
     double *fm = fp + m;
     double *f0 = NULL; /* the centre, flown when a side cannot be */
     int status = GSL_SUCCESS;
+    c->one_sided = 0;
     for (int k = 0; k < c->np && status == GSL_SUCCESS; k++) {
         double xv[DRAGARC_FIT_NPARAMS];
         memcpy(xv, x, (size_t)c->np * sizeof *xv);
@@ -383,6 +386,7 @@ static int jacobian(fit_ctx *c, const double *x, gsl_matrix *J)
             else
                 memcpy(fm, f0, m * sizeof *fm);
             span = h;
+            c->one_sided |= 1u << k;
         }
         for (size_t i = 0; i < m; i++)
             gsl_matrix_set(J, i, (size_t)k, (fp[i] - fm[i]) / span);
@@ -399,6 +403,83 @@ static int gsl_df(const gsl_vector *x, void *params, gsl_matrix *J)
     for (int k = 0; k < c->np; k++)
         xv[k] = gsl_vector_get(x, (size_t)k);
     return jacobian(c, xv, J);
+}
+
+/* The launch read off the track: a quadratic in t fitted by least squares to each coordinate of its first points
+ * (at most START_POINTS), taken at t = 0: position p0 (m) and velocity v0 (m/s). -1 when the track is too short or
+ * GSL fails. */
+#define START_POINTS 7
+static int track_launch(const dragarc_track *t, double p0[3], double v0[3])
+{
+    const size_t m = t->n < START_POINTS ? t->n : START_POINTS;
+    if (m < 3)
+        return -1;
+    gsl_matrix *X = gsl_matrix_alloc(m, 3), *cov = gsl_matrix_alloc(3, 3);
+    gsl_vector *y = gsl_vector_alloc(m), *c = gsl_vector_alloc(3);
+    gsl_multifit_linear_workspace *w = gsl_multifit_linear_alloc(m, 3);
+    int rc = X && cov && y && c && w ? 0 : -1;
+    for (size_t i = 0; i < m && rc == 0; i++) {
+        gsl_matrix_set(X, i, 0, 1.0);
+        gsl_matrix_set(X, i, 1, t->t[i]);
+        gsl_matrix_set(X, i, 2, t->t[i] * t->t[i]);
+    }
+    for (int k = 0; k < 3 && rc == 0; k++) {
+        double chisq;
+        for (size_t i = 0; i < m; i++)
+            gsl_vector_set(y, i, t->pos[3 * i + k]);
+        if (gsl_multifit_linear(X, y, c, cov, &chisq, w) != GSL_SUCCESS)
+            rc = -1;
+        p0[k] = gsl_vector_get(c, 0);
+        v0[k] = gsl_vector_get(c, 1);
+    }
+    gsl_matrix_free(X), gsl_matrix_free(cov), gsl_vector_free(y), gsl_vector_free(c);
+    if (w)
+        gsl_multifit_linear_free(w);
+    return rc == 0 && isfinite(p0[0] + p0[1] + p0[2] + v0[0] + v0[1] + v0[2]) ? 0 : -1;
+}
+
+/* The start: the scenario's values, or, when launch values are estimated, those read off the track in their place,
+ * whichever fits the track better (a placeholder launch in the scenario then does no harm). Returns 1 when the
+ * track's were taken. */
+static int choose_start(fit_ctx *c, double *x, double *f)
+{
+    double p0[3], v0[3], xt[DRAGARC_FIT_NPARAMS];
+    if (track_launch(c->track, p0, v0) != 0)
+        return 0;
+    int any = 0;
+    for (int k = 0; k < c->np; k++) {
+        double v = x[k];
+        switch (c->param[k]) {
+        case DRAGARC_FIT_LAUNCH_SPEED: v = sqrt(v0[0] * v0[0] + v0[1] * v0[1] + v0[2] * v0[2]); break;
+        case DRAGARC_FIT_LAUNCH_ELEVATION: v = atan2(v0[2], hypot(v0[0], v0[1])); break;
+        case DRAGARC_FIT_LAUNCH_AZIMUTH:
+            if (hypot(v0[0], v0[1]) > 0.0)
+                v = atan2(v0[0], v0[1]);
+            break;
+        case DRAGARC_FIT_LAUNCH_HEIGHT: v = p0[2]; break;
+        case DRAGARC_FIT_LAUNCH_EAST: v = p0[0]; break;
+        case DRAGARC_FIT_LAUNCH_NORTH: v = p0[1]; break;
+        default: break;
+        }
+        any |= v != x[k];
+        xt[k] = v;
+    }
+    if (!any)
+        return 0;
+    const size_t m = c->width * c->track->n;
+    if (eval_f(c, x, f) != 0)
+        return eval_f(c, xt, f) == 0 ? (memcpy(x, xt, (size_t)c->np * sizeof *x), 1) : 0;
+    double cost_scenario = 0.0, cost_track = 0.0;
+    for (size_t i = 0; i < m; i++)
+        cost_scenario += f[i] * f[i];
+    if (eval_f(c, xt, f) != 0)
+        return 0;
+    for (size_t i = 0; i < m; i++)
+        cost_track += f[i] * f[i];
+    if (!(cost_track < cost_scenario))
+        return 0;
+    memcpy(x, xt, (size_t)c->np * sizeof *x);
+    return 1;
 }
 
 /* One attempt from x0; the status of GSL's driver, the workspace left for the caller to read. */
@@ -623,6 +704,16 @@ int dragarc_fit_run(const dragarc_scenario *s, const dragarc_track *track, const
         rc = dragarc_error_set(err, DRAGARC_ENOMEM, "", "out of memory for a fit of %zu residuals", m);
         goto done;
     }
+    {
+        double *f = malloc(m * sizeof *f);
+        if (!f) {
+            rc = dragarc_error_set(err, DRAGARC_ENOMEM, "", "out of memory for a fit of %zu residuals", m);
+            goto done;
+        }
+        r->start_from_track = o->scenario_start ? 0 : choose_start(&c, r->start, f);
+        free(f);
+        c.unflyable = 0;
+    }
     for (int k = 0; k < c.np; k++)
         gsl_vector_set(x0, (size_t)k, r->start[k]);
     /* the start must fly, and every estimate must move the track */
@@ -680,6 +771,13 @@ int dragarc_fit_run(const dragarc_scenario *s, const dragarc_track *track, const
         rc = c.unflyable ? (*err = c.first_err, err->code)
                          : dragarc_error_set(err, DRAGARC_ENOMEM, "", "out of memory for the Jacobian");
         goto done;
+    }
+    /* an estimate held against a limit of what can be flown (C_D near 0, C_L at 1) was stopped there, not at a
+     * minimum of the residuals: the search ended on the wall the unflyable side makes */
+    r->at_limit = c.one_sided;
+    if (r->at_limit) {
+        r->warnings |= DRAGARC_FIT_AT_LIMIT;
+        r->converged = 0;
     }
     double chi = gsl_blas_dnrm2(gsl_multifit_nlinear_residual(w));
     if ((rc = summarise(&c, x, J0, chi * chi, r, err)) != DRAGARC_OK)

@@ -504,6 +504,70 @@ TEST(fitted_scenario_holds_the_estimates)
     dragarc_scenario_clear(&truth);
 }
 
+TEST(a_placeholder_launch_starts_from_the_track)
+{
+    /* the scenario's launch is a guess far off (10 m/s at 40 deg, due north, from 3 m); the track's first points
+     * give a better start, and the fit returns to the truth from it, but not from the guess alone */
+    dragarc_scenario truth, start;
+    ball(&truth);
+    dragarc_error e;
+    dragarc_track tr;
+    make_track(&truth, times(60, 0.02, 1.9), 60, 0.0, 0.0, 0, NULL, &tr);
+    dragarc_scenario_copy(&start, &truth, &e);
+    start.launch.speed = 10.0, start.launch.elevation = 40.0 * DEG, start.launch.azimuth = 0.0;
+    start.launch.height = 3.0, start.projectile.drag.cd = 0.4;
+    const char *names = "cd,launch.speed,launch.elevation,launch.azimuth,launch.height";
+    dragarc_fit_result r;
+    CHECK(fit(&start, &tr, names, DRAGARC_FIT_ACCEL_AUTO, &r, 1) == DRAGARC_OK);
+    CHECK(r.start_from_track);
+    CHECK(r.converged);
+    CHECK_REL(value_of(&r, DRAGARC_FIT_CD, NULL), 0.55, 1e-6);
+    CHECK_REL(value_of(&r, DRAGARC_FIT_LAUNCH_SPEED, NULL), 30.0, 1e-6);
+    /* read off 7 points over 0.12 s by a quadratic: within a few per cent of the truth */
+    CHECK_REL(r.start[1], 30.0, 0.05);
+    CHECK_ABS(r.start[4], 1.0, 0.05);
+    dragarc_fit_result_clear(&r);
+    /* --start scenario keeps the guess */
+    dragarc_fit_options o;
+    dragarc_fit_options_default(&o);
+    o.scenario_start = 1;
+    dragarc_fit_params_parse(names, &o.estimate, &e);
+    CHECK(dragarc_fit_run(&start, &tr, &o, &r, NULL, &e) == DRAGARC_OK);
+    CHECK(!r.start_from_track && r.start[1] == 10.0);
+    dragarc_fit_result_clear(&r);
+    dragarc_scenario_clear(&start);
+    dragarc_track_clear(&tr);
+    dragarc_scenario_clear(&truth);
+}
+
+TEST(an_estimate_held_at_a_limit_is_no_minimum)
+{
+    /* a scenario whose ball is 1000 times too heavy would need C_D near 550 to slow as the track does; the drag law
+     * stops at 100, so the search ends against that wall: flagged, and not called converged */
+    dragarc_scenario truth, start;
+    ball(&truth);
+    dragarc_error e;
+    dragarc_track tr;
+    make_track(&truth, times(40, 0.02, 1.9), 40, 0.0, 0.0, 0, NULL, &tr);
+    dragarc_scenario_copy(&start, &truth, &e);
+    start.projectile.mass *= 1000.0;
+    dragarc_fit_result r;
+    CHECK(fit(&start, &tr, "cd", DRAGARC_FIT_ACCEL_AUTO, &r, 1) == DRAGARC_OK);
+    CHECK(r.warnings & DRAGARC_FIT_AT_LIMIT);
+    CHECK(r.at_limit == 1u);
+    CHECK(!r.converged);
+    CHECK(r.value[0] > 99.0);
+    char warn[8][512];
+    size_t nw = dragarc_fit_warnings(&r, warn, 8);
+    CHECK(nw >= 1 && strstr(warn[0], "against a limit of what can be flown (cd:"));
+    for (size_t i = 0; i < nw; i++)
+        printf("  warning: %s\n", warn[i]);
+    dragarc_fit_result_clear(&r);
+    dragarc_scenario_clear(&start);
+    dragarc_track_clear(&tr);
+    dragarc_scenario_clear(&truth);
+}
+
 TEST(too_few_iterations_end_unconverged_not_in_error)
 {
     dragarc_scenario truth, start;
@@ -627,6 +691,8 @@ int main(void)
     RUN(chi_square_tells_wrong_standard_deviations);
     RUN(wind_found_from_the_other_side);
     RUN(fitted_scenario_holds_the_estimates);
+    RUN(a_placeholder_launch_starts_from_the_track);
+    RUN(an_estimate_held_at_a_limit_is_no_minimum);
     RUN(too_few_iterations_end_unconverged_not_in_error);
     RUN(estimates_the_fit_cannot_use_are_refused);
     RUN(a_start_that_cannot_fly_names_its_field);
