@@ -125,6 +125,27 @@ static double value_of(const dragarc_fit_result *r, dragarc_fit_param p, double 
     return NAN;
 }
 
+/* The test ball's noise-free track of n points from 0.02 to 1.9 s, and a copy of the truth to start a fit from. */
+typedef struct fixture {
+    dragarc_scenario truth, start;
+    dragarc_track tr;
+} fixture;
+
+static void fixture_set(fixture *f, size_t n)
+{
+    dragarc_error e;
+    ball(&f->truth);
+    make_track(&f->truth, times(n, 0.02, 1.9), n, 0.0, 0.0, 0, NULL, &f->tr);
+    CHECK(dragarc_scenario_copy(&f->start, &f->truth, &e) == DRAGARC_OK);
+}
+
+static void fixture_clear(fixture *f)
+{
+    dragarc_scenario_clear(&f->start);
+    dragarc_scenario_clear(&f->truth);
+    dragarc_track_clear(&f->tr);
+}
+
 TEST(flight_run_at_matches_the_fixed_interval_samples)
 {
     /* the same steps, the same dense output: sampling at listed times k dt equals sampling every dt, bit for bit
@@ -464,21 +485,15 @@ TEST(chi_square_tells_wrong_standard_deviations)
 TEST(wind_found_from_the_other_side)
 {
     /* started with the wind from the opposite side, the speed passes through 0 and the direction turns round */
-    dragarc_scenario truth, start;
-    ball(&truth);
-    dragarc_error e;
-    dragarc_track tr;
-    make_track(&truth, times(60, 0.02, 1.9), 60, 0.0, 0.0, 0, NULL, &tr);
-    dragarc_scenario_copy(&start, &truth, &e);
-    start.wind.speed = 1.0, start.wind.from = 70.0 * DEG;
+    fixture f;
+    fixture_set(&f, 60);
+    f.start.wind.speed = 1.0, f.start.wind.from = 70.0 * DEG;
     dragarc_fit_result r;
-    CHECK(fit(&start, &tr, "wind.speed,wind.from", DRAGARC_FIT_ACCEL_AUTO, &r, 1) == DRAGARC_OK);
+    CHECK(fit(&f.start, &f.tr, "wind.speed,wind.from", DRAGARC_FIT_ACCEL_AUTO, &r, 1) == DRAGARC_OK);
     CHECK_REL(value_of(&r, DRAGARC_FIT_WIND_SPEED, NULL), 2.5, 1e-6);
     CHECK_ABS(value_of(&r, DRAGARC_FIT_WIND_FROM, NULL), 240.0 * DEG, 1e-6);
     dragarc_fit_result_clear(&r);
-    dragarc_scenario_clear(&start);
-    dragarc_track_clear(&tr);
-    dragarc_scenario_clear(&truth);
+    fixture_clear(&f);
 }
 
 TEST(fitted_scenario_holds_the_estimates)
@@ -508,17 +523,14 @@ TEST(a_placeholder_launch_starts_from_the_track)
 {
     /* the scenario's launch is a guess far off (10 m/s at 40 deg, due north, from 3 m); the track's first points
      * give a better start, and the fit returns to the truth from it, but not from the guess alone */
-    dragarc_scenario truth, start;
-    ball(&truth);
+    fixture f;
+    fixture_set(&f, 60);
     dragarc_error e;
-    dragarc_track tr;
-    make_track(&truth, times(60, 0.02, 1.9), 60, 0.0, 0.0, 0, NULL, &tr);
-    dragarc_scenario_copy(&start, &truth, &e);
-    start.launch.speed = 10.0, start.launch.elevation = 40.0 * DEG, start.launch.azimuth = 0.0;
-    start.launch.height = 3.0, start.projectile.drag.cd = 0.4;
+    f.start.launch.speed = 10.0, f.start.launch.elevation = 40.0 * DEG, f.start.launch.azimuth = 0.0;
+    f.start.launch.height = 3.0, f.start.projectile.drag.cd = 0.4;
     const char *names = "cd,launch.speed,launch.elevation,launch.azimuth,launch.height";
     dragarc_fit_result r;
-    CHECK(fit(&start, &tr, names, DRAGARC_FIT_ACCEL_AUTO, &r, 1) == DRAGARC_OK);
+    CHECK(fit(&f.start, &f.tr, names, DRAGARC_FIT_ACCEL_AUTO, &r, 1) == DRAGARC_OK);
     CHECK(r.start_from_track);
     CHECK(r.converged);
     CHECK_REL(value_of(&r, DRAGARC_FIT_CD, NULL), 0.55, 1e-6);
@@ -532,27 +544,21 @@ TEST(a_placeholder_launch_starts_from_the_track)
     dragarc_fit_options_default(&o);
     o.scenario_start = 1;
     dragarc_fit_params_parse(names, &o.estimate, &e);
-    CHECK(dragarc_fit_run(&start, &tr, &o, &r, NULL, &e) == DRAGARC_OK);
+    CHECK(dragarc_fit_run(&f.start, &f.tr, &o, &r, NULL, &e) == DRAGARC_OK);
     CHECK(!r.start_from_track && r.start[1] == 10.0);
     dragarc_fit_result_clear(&r);
-    dragarc_scenario_clear(&start);
-    dragarc_track_clear(&tr);
-    dragarc_scenario_clear(&truth);
+    fixture_clear(&f);
 }
 
 TEST(an_estimate_held_at_a_limit_is_no_minimum)
 {
     /* a scenario whose ball is 1000 times too heavy would need C_D near 550 to slow as the track does; the drag law
      * stops at 100, so the search ends against that wall: flagged, and not called converged */
-    dragarc_scenario truth, start;
-    ball(&truth);
-    dragarc_error e;
-    dragarc_track tr;
-    make_track(&truth, times(40, 0.02, 1.9), 40, 0.0, 0.0, 0, NULL, &tr);
-    dragarc_scenario_copy(&start, &truth, &e);
-    start.projectile.mass *= 1000.0;
+    fixture f;
+    fixture_set(&f, 40);
+    f.start.projectile.mass *= 1000.0;
     dragarc_fit_result r;
-    CHECK(fit(&start, &tr, "cd", DRAGARC_FIT_ACCEL_AUTO, &r, 1) == DRAGARC_OK);
+    CHECK(fit(&f.start, &f.tr, "cd", DRAGARC_FIT_ACCEL_AUTO, &r, 1) == DRAGARC_OK);
     CHECK(r.warnings & DRAGARC_FIT_AT_LIMIT);
     CHECK(r.at_limit == 1u);
     CHECK(!r.converged);
@@ -563,33 +569,26 @@ TEST(an_estimate_held_at_a_limit_is_no_minimum)
     for (size_t i = 0; i < nw; i++)
         printf("  warning: %s\n", warn[i]);
     dragarc_fit_result_clear(&r);
-    dragarc_scenario_clear(&start);
-    dragarc_track_clear(&tr);
-    dragarc_scenario_clear(&truth);
+    fixture_clear(&f);
 }
 
 TEST(too_few_iterations_end_unconverged_not_in_error)
 {
-    dragarc_scenario truth, start;
-    ball(&truth);
+    fixture f;
+    fixture_set(&f, 40);
     dragarc_error e;
-    dragarc_track tr;
-    make_track(&truth, times(40, 0.02, 1.9), 40, 0.0, 0.0, 0, NULL, &tr);
-    dragarc_scenario_copy(&start, &truth, &e);
-    start.projectile.drag.cd = 0.3, start.launch.speed = 25.0;
+    f.start.projectile.drag.cd = 0.3, f.start.launch.speed = 25.0;
     dragarc_fit_options o;
     dragarc_fit_options_default(&o);
     o.max_iterations = 1;
     o.accel = DRAGARC_FIT_ACCEL_OFF;
     dragarc_fit_params_parse("cd,launch.speed", &o.estimate, &e);
     dragarc_fit_result r;
-    CHECK(dragarc_fit_run(&start, &tr, &o, &r, NULL, &e) == DRAGARC_OK);
+    CHECK(dragarc_fit_run(&f.start, &f.tr, &o, &r, NULL, &e) == DRAGARC_OK);
     CHECK(!r.converged);
     CHECK(r.warnings & DRAGARC_FIT_NOT_CONVERGED);
     dragarc_fit_result_clear(&r);
-    dragarc_scenario_clear(&start);
-    dragarc_track_clear(&tr);
-    dragarc_scenario_clear(&truth);
+    fixture_clear(&f);
 }
 
 TEST(estimates_the_fit_cannot_use_are_refused)
