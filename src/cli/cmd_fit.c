@@ -98,9 +98,13 @@ static void print_summary(const char *track_file, const dragarc_scenario *s, con
         snprintf(name, sizeof name, u[0] ? "%s (%s)" : "%s", dragarc_fit_param_name(r->param[k]), u);
         const double se = dragarc_fit_param_shown(p, r->se[k]);
         const int d = dragarc_fit_decimals(se);
-        printf("  %-22s %12.*f %14.*f %12.2g   %.*f to %.*f\n", name, d < 4 ? 4 : d,
-               dragarc_fit_param_shown(p, r->start[k]), d, dragarc_fit_param_shown(p, r->value[k]), se, d,
-               dragarc_fit_param_shown(p, r->lower[k]), d, dragarc_fit_param_shown(p, r->upper[k]));
+        printf("  %-22s %12.*f %14.*f %12.2g   ", name, d < 4 ? 4 : d, dragarc_fit_param_shown(p, r->start[k]), d,
+               dragarc_fit_param_shown(p, r->value[k]), se);
+        if (r->at_limit & (1u << k))
+            printf("none: held at a limit\n");
+        else
+            printf("%.*f to %.*f\n", d, dragarc_fit_param_shown(p, r->lower[k]), d,
+                   dragarc_fit_param_shown(p, r->upper[k]));
     }
     if (r->np > 1) {
         printf("\n  correlation\n");

@@ -692,6 +692,7 @@ char *dragarc_fit_json(const char *scenario, const char *track_file, const draga
         add_num(e, "std_error", dragarc_fit_param_shown(p, r->se[k]));
         add_num(e, "lower_95", dragarc_fit_param_shown(p, r->lower[k]));
         add_num(e, "upper_95", dragarc_fit_param_shown(p, r->upper[k]));
+        cJSON_AddBoolToObject(e, "at_limit", (r->at_limit >> k) & 1u);
         cJSON_AddItemToArray(est, e);
     }
     cJSON *corr = cJSON_AddArrayToObject(doc, "correlation");
