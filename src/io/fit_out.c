@@ -50,9 +50,9 @@ size_t dragarc_fit_warnings(const dragarc_fit_result *r, char (*out)[512], size_
     size_t n = 0;
     if ((r->warnings & DRAGARC_FIT_NOT_CONVERGED) && n < max)
         snprintf(out[n++], sizeof *out,
-                 "The fit did not converge in %d iterations: the values are the last iterate, not a minimum. Start "
+                 "The fit did not converge in %d iteration%s: the values are the last iterate, not a minimum. Start "
                  "closer (the scenario's values are the start), estimate fewer parameters, or allow more iterations.",
-                 r->iterations);
+                 r->iterations, r->iterations == 1 ? "" : "s");
     if ((r->warnings & DRAGARC_FIT_AT_LIMIT) && n < max) {
         char names[256] = "";
         size_t len = 0;

@@ -181,6 +181,13 @@ static int check_estimable(const dragarc_scenario *s, dragarc_fit_param p, draga
     const dragarc_drag_model m = s->projectile.drag.model;
     const char *name = PARAMS[p].name;
     switch (p) {
+    case DRAGARC_FIT_CD:
+        if (m == DRAGARC_DRAG_NONE || m == DRAGARC_DRAG_LINEAR || m == DRAGARC_DRAG_QUADRATIC)
+            return dragarc_error_set(err, DRAGARC_EINVAL, "estimate",
+                                     "%s: the drag law is %s, with no C_D to start from: give the scenario a constant "
+                                     "law with a starting value ({\"model\": \"constant\", \"cd\": 0.5})",
+                                     name, dragarc_drag_model_name(m));
+        break;
     case DRAGARC_FIT_CD_SCALE:
         if (m == DRAGARC_DRAG_NONE)
             return dragarc_error_set(err, DRAGARC_EINVAL, "estimate",
@@ -226,7 +233,11 @@ int dragarc_fit_apply(dragarc_scenario *s, const dragarc_fit_param *param, const
             pr->drag.model = DRAGARC_DRAG_CONSTANT;
             pr->drag.cd = v;
             break;
-        case DRAGARC_FIT_CD_SCALE: pr->drag.scale = v; break;
+        case DRAGARC_FIT_CD_SCALE:
+            if (!(v > 0.0)) /* a scale of 0 would read as 1 */
+                return dragarc_error_set(err, DRAGARC_EINVAL, "cd_scale", "must be positive (got %g)", v);
+            pr->drag.scale = v;
+            break;
         case DRAGARC_FIT_BC: {
             double cd0 = nominal_cd_unscaled(&pr->drag);
             if (!(v > 0.0 && cd0 > 0.0))

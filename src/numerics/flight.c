@@ -1244,9 +1244,10 @@ static int run(const dragarc_scenario *s, double dt, const double *times, size_t
     c.t_limit = s->solver.max_time;
     if (track) {
         c.plane = -TRACK_DEPTH;
-        /* just past the last time, so that the last step holds it */
+        /* just past the last time, so that the last step holds it: the track, not solver.max_time, says how long
+         * the flight lasts */
         if (ntimes > 0)
-            c.t_limit = fmin(c.t_limit, times[ntimes - 1] + 1e-9 * (1.0 + times[ntimes - 1]));
+            c.t_limit = times[ntimes - 1] + 1e-9 * (1.0 + times[ntimes - 1]);
     }
     dragarc_forces_init(&c.forces, &s->projectile, &s->atmosphere, &s->wind, s->gravity, s->ground_elevation);
     if (s->projectile.evaporation.enabled) {
@@ -1320,7 +1321,7 @@ static int run(const dragarc_scenario *s, double dt, const double *times, size_t
     if (rc != DRAGARC_OK)
         return rc;
     if (track)
-        return dragarc_error_set(err, DRAGARC_ERANGE, "track",
+        return dragarc_error_set(err, DRAGARC_EINVAL, "track",
                                  "the flight ends (%s) at t = %.6g s, before the track's last point at %.6g s",
                                  out->evaporated ? "the drop evaporates" : "it lands", t, times[ntimes - 1]);
     if (c.forces.spherical) {

@@ -493,6 +493,11 @@ TEST(wind_found_from_the_other_side)
     CHECK_REL(value_of(&r, DRAGARC_FIT_WIND_SPEED, NULL), 2.5, 1e-6);
     CHECK_ABS(value_of(&r, DRAGARC_FIT_WIND_FROM, NULL), 240.0 * DEG, 1e-6);
     dragarc_fit_result_clear(&r);
+    /* the track, not solver.max_time, says how long the fitted flights last */
+    f.start.solver.max_time = 0.5;
+    CHECK(fit(&f.start, &f.tr, "wind.speed,wind.from", DRAGARC_FIT_ACCEL_AUTO, &r, 0) == DRAGARC_OK);
+    CHECK_REL(value_of(&r, DRAGARC_FIT_WIND_SPEED, NULL), 2.5, 1e-6);
+    dragarc_fit_result_clear(&r);
     fixture_clear(&f);
 }
 
@@ -629,6 +634,9 @@ TEST(estimates_the_fit_cannot_use_are_refused)
     ns.projectile.drag.model = DRAGARC_DRAG_QUADRATIC, ns.projectile.drag.c = 1e-3;
     o.estimate = 1u << DRAGARC_FIT_BC;
     CHECK_ERROR(dragarc_fit_run(&ns, &tr, &o, &r, NULL, &e), DRAGARC_EINVAL, e, "estimate", "written with C_D");
+    dragarc_fit_result_clear(&r);
+    o.estimate = 1u << DRAGARC_FIT_CD;
+    CHECK_ERROR(dragarc_fit_run(&ns, &tr, &o, &r, NULL, &e), DRAGARC_EINVAL, e, "estimate", "no C_D to start from");
     dragarc_fit_result_clear(&r);
     /* cd_scale with no drag */
     ns.projectile.drag.model = DRAGARC_DRAG_NONE;
