@@ -1,5 +1,6 @@
-/* cmd_demo.c: `dragarc demo`: built-in scenarios of our own invention, one for each kind of user, and one
- * ball driven at two invented venues, flown and explained. The numbers are illustrative, not measurements of any real product.
+/* cmd_demo.c: `dragarc demo`: built-in scenarios of our own invention, one for each kind of user, one ball driven
+ * at two invented venues, and a fit to an invented track, flown and explained. The numbers are illustrative, not
+ * measurements of any real product.
  * SPDX-License-Identifier: GPL-3.0-or-later
  */
 #include <errno.h>
