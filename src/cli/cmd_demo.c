@@ -1,5 +1,6 @@
-/* cmd_demo.c: `dragarc demo`: built-in scenarios of our own invention, one for each kind of user, and one
- * ball driven at two invented venues, flown and explained. The numbers are illustrative, not measurements of any real product.
+/* cmd_demo.c: `dragarc demo`: built-in scenarios of our own invention, one for each kind of user, one ball driven
+ * at two invented venues, and a fit to an invented track, flown and explained. The numbers are illustrative, not
+ * measurements of any real product.
  * SPDX-License-Identifier: GPL-3.0-or-later
  */
 #include <errno.h>
@@ -13,19 +14,22 @@
 #include "dragarc/aim.h"
 #include "dragarc/cautions.h"
 #include "dragarc/drift.h"
+#include "dragarc/fit.h"
 #include "dragarc/footprint.h"
 #include "dragarc/sprinkler.h"
 #include "dragarc/output.h"
 #include "dragarc/plot.h"
 #include "dragarc/report.h"
 #include "dragarc/sweep.h"
+#include "demo_examples.h" /* DEMO_LAUNCHER_BALL_JSON and _TRACK: docs/examples' files, built in (CMakeLists.txt) */
 
 static const char HELP[] =
     "usage: dragarc demo [--out FOLDER | --no-files]\n"
     "\n"
     "Fly built-in example scenarios (a practice ball in a breeze, a sprinkler droplet, a fragment shed at\n"
-    "3 km, one spinning ball driven at two venues, a garden sprinkler, a boom sprayer and a rocket's debris)\n"
-    "and explain what each shows. Their pictures (SVG) and two HTML reports go into a folder: dragarc-demo\n"
+    "3 km, one spinning ball driven at two venues, a garden sprinkler, a boom sprayer, a rocket's debris,\n"
+    "and a launcher ball's drag and lift fitted to its tracked flight) and explain what each shows.\n"
+    "Their pictures (SVG) and two HTML reports go into a folder: dragarc-demo\n"
     "in the current folder unless --out names another (made if missing; files of the same names in it\n"
     "are replaced, each written whole or not at all). No file is read.\n"
     "\n"
@@ -311,6 +315,75 @@ static int demo_footprint(unsigned *notes, demo_files *o)
     return rc == DRAGARC_OK ? EXIT_OK : rc;
 }
 
+/* The launcher-ball test of docs/fit.md: drag, lift and launch fitted to a tracked flight. The track was made by
+ * flying the scenario with these values and adding 3 cm of Gaussian noise (docs/fit.md says how). */
+static const char FIT_ESTIMATES[] = "cd,cl,launch.speed,launch.elevation";
+static const double FIT_TRUTH[] = {0.55, 0.18, 30.0, 15.0}; /* in the order above, as shown (degrees) */
+
+static int demo_fit(demo_files *o, const char **cautions, size_t *ncautions)
+{
+    dragarc_scenario s, fitted;
+    dragarc_track track;
+    dragarc_fit_options opt;
+    dragarc_fit_result r;
+    dragarc_error err;
+    memset(&r, 0, sizeof r);
+    dragarc_scenario_default(&fitted);
+    dragarc_fit_options_default(&opt);
+    if (dragarc_scenario_parse((const char *)DEMO_LAUNCHER_BALL_JSON, NULL, cli_profile_path(), &s, &err) != DRAGARC_OK)
+        return cli_report("demo", &err);
+    int rc = dragarc_track_parse((const char *)DEMO_LAUNCHER_BALL_TRACK, &track, &err);
+    if (rc == DRAGARC_OK)
+        rc = dragarc_fit_params_parse(FIT_ESTIMATES, &opt.estimate, &err);
+    if (rc == DRAGARC_OK)
+        rc = dragarc_fit_run(&s, &track, &opt, &r, &fitted, &err);
+    if (rc == DRAGARC_OK) {
+        puts("9. A launcher ball's drag and lift measured from its tracked flight (dragarc fit; docs/fit.md)");
+        printf("  %zu camera positions from %.2f s to %.2f s, standard deviation %.2f m; %s %s\n"
+               "  after %d iterations (%ld flights). Fitted, against the values the track was made with:\n",
+               r.npoints, track.t[0], track.t[track.n - 1], track.pos_sd ? track.pos_sd[0] : NAN,
+               r.accel_used ? "Levenberg-Marquardt with geodesic acceleration" : "Levenberg-Marquardt",
+               r.converged ? "converged" : "did NOT converge", r.iterations, r.flights);
+        printf("    %-24s %9s %10s %10s %10s\n", "estimate", "start", "fitted", "std error", "made with");
+        double worst = 0.0; /* the largest miss of the truth, in standard errors */
+        int kcd = -1, kspeed = -1;
+        for (int k = 0; k < r.np && k < (int)(sizeof FIT_TRUTH / sizeof *FIT_TRUTH); k++) {
+            const int p = r.param[k];
+            const char *u = dragarc_fit_param_unit(p);
+            char name[48];
+            snprintf(name, sizeof name, u[0] ? "%s (%s)" : "%s", dragarc_fit_param_name(r.param[k]), u);
+            const double v = dragarc_fit_param_shown(p, r.value[k]), se = dragarc_fit_param_shown(p, r.se[k]);
+            const int d = dragarc_fit_decimals(se);
+            printf("    %-24s %9.4g %10.*f %10.2g %10g\n", name, dragarc_fit_param_shown(p, r.start[k]), d, v, se,
+                   FIT_TRUTH[k]);
+            worst = fmax(worst, fabs(v - FIT_TRUTH[k]) / se);
+            kcd = p == DRAGARC_FIT_CD ? k : kcd;
+            kspeed = p == DRAGARC_FIT_LAUNCH_SPEED ? k : kspeed;
+        }
+        printf("  residual RMS %.3f m; chi-square %.1f on %zu degrees of freedom (p = %.2f); every estimate\n"
+               "  within %.1f standard errors of the truth; cd and launch.speed correlate at %.2f\n",
+               r.rms_pos[3], r.chisq, r.dof, r.chisq_p, worst, kcd >= 0 && kspeed >= 0 ? r.corr[kcd * r.np + kspeed] : NAN);
+        dragarc_text_wrap(stdout, "  What it shows: ", 4, 100,
+                          "Flying the scenario again and again, the fit moves drag, lift and the launch until the "
+                          "modelled flight passes closest to the camera's points, and says how well the track pins "
+                          "each value. Drag and a faster launch trade against each other (both change how quickly "
+                          "the ball covers ground), so their errors are linked: a shorter track pins them far less "
+                          "well.");
+        putchar('\n');
+        *ncautions = dragarc_cautions_fit(cautions, DRAGARC_CAUTIONS_MAX);
+        char path[4200];
+        if (demo_path(o, "9-launcher-ball-fit.svg", path, sizeof path))
+            rc = demo_wrote(o, "9-launcher-ball-fit.svg", dragarc_fit_plot(path, &fitted, &track, &r, &err), &err);
+    } else {
+        rc = cli_report("demo", &err);
+    }
+    dragarc_fit_result_clear(&r);
+    dragarc_scenario_clear(&fitted);
+    dragarc_track_clear(&track);
+    dragarc_scenario_clear(&s);
+    return rc == DRAGARC_OK ? EXIT_OK : rc;
+}
+
 /* The inverse question for the first case: which launches put the ball on a spot `range` metres out? */
 static int demo_aim(const dragarc_scenario *s, double range, demo_files *o)
 {
@@ -408,6 +481,8 @@ int cmd_demo(int argc, char **argv)
     int status_extra;
     double carry[2] = {0.0, 0.0}, total[2] = {0.0, 0.0};
     unsigned notes = 0;
+    const char *fit_cautions[DRAGARC_CAUTIONS_MAX];
+    size_t nfit = 0;
     dragarc_scenario last;
     int have_last = 0;
     for (size_t k = 0; k < sizeof CASES / sizeof CASES[0]; k++) {
@@ -464,12 +539,17 @@ int cmd_demo(int argc, char **argv)
     }
     if ((status_extra = demo_sprinkler(&notes, &files)) != EXIT_OK ||
         (status_extra = demo_drift(&notes, &files)) != EXIT_OK ||
-        (status_extra = demo_footprint(&notes, &files)) != EXIT_OK) {
+        (status_extra = demo_footprint(&notes, &files)) != EXIT_OK ||
+        (status_extra = demo_fit(&files, fit_cautions, &nfit)) != EXIT_OK) {
         dragarc_scenario_clear(&last);
         return status_extra;
     }
-    /* One list of cautions for the whole demo: the model limits plus whatever any case called for. */
-    dragarc_cautions_print(stdout, notes, 100);
+    /* One list of cautions for the whole demo: the model limits plus whatever any case called for, then the fit's. */
+    const char *cautions[2 * DRAGARC_CAUTIONS_MAX];
+    size_t nc = dragarc_cautions_notes(notes, cautions, DRAGARC_CAUTIONS_MAX);
+    for (size_t i = 0; i < nfit; i++)
+        cautions[nc++] = fit_cautions[i];
+    dragarc_cautions_print_list(stdout, cautions, nc, 100);
     if (files.dir) {
         printf("\nPictures and reports, written into %s/ (open the .html files in a browser):\n", files.dir);
         for (size_t i = 0; i < files.count; i++)

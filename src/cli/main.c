@@ -41,9 +41,9 @@ static const char USAGE[] =
     "  -V, --version         print the version\n"
     "\n"
     "exit status: 0 success, 1 no solution (aim: target out of reach; optimize: no launch lands; fit: the\n"
-    "iterations ran out),\n"
-    "2 bad usage or input, 3 the computation (or a table row) failed; stopped by SIGINT, SIGTERM or SIGHUP:\n"
-    "the run ends by that signal (a shell shows 128 + its number) and leaves no partial file.\n"
+    "iterations ran out), 2 bad usage or input, 3 the computation (or a table row) failed; stopped by\n"
+    "SIGINT, SIGTERM or SIGHUP: the run ends by that signal (a shell shows 128 + its number) and leaves\n"
+    "no partial file.\n"
     "Scenario files, models and sources: see docs/ in the source tree.\n";
 
 static int run(int argc, char **argv);

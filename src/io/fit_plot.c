@@ -87,8 +87,8 @@ int dragarc_fit_plot(const char *path, const dragarc_scenario *fitted, const dra
         dragarc_plot_panel panels[3] = {
             {.title = t1, .xlabel = "downrange along the fitted azimuth (m)", .ylabel = "height above the ground (m)",
              .series = side, .nseries = 2},
-            {.title = t2, .xlabel = "east (m)", .ylabel = "north (m)", .series = plan, .nseries = 2,
-             .north_arrow = 1},
+            /* no north arrow: the axes say east and north, and a flight heading north-east would end under it */
+            {.title = t2, .xlabel = "east (m)", .ylabel = "north (m)", .series = plan, .nseries = 2},
             {.title = t3, .xlabel = "time since launch (s)", .ylabel = "residual (m)", .series = res, .nseries = 3}};
         dragarc_plot_figure fig = {.panels = panels, .npanels = 3};
         rc = dragarc_plot_write(path, &fig, err);

@@ -32,8 +32,15 @@ with tempfile.TemporaryDirectory(prefix="dragarc-demo.") as work:
     folder = os.path.join(work, "dragarc-demo")
     names = sorted(os.listdir(folder)) if os.path.isdir(folder) else []
     listed = sorted(line.strip() for line in out.split(LISTED, 1)[-1].splitlines()[1:] if line.startswith("  "))
-    check("default: the folder holds what the demo lists", names == listed and len(names) == 11,
-          f"{names} against {listed}")
+    expected = sorted(["1-practice-ball.svg", "1-practice-ball-aim.svg", "2-droplet-sizes.svg",
+                       "3-fragment-from-3-km.svg", "4-saltmarsh-links.svg", "5-high-mesa-range.svg",
+                       "report-saltmarsh-links.html", "6-garden-sprinkler.svg", "7-boom-sprayer-drift.svg",
+                       "8-debris-footprint.svg", "report-debris-footprint.html", "9-launcher-ball-fit.svg"])
+    check("default: the folder holds what the demo lists", names == listed == expected,
+          f"{names} against {listed}, expected {expected}")
+    # the fit of the built-in launcher-ball example recovers the values its track was made with
+    check("default: the fit case is there and converged", "9. A launcher ball's drag and lift" in out and
+          "Levenberg-Marquardt converged" in out, out.split("9. ", 1)[-1][:300])
     check("default: nothing else in the current folder", os.listdir(work) == ["dragarc-demo"], str(os.listdir(work)))
     for name in names:
         path = os.path.join(folder, name)
