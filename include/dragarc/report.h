@@ -8,7 +8,7 @@
  * dragarc_report_write_html writes it as one HTML file with its CSS and SVG inline: no scripts, no external
  * references, print rules for A4 and Letter (src/io/report_html.c). Every text is escaped when written.
  *
- * A report kind (one per command: fly, aim, sprinkler, drift) is one function that fills a report from the
+ * A report kind (one per command: fly, aim, sprinkler, drift, footprint, fit) is one function that fills a report from the
  * command's results, such as dragarc_report_fly below (DEVELOPERS.md: "How to add a report kind").
  */
 #ifndef DRAGARC_REPORT_H
@@ -20,6 +20,7 @@
 #include "dragarc/aim.h"
 #include "dragarc/dragarc.h"
 #include "dragarc/drift.h"
+#include "dragarc/fit.h"
 #include "dragarc/flight.h"
 #include "dragarc/footprint.h"
 #include "dragarc/plot.h"
@@ -140,6 +141,18 @@ int dragarc_report_drift(dragarc_report *r, const char *where, const dragarc_dri
  * otherwise errors as dragarc_footprint_plot, DRAGARC_ENOMEM. */
 int dragarc_report_footprint(dragarc_report *r, const char *where, const dragarc_footprint_spec *sp,
                              const dragarc_impact *impacts, const dragarc_footprint_summary *s, dragarc_error *err);
+
+/* The `fit` report of scenario s (read from file `where`) fitted to the track read from track_file with options o
+ * (NULL: the defaults) as res, the fitted scenario `fitted` (dragarc_fit_run): the scenario, the track (points, time
+ * span, weights, velocities) and what is fitted how; the warnings `fit` prints; the estimates (start, value,
+ * standard error, 95 % interval, unit; values to dragarc_fit_decimals of their standard error), the correlations,
+ * chi-square or the residual standard deviation, the residual RMS, the conditioning, residuals along the track; the
+ * figure of dragarc_fit_plot, the fit cautions and the models and method with their sources. SI units, angles in
+ * degrees, as `fit` prints them. DRAGARC_EINVAL when res is not a fit of track; otherwise errors as
+ * dragarc_fit_plot, DRAGARC_ENOMEM. */
+int dragarc_report_fit(dragarc_report *r, const char *where, const char *track_file, const dragarc_scenario *s,
+                       const dragarc_fit_options *o, const dragarc_track *track, const dragarc_fit_result *res,
+                       const dragarc_scenario *fitted, dragarc_error *err);
 
 #ifdef __cplusplus
 }

@@ -10,6 +10,7 @@
 #include "dragarc/aim.h"
 #include "dragarc/dragarc.h"
 #include "dragarc/drift.h"
+#include "dragarc/fit.h"
 #include "dragarc/footprint.h"
 #include "dragarc/population.h"
 #include "dragarc/sprinkler.h"
@@ -151,6 +152,18 @@ int cli_aim_option(const char *cmd, int argc, char **argv, int *i, dragarc_aim_r
  * 1 when the target is out of reach. */
 int cli_aim_load(const char *cmd, const cli_common *c, const dragarc_aim_request *req, int have_range,
                  dragarc_display *d, dragarc_scenario *s, dragarc_aim_result *r);
+
+/* The options of `fit` that say what to fit and how (--estimate, --start, --geodesic, --max-iterations), shared by `fit` and
+ * `report --command fit`. If argv[*i] is one, take it and its value (advancing *i) into *o (the --estimate list,
+ * unparsed, into *estimate) and return 0, or the exit status of the usage error printed; -1 when it is none. */
+int cli_fit_option(const char *cmd, int argc, char **argv, int *i, dragarc_fit_options *o, const char **estimate);
+
+/* Check --estimate (given, every name known) into o->estimate, read the scenario and the track files into *s and
+ * *track, and fit them into *r and *fitted (dragarc_fit_run). EXIT_OK, or the exit status of the error printed
+ * (against the file or option at fault); either way the caller clears *s, *track, *r and *fitted. */
+int cli_fit_load(const char *cmd, const char *scenario_file, const char *track_file, const char *estimate,
+                 dragarc_fit_options *o, dragarc_scenario *s, dragarc_track *track, dragarc_fit_result *r,
+                 dragarc_scenario *fitted);
 
 /* Read the sprinkler (drift) scenario file at path into *spec, cut its spectrum into *classes (allocated; the caller
  * frees it) and run it into *r, with a progress bar unless quiet: shared by `sprinkler` (`drift`) and `report`.

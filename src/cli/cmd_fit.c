@@ -134,6 +134,75 @@ static void print_summary(const char *track_file, const dragarc_scenario *s, con
     dragarc_cautions_print_list(stdout, cautions, nc, 100);
 }
 
+int cli_fit_option(const char *cmd, int argc, char **argv, int *i, dragarc_fit_options *o, const char **estimate)
+{
+    const char *a = argv[*i];
+    if (strcmp(a, "--estimate") == 0) {
+        if (++*i >= argc || !argv[*i][0])
+            return cli_usage_error(cmd, "--estimate needs a comma-separated list of names (cd, launch.speed, ...)");
+        if (*estimate)
+            return cli_usage_error(cmd, "--estimate is given twice: list every name in one, comma-separated");
+        *estimate = argv[*i];
+    } else if (strcmp(a, "--geodesic") == 0) {
+        if (++*i >= argc)
+            return cli_usage_error(cmd, "--geodesic needs auto, on or off");
+        if (strcmp(argv[*i], "auto") == 0)
+            o->accel = DRAGARC_FIT_ACCEL_AUTO;
+        else if (strcmp(argv[*i], "on") == 0)
+            o->accel = DRAGARC_FIT_ACCEL_ON;
+        else if (strcmp(argv[*i], "off") == 0)
+            o->accel = DRAGARC_FIT_ACCEL_OFF;
+        else
+            return cli_usage_error(cmd, "--geodesic needs auto, on or off (got '%s')", argv[*i]);
+    } else if (strcmp(a, "--start") == 0) {
+        if (++*i >= argc || (strcmp(argv[*i], "auto") != 0 && strcmp(argv[*i], "scenario") != 0))
+            return cli_usage_error(cmd, "--start needs auto or scenario");
+        o->scenario_start = strcmp(argv[*i], "scenario") == 0;
+    } else if (strcmp(a, "--max-iterations") == 0) {
+        double n;
+        ++*i;
+        int st = cli_count_argument(cmd, "--max-iterations", *i < argc ? argv[*i] : NULL, 1, 100000, &n);
+        if (st != 0)
+            return st;
+        o->max_iterations = (int)n;
+    } else {
+        return -1;
+    }
+    return 0;
+}
+
+int cli_fit_load(const char *cmd, const char *scenario_file, const char *track_file, const char *estimate,
+                 dragarc_fit_options *o, dragarc_scenario *s, dragarc_track *track, dragarc_fit_result *r,
+                 dragarc_scenario *fitted)
+{
+    dragarc_scenario_default(s);
+    dragarc_scenario_default(fitted);
+    memset(track, 0, sizeof *track);
+    memset(r, 0, sizeof *r);
+    if (!estimate)
+        return cli_usage_error(cmd, "needs --estimate NAME[,NAME...] (cd, cd_scale, bc, cl, wind.speed, "
+                                    "wind.from, launch.speed, launch.elevation, launch.azimuth, launch.height, "
+                                    "position)");
+    dragarc_error err;
+    if (dragarc_fit_params_parse(estimate, &o->estimate, &err) != DRAGARC_OK) {
+        err.field[0] = '\0';
+        return cli_report("--estimate", &err);
+    }
+    if (dragarc_scenario_read(scenario_file, cli_profile_path(), s, &err) != DRAGARC_OK)
+        return cli_report(scenario_file, &err);
+    if (dragarc_track_read(track_file, track, &err) != DRAGARC_OK)
+        return cli_report(track_file, &err);
+    if (dragarc_fit_run(s, track, o, r, fitted, &err) == DRAGARC_OK)
+        return EXIT_OK;
+    /* a track the fit cannot use is the track file's fault; the rest is the scenario's or the estimate's */
+    const char *where = strcmp(err.field, "track") == 0      ? track_file
+                        : strcmp(err.field, "estimate") == 0 ? "--estimate"
+                                                             : scenario_file;
+    if (strcmp(err.field, "track") == 0 || strcmp(err.field, "estimate") == 0)
+        err.field[0] = '\0';
+    return cli_report(where, &err);
+}
+
 int cmd_fit(int argc, char **argv)
 {
     const char *files[2] = {NULL, NULL}, *residuals = NULL, *plot = NULL, *estimate = NULL;
@@ -146,12 +215,9 @@ int cmd_fit(int argc, char **argv)
             return EXIT_OK;
         } else if (strcmp(a, "--json") == 0) {
             json = 1;
-        } else if (strcmp(a, "--estimate") == 0) {
-            if (++i >= argc || !argv[i][0])
-                return cli_usage_error("fit", "--estimate needs a comma-separated list of names (cd, launch.speed, ...)");
-            if (estimate)
-                return cli_usage_error("fit", "--estimate is given twice: list every name in one, comma-separated");
-            estimate = argv[i];
+        } else if ((st = cli_fit_option("fit", argc, argv, &i, &o, &estimate)) >= 0) {
+            if (st != 0)
+                return st;
         } else if (strcmp(a, "--residuals") == 0) {
             if (++i >= argc || !argv[i][0])
                 return cli_usage_error("fit", "--residuals needs a file name");
@@ -161,26 +227,6 @@ int cmd_fit(int argc, char **argv)
         } else if ((st = cli_plot_option("fit", argc, argv, &i, &plot)) >= 0) {
             if (st != 0)
                 return st;
-        } else if (strcmp(a, "--geodesic") == 0) {
-            if (++i >= argc)
-                return cli_usage_error("fit", "--geodesic needs auto, on or off");
-            if (strcmp(argv[i], "auto") == 0)
-                o.accel = DRAGARC_FIT_ACCEL_AUTO;
-            else if (strcmp(argv[i], "on") == 0)
-                o.accel = DRAGARC_FIT_ACCEL_ON;
-            else if (strcmp(argv[i], "off") == 0)
-                o.accel = DRAGARC_FIT_ACCEL_OFF;
-            else
-                return cli_usage_error("fit", "--geodesic needs auto, on or off (got '%s')", argv[i]);
-        } else if (strcmp(a, "--start") == 0) {
-            if (++i >= argc || (strcmp(argv[i], "auto") != 0 && strcmp(argv[i], "scenario") != 0))
-                return cli_usage_error("fit", "--start needs auto or scenario");
-            o.scenario_start = strcmp(argv[i], "scenario") == 0;
-        } else if (strcmp(a, "--max-iterations") == 0) {
-            double n;
-            if ((st = cli_count_argument("fit", "--max-iterations", ++i < argc ? argv[i] : NULL, 1, 100000, &n)) != 0)
-                return st;
-            o.max_iterations = (int)n;
         } else if (a[0] == '-' && a[1] != '\0') {
             return cli_usage_error("fit", "unknown option '%s'", a);
         } else if (!files[0]) {
@@ -197,38 +243,14 @@ int cmd_fit(int argc, char **argv)
         return cli_usage_error("fit", "needs a track file (CSV) after the scenario file");
     if (strcmp(files[0], "-") == 0 && strcmp(files[1], "-") == 0)
         return cli_usage_error("fit", "the scenario and the track cannot both come from standard input");
-    if (!estimate)
-        return cli_usage_error("fit", "needs --estimate NAME[,NAME...] (cd, cd_scale, bc, cl, wind.speed, "
-                                      "wind.from, launch.speed, launch.elevation, launch.azimuth, launch.height, "
-                                      "position)");
     if (plot && residuals && strcmp(plot, residuals) == 0)
         return cli_usage_error("fit", "--plot and --residuals name the same file '%s'", plot);
-    dragarc_error err;
-    if (dragarc_fit_params_parse(estimate, &o.estimate, &err) != DRAGARC_OK) {
-        err.field[0] = '\0';
-        return cli_report("--estimate", &err);
-    }
-    dragarc_scenario s;
-    if (dragarc_scenario_read(files[0], cli_profile_path(), &s, &err) != DRAGARC_OK)
-        return cli_report(files[0], &err);
+    dragarc_scenario s, fitted;
     dragarc_track track;
-    if (dragarc_track_read(files[1], &track, &err) != DRAGARC_OK) {
-        dragarc_scenario_clear(&s);
-        return cli_report(files[1], &err);
-    }
     dragarc_fit_result r;
-    dragarc_scenario fitted;
-    int status = EXIT_OK;
-    int rc = dragarc_fit_run(&s, &track, &o, &r, &fitted, &err);
-    if (rc != DRAGARC_OK) {
-        /* a track the fit cannot use is the track file's fault; the rest is the scenario's or the estimate's */
-        const char *where = strcmp(err.field, "track") == 0 ? files[1]
-                            : strcmp(err.field, "estimate") == 0 ? "--estimate" : files[0];
-        if (strcmp(err.field, "track") == 0 || strcmp(err.field, "estimate") == 0)
-            err.field[0] = '\0';
-        status = cli_report(where, &err);
+    int status = cli_fit_load("fit", files[0], files[1], estimate, &o, &s, &track, &r, &fitted);
+    if (status != EXIT_OK)
         goto done;
-    }
     outputs out = {files[0], files[1], &fitted, &track, &r};
     cli_output_file csv[1] = {{"--residuals", residuals, write_residuals}};
     if ((status = cli_write_outputs(csv, 1, &out, draw_plot, plot)) != EXIT_OK)

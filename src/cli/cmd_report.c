@@ -26,7 +26,8 @@ static const char HELP[] =
     "from a browser (docs/report.md).\n"
     "\n"
     "  -o, --output FILE    the HTML file (.html or .htm), written whole or not at all\n"
-    "  --command KIND       the command to report on: fly (the default), aim, sprinkler, drift or footprint\n"
+    "  --command KIND       the command to report on: fly (the default), aim, sprinkler, drift, footprint\n"
+    "                       or fit\n"
     "  -h, --help           this help\n"
     "\n"
     "fly options:\n"
@@ -46,9 +47,15 @@ static const char HELP[] =
     "footprint options, as for `dragarc footprint`:\n"
     "  --samples N  --seed S  --quiet      (SI units, as `dragarc footprint` prints them)\n"
     "\n"
+    "fit options, as for `dragarc fit` (--track and --estimate are required):\n"
+    "  --track TRACK.csv    the measured track (the file `dragarc fit` takes after the scenario)\n"
+    "  --estimate NAME[,NAME...]  --start auto|scenario  --geodesic auto|on|off  --max-iterations N\n"
+    "                       (SI units, angles in degrees)\n"
+    "\n"
     "The date is the current time in UTC, or SOURCE_DATE_EPOCH (seconds since 1970) when that is set, for\n"
     "reports that come out the same byte for byte. Figures are drawn for a moment in $TMPDIR, else beside FILE.\n"
-    "exit status: 0 success, 2 bad usage or input, 3 the computation failed.\n";
+    "exit status: 0 success, 1 aim: the target is out of reach (no report); fit: the iterations ran out (the\n"
+    "report is written, with the warning), 2 bad usage or input, 3 the computation failed.\n";
 
 typedef struct report_kind report_kind;
 
@@ -59,6 +66,8 @@ typedef struct report_job {
     char **argv;   /* argv[0] is "report" */
     const char *scratch; /* folder for the figures' temporary files */
     time_t date;
+    int *written_status; /* the exit status once the report is written, EXIT_OK unless the kind sets it (fit: 1
+                          * when the iterations ran out) */
 } report_job;
 
 /* Parse the kind's options, compute, and fill a new report into *out (freed by the caller, also on failure).
@@ -70,6 +79,7 @@ static int kind_aim(const report_job *job, dragarc_report **out);
 static int kind_sprinkler(const report_job *job, dragarc_report **out);
 static int kind_drift(const report_job *job, dragarc_report **out);
 static int kind_footprint(const report_job *job, dragarc_report **out);
+static int kind_fit(const report_job *job, dragarc_report **out);
 
 struct report_kind {
     const char *name;
@@ -83,6 +93,7 @@ static const char *const AIM_OPTIONS[] = {"--range", "--height", "--crossrange",
 static const char *const SPRINKLER_OPTIONS[] = {"--quiet", NULL};
 static const char *const DRIFT_OPTIONS[] = {NULL};
 static const char *const FOOTPRINT_OPTIONS[] = {"--samples", "--seed", "--quiet", NULL};
+static const char *const FIT_OPTIONS[] = {"--track", "--estimate", "--start", "--geodesic", "--max-iterations", NULL};
 
 /* The kinds that exist. A kind is added with one line here and one function (DEVELOPERS.md). */
 static const report_kind KINDS[] = {
@@ -91,6 +102,7 @@ static const report_kind KINDS[] = {
     {"sprinkler", kind_sprinkler, SPRINKLER_OPTIONS},
     {"drift", kind_drift, DRIFT_OPTIONS},
     {"footprint", kind_footprint, FOOTPRINT_OPTIONS},
+    {"fit", kind_fit, FIT_OPTIONS},
 };
 #define NKINDS (sizeof KINDS / sizeof KINDS[0])
 
@@ -341,6 +353,55 @@ static int kind_footprint(const report_job *job, dragarc_report **out)
     return st;
 }
 
+/* The fit report: `dragarc fit`'s work with the track given by --track. A fit whose iterations ran out is reported
+ * (its warning first among the results) and the exit status is then 1, as `fit` gives. */
+static int kind_fit(const report_job *job, dragarc_report **out)
+{
+    cli_common c = {0};
+    const char *track_file = NULL, *estimate = NULL;
+    dragarc_fit_options o;
+    dragarc_fit_options_default(&o);
+    int st;
+    for (int i = 1; i < job->argc; i++) {
+        if (strcmp(job->argv[i], "--track") == 0) {
+            if (++i >= job->argc || !*job->argv[i])
+                return cli_usage_error("report", "--track needs the track file (CSV)");
+            if (track_file)
+                return cli_usage_error("report", "only one --track, got '%s' and '%s'", track_file, job->argv[i]);
+            track_file = job->argv[i];
+        } else if ((st = cli_fit_option("report", job->argc, job->argv, &i, &o, &estimate)) > 0) {
+            return st;
+        } else if (st < 0 && (st = other_argument(job, &i, &c)) != 0) {
+            return st;
+        }
+    }
+    if (!c.file || !*c.file)
+        return cli_usage_error("report", "needs a scenario file");
+    if (!track_file)
+        return cli_usage_error("report", "the fit report needs --track TRACK.csv, the measured track");
+    if (strcmp(c.file, "-") == 0 && strcmp(track_file, "-") == 0)
+        return cli_usage_error("report", "the scenario and the track cannot both come from standard input");
+    dragarc_scenario s, fitted;
+    dragarc_track track;
+    dragarc_fit_result r;
+    dragarc_error err;
+    if ((st = cli_fit_load("report", c.file, track_file, estimate, &o, &s, &track, &r, &fitted)) == EXIT_OK) {
+        if (new_report(job, c.file, s.name, out, &err) != DRAGARC_OK ||
+            dragarc_report_fit(*out, c.file, track_file, &s, &o, &track, &r, &fitted, &err) != DRAGARC_OK) {
+            st = fill_failed(&err);
+        } else {
+            dragarc_report_set_date(*out, job->date);
+            if (!r.converged)
+                *job->written_status = EXIT_NO_SOLUTION;
+        }
+    }
+    dragarc_scenario_clear(&fitted);
+    dragarc_fit_result_clear(&r);
+    dragarc_track_clear(&track);
+    dragarc_scenario_clear(&s);
+    return st;
+}
+
 /* SOURCE_DATE_EPOCH when set (a whole number of seconds), else now. 0, or the exit status of the error printed. */
 static int report_date(time_t *when)
 {
@@ -408,7 +469,8 @@ int cmd_report(int argc, char **argv)
         st = cli_usage_error("report", "needs the output file: -o FILE.html");
     if (st < 0 && !html_name(output))
         st = cli_usage_error("report", "-o '%s': the report is HTML, name it FILE.html", output);
-    report_job job = {.kind = kind, .argc = nrest, .argv = rest};
+    int written_status = EXIT_OK;
+    report_job job = {.kind = kind, .argc = nrest, .argv = rest, .written_status = &written_status};
     if (st < 0 && report_date(&job.date) != 0)
         st = EXIT_BAD_INPUT;
     if (st >= 0) {
@@ -435,6 +497,8 @@ int cmd_report(int argc, char **argv)
         err.field[0] = '\0';
         st = cli_report("-o", &err);
     }
+    if (st == EXIT_OK)
+        st = written_status;
     dragarc_report_free(r);
     free(rest);
     return st;

@@ -1,10 +1,11 @@
 /* test_report.c: the HTML report writer: text escaped, figures' ids prefixed so that several share a page, SVG
  * that could reach outside the page refused, files written whole or not at all; each kind (fly, aim, sprinkler,
- * drift) holds its tables and its figure, and exactly the cautions its command prints.
+ * drift, footprint, fit) holds its tables and its figure, and exactly the cautions its command prints.
  * SPDX-License-Identifier: GPL-3.0-or-later
  */
 #define _POSIX_C_SOURCE 200809L
 #include <dirent.h>
+#include <math.h>
 #include <signal.h>
 #include <stdio.h>
 #include <stdlib.h>
@@ -456,6 +457,261 @@ TEST(the_footprint_report_holds_the_classes_summary_criteria_maps_and_cautions)
     dragarc_footprint_spec_clear(&sp);
 }
 
+/* Every warning `fit` prints for r is a paragraph "Warning: ..." of the page, and there are no others. */
+static int fit_warnings_exactly(const char *html, const dragarc_fit_result *r)
+{
+    char warn[8][512], want[1200];
+    size_t nw = dragarc_fit_warnings(r, warn, 8);
+    for (size_t i = 0; i < nw; i++) {
+        strcpy(want, "<p>Warning: "); /* the tags as they are, the text escaped */
+        escaped(want + strlen(want), sizeof want - strlen(want) - 8, warn[i]);
+        strcat(want, "</p>");
+        if (!strstr(html, want))
+            return 0;
+    }
+    return count(html, "<p>Warning: ") == (int)nw;
+}
+
+/* The row of the estimates table for estimate k of r: name, unit, start, value, standard error, 95 % interval, each
+ * as `fit` quotes it (the value to the decimals its standard error supports, dragarc_fit_decimals). */
+static void estimate_row(char *out, size_t n, const dragarc_fit_result *r, int k)
+{
+    const int p = r->param[k];
+    const double se = dragarc_fit_param_shown(p, r->se[k]);
+    const int d = dragarc_fit_decimals(se);
+    snprintf(out, n,
+             "<tr><td>%s</td><td>%s</td><td class=\"num\">%.*f</td><td class=\"num\">%.*f</td><td class=\"num\">%.2g"
+             "</td><td class=\"num\">%.*f</td><td class=\"num\">%.*f</td></tr>",
+             dragarc_fit_param_name(r->param[k]), dragarc_fit_param_unit(p), d < 4 ? 4 : d,
+             dragarc_fit_param_shown(p, r->start[k]), d, dragarc_fit_param_shown(p, r->value[k]), se, d,
+             dragarc_fit_param_shown(p, r->lower[k]), d, dragarc_fit_param_shown(p, r->upper[k]));
+}
+
+/* A fit and what it was made from: the launcher example (docs/examples), its track, the result and the fitted
+ * scenario. */
+typedef struct fit_case {
+    dragarc_scenario s, fitted;
+    dragarc_track track;
+    dragarc_fit_result res;
+    dragarc_fit_options o;
+} fit_case;
+
+/* The example's scenario and track, options at their defaults estimating `estimate`; 1 when read. */
+static int fit_case_read(fit_case *c, const char *estimate)
+{
+    dragarc_error e;
+    memset(c, 0, sizeof *c);
+    dragarc_fit_options_default(&c->o);
+    return dragarc_fit_params_parse(estimate, &c->o.estimate, &e) == DRAGARC_OK &&
+           dragarc_scenario_read(EXAMPLES_DIR "/launcher-ball.json", "", &c->s, &e) == DRAGARC_OK &&
+           dragarc_track_read(EXAMPLES_DIR "/launcher-ball-track.csv", &c->track, &e) == DRAGARC_OK;
+}
+
+static void fit_case_clear(fit_case *c)
+{
+    dragarc_fit_result_clear(&c->res);
+    dragarc_scenario_clear(&c->fitted);
+    dragarc_track_clear(&c->track);
+    dragarc_scenario_clear(&c->s);
+}
+
+/* The fit report of c (options o, NULL: the defaults), written as `name`: its text (caller frees), NULL on failure.
+ * The figure's scratch files are gone afterwards. */
+static char *fit_report(const fit_case *c, const dragarc_fit_options *o, const char *track_file, const char *name)
+{
+    dragarc_report *r;
+    dragarc_error e;
+    char *html = NULL;
+    if (dragarc_report_new(&r, c->s.name, "fit", &e) != DRAGARC_OK)
+        return NULL;
+    dragarc_report_set_date(r, 86400);
+    if (dragarc_report_set_scratch_dir(r, dir, &e) == DRAGARC_OK &&
+        dragarc_report_fit(r, "launcher-ball.json", track_file, &c->s, o, &c->track, &c->res, &c->fitted, &e) ==
+            DRAGARC_OK)
+        html = written(r, name);
+    dragarc_report_free(r);
+    CHECK(entries(dir) == 0);
+    return html;
+}
+
+/* The fit report of the invented launcher example (a track with standard deviations, four estimates): the numbers
+ * are dragarc_fit_run's own for the same inputs, formatted as `fit` prints them, not fixed values. */
+TEST(the_fit_report_holds_the_track_estimates_correlations_figure_and_cautions)
+{
+    fit_case c;
+    dragarc_error e;
+    CHECK(fit_case_read(&c, "cd,cl,launch.speed,launch.elevation"));
+    CHECK(dragarc_fit_run(&c.s, &c.track, &c.o, &c.res, &c.fitted, &e) == DRAGARC_OK);
+    const dragarc_fit_result *res = &c.res;
+    const dragarc_track *track = &c.track;
+    CHECK(res->converged && res->np == 4 && res->weighted);
+    /* a result that is not a fit of this track is refused */
+    dragarc_report *r;
+    CHECK(dragarc_report_new(&r, c.s.name, "fit", &e) == DRAGARC_OK);
+    dragarc_fit_result other = c.res;
+    other.npoints = track->n - 1;
+    CHECK_ERROR(dragarc_report_fit(r, "x.json", "t.csv", &c.s, &c.o, track, &other, &c.fitted, &e), DRAGARC_EINVAL, e,
+                "", "a fit of this track");
+    dragarc_report_free(r);
+    char *html = fit_report(&c, &c.o, "launcher-ball-track.csv", "fit.html");
+    CHECK(html != NULL);
+    if (html) {
+        char want[1024];
+        CHECK(strstr(html, "<h1>launcher ball test</h1>") != NULL);
+        CHECK(strstr(html, "track file launcher-ball-track.csv") != NULL);
+        snprintf(want, sizeof want, "points</th><td>%zu, from t = %.4g s to %.4g s after launch</td>", track->n,
+                 track->t[0], track->t[track->n - 1]);
+        CHECK(strstr(html, want) != NULL);
+        CHECK(strstr(html, "weights</th><td>the track&#39;s standard deviations: positions 0.03 m</td>") != NULL);
+        CHECK(strstr(html, "measured</th><td>positions (east, north, up)</td>") != NULL);
+        for (int k = 0; k < res->np; k++) {
+            estimate_row(want, sizeof want, res, k);
+            CHECK(strstr(html, want) != NULL);
+        }
+        CHECK(strstr(html, "<td>launch.elevation</td><td>deg</td>") != NULL);
+        /* the correlation of the two most correlated estimates, in the lower half of the matrix */
+        int a = res->worst_pair[0], b = res->worst_pair[1], hi = a > b ? a : b;
+        CHECK(fabs(res->worst_corr) > 0.5 && fabs(res->corr[hi * res->np + (a + b - hi)] - res->worst_corr) < 1e-15);
+        char row[512];
+        snprintf(row, sizeof row, "<tr><td>%s</td>", dragarc_fit_param_name(res->param[hi]));
+        for (int j = 0; j < res->np; j++) {
+            char cell[64] = "<td class=\"num\"></td>";
+            if (j <= hi)
+                snprintf(cell, sizeof cell, "<td class=\"num\">%.3f</td>", res->corr[hi * res->np + j]);
+            strcat(row, cell);
+        }
+        CHECK(strstr(html, row) != NULL);
+        snprintf(want, sizeof want, "chi-square</th><td>%.4g on %zu degrees of freedom (p = %.3g)", res->chisq,
+                 res->dof, res->chisq_p);
+        CHECK(strstr(html, want) != NULL);
+        snprintf(want, sizeof want, "residual RMS, positions</th><td>%.4g m (east %.4g, north %.4g, up %.4g)</td>",
+                 res->rms_pos[3], res->rms_pos[0], res->rms_pos[1], res->rms_pos[2]);
+        CHECK(strstr(html, want) != NULL);
+        snprintf(want, sizeof want, "reciprocal condition number %.3g of the scaled Jacobian", res->rcond);
+        CHECK(strstr(html, want) != NULL);
+        snprintf(want, sizeof want, "outcome</th><td>converged after %d iterations, %ld flights</td>", res->iterations,
+                 res->flights);
+        CHECK(strstr(html, want) != NULL);
+        /* the last row along the track: the last point and its residuals */
+        const size_t n = track->n - 1;
+        snprintf(want, sizeof want, "<td class=\"num\">%.3f</td><td class=\"num\">%.3f</td>", track->t[n],
+                 track->pos[3 * n]);
+        CHECK(strstr(html, want) != NULL);
+        CHECK(res->warnings == 0 && fit_warnings_exactly(html, res) && strstr(html, "<p>No warnings: the fit "));
+        CHECK(count(html, "<table class=\"data\">") == 3 && count(html, "<table class=\"pairs\">") == 4);
+        CHECK(count(html, "<figure>") == 1 && count(html, "<svg ") == 1 && strstr(html, "id=\"f1-") != NULL);
+        CHECK(strstr(html, "Mor\xc3\xa9, J. J. (1978)") != NULL && strstr(html, "Transtrum, M. K. &amp; Sethna") != NULL &&
+              strstr(html, "Seber, G. A. F. &amp; Wild, C. J. (1989)") != NULL);
+        CHECK(strstr(html, "not needed in this fit") != NULL); /* auto, and plain steps sufficed */
+        CHECK(strstr(html, "U.S. Standard Atmosphere 1976") != NULL);
+        CHECK(strstr(html, "on 1970-01-02 00:00 UTC") != NULL);
+        const char *cautions[DRAGARC_CAUTIONS_MAX];
+        size_t nc = dragarc_cautions_fit(cautions, DRAGARC_CAUTIONS_MAX);
+        CHECK(nc == 3 && cautions_exactly(html, cautions, nc));
+    }
+    free(html);
+    fit_case_clear(&c);
+}
+
+/* A track of positions and velocities flown from the example itself at 30 m/s, each value moved by a fixed pattern of
+ * about its standard deviation; one estimate (launch.speed): the velocity rows, one estimate's paragraph for the
+ * correlations, and the warnings, if any, exactly as `fit` words them. */
+TEST(the_fit_report_of_a_track_with_velocities_shows_their_weights_and_residuals)
+{
+    fit_case c;
+    dragarc_error e;
+    CHECK(fit_case_read(&c, "launch.speed"));
+    dragarc_track_clear(&c.track);
+    c.s.launch.speed = 30.0;
+    enum { N = 30 };
+    double times[N];
+    for (int i = 0; i < N; i++)
+        times[i] = 0.05 * (i + 1);
+    dragarc_flight f;
+    CHECK(dragarc_flight_run_at(&c.s, times, N, &f, &e) == DRAGARC_OK);
+    char *csv = malloc(N * 200 + 100);
+    CHECK(csv != NULL);
+    if (!csv)
+        return;
+    size_t len = (size_t)sprintf(csv, "t,x,y,z,vx,vy,vz,sd,sd_v\n");
+    for (size_t k = 1, i = 0; k < f.npoints && i < N; k++) {
+        const dragarc_flight_point *q = &f.points[k];
+        if (fabs(q->t - times[i]) > 1e-12)
+            continue;
+        const double m = sin(7.0 * (double)i); /* a fixed pattern in [-1, 1] */
+        len += (size_t)sprintf(csv + len, "%.6f,%.6f,%.6f,%.6f,%.6f,%.6f,%.6f,0.02,0.1\n", q->t, q->pos[0] + 0.02 * m,
+                               q->pos[1] - 0.02 * m, q->pos[2] + 0.02 * m, q->vel[0] - 0.1 * m, q->vel[1] + 0.1 * m,
+                               q->vel[2] - 0.1 * m);
+        i++;
+    }
+    dragarc_flight_clear(&f);
+    CHECK(dragarc_track_parse(csv, &c.track, &e) == DRAGARC_OK && c.track.n == N && c.track.vel != NULL);
+    free(csv);
+    c.s.launch.speed = 28.0; /* the start */
+    CHECK(dragarc_fit_run(&c.s, &c.track, &c.o, &c.res, &c.fitted, &e) == DRAGARC_OK);
+    CHECK(c.res.np == 1 && c.res.nresiduals == 6 * N && fabs(c.res.value[0] - 30.0) < 0.1);
+    char *html = fit_report(&c, NULL, "memory.csv", "fit-velocities.html");
+    CHECK(html != NULL);
+    if (html) {
+        char want[512];
+        CHECK(strstr(html, "measured</th><td>positions and velocities (east, north, up)</td>") != NULL);
+        CHECK(strstr(html, "velocity weights</th><td>standard deviations 0.1 m/s</td>") != NULL);
+        snprintf(want, sizeof want, "residuals</th><td>%d (6 a point), %d degrees of freedom</td>", 6 * N, 6 * N - 1);
+        CHECK(strstr(html, want) != NULL);
+        snprintf(want, sizeof want, "residual RMS, velocities</th><td>%.4g m/s (east %.4g, north %.4g, up %.4g)</td>",
+                 c.res.rms_vel[3], c.res.rms_vel[0], c.res.rms_vel[1], c.res.rms_vel[2]);
+        CHECK(strstr(html, want) != NULL);
+        estimate_row(want, sizeof want, &c.res, 0);
+        CHECK(strstr(html, want) != NULL && strstr(html, "<td>launch.speed</td><td>m/s</td>") != NULL);
+        CHECK(strstr(html, "<p>One estimate: no correlations.</p>") != NULL);
+        CHECK(strstr(html, "weakest combination") == NULL && strstr(html, "most correlated") == NULL);
+        CHECK(fit_warnings_exactly(html, &c.res));
+        CHECK(count(html, "<table class=\"data\">") == 2); /* the estimates and the track's points */
+        const char *cautions[DRAGARC_CAUTIONS_MAX];
+        CHECK(cautions_exactly(html, cautions, dragarc_cautions_fit(cautions, DRAGARC_CAUTIONS_MAX)));
+    }
+    free(html);
+    fit_case_clear(&c);
+}
+
+/* The example's positions without their standard deviations (an unweighted fit) and one iteration allowed: the
+ * residual standard deviation instead of chi-square, and the warning that the fit did not converge, first. */
+TEST(the_fit_report_of_an_unweighted_fit_that_ran_out_of_iterations_says_so_first)
+{
+    fit_case c;
+    dragarc_error e;
+    CHECK(fit_case_read(&c, "cd,cl,launch.speed,launch.elevation"));
+    free(c.track.pos_sd);
+    c.track.pos_sd = NULL;
+    c.o.max_iterations = 1;
+    c.o.accel = DRAGARC_FIT_ACCEL_OFF;
+    CHECK(dragarc_fit_run(&c.s, &c.track, &c.o, &c.res, &c.fitted, &e) == DRAGARC_OK);
+    CHECK(!c.res.converged && !c.res.weighted && (c.res.warnings & DRAGARC_FIT_NOT_CONVERGED));
+    char *html = fit_report(&c, &c.o, "t.csv", "fit-unweighted.html");
+    CHECK(html != NULL);
+    if (html) {
+        char want[512];
+        CHECK(fit_warnings_exactly(html, &c.res) && strstr(html, "<p>No warnings") == NULL);
+        /* the first warning comes before the estimates */
+        const char *w = strstr(html, "<p>Warning: The fit did not converge in 1 iteration:");
+        CHECK(w != NULL && w < strstr(html, "<td>cd</td>"));
+        snprintf(want, sizeof want, "residual standard deviation</th><td>%.4g m on %zu degrees of freedom",
+                 c.res.sigma, c.res.dof);
+        CHECK(strstr(html, want) != NULL && strstr(html, "chi-square</th>") == NULL);
+        CHECK(strstr(html, "weights</th><td>none given: an unweighted fit") != NULL);
+        CHECK(strstr(html, "geodesic acceleration</th><td>off: plain Levenberg-Marquardt only</td>") != NULL);
+        CHECK(strstr(html, "iterations</th><td>at most 1 per attempt</td>") != NULL);
+        CHECK(strstr(html, "outcome</th><td>NOT converged") != NULL);
+        CHECK(strstr(html, "from Student&#39;s t") != NULL);
+        for (int k = 0; k < c.res.np; k++) {
+            estimate_row(want, sizeof want, &c.res, k);
+            CHECK(strstr(html, want) != NULL);
+        }
+    }
+    free(html);
+    fit_case_clear(&c);
+}
+
 int main(void)
 {
     dragarc_init();
@@ -474,6 +730,9 @@ int main(void)
     RUN(the_sprinkler_report_holds_the_throw_profile_layout_figure_and_cautions);
     RUN(the_drift_report_holds_the_deposit_distances_spectrum_figure_and_cautions);
     RUN(the_footprint_report_holds_the_classes_summary_criteria_maps_and_cautions);
+    RUN(the_fit_report_holds_the_track_estimates_correlations_figure_and_cautions);
+    RUN(the_fit_report_of_a_track_with_velocities_shows_their_weights_and_residuals);
+    RUN(the_fit_report_of_an_unweighted_fit_that_ran_out_of_iterations_says_so_first);
     rmdir(dir);
     return check_summary();
 }
