@@ -146,11 +146,11 @@ typedef struct dragarc_fit_result {
  * below the scenario's ground as far as the track needs, have no bounces, and are integrated with tolerances at
  * least as tight as rtol 1e-10, atol 1e-9. fitted (NULL: not wanted) receives a copy of s with the estimates in
  * it (caller clears). *r is filled (caller frees with dragarc_fit_result_clear, also after failure).
- * Errors: DRAGARC_EINVAL for a track or estimate the fit cannot use (too few points, an estimate without effect or
- * without a starting value, the starting flight ending before the track does), with the field ("track",
- * "estimate", a scenario path); the
- * scenario's own errors from flying it at the start; DRAGARC_ESOLVER when GSL's solver fails. A fit that ends
- * without meeting a tolerance is returned with DRAGARC_FIT_NOT_CONVERGED, not an error. */
+ * Errors: DRAGARC_EINVAL for a track or estimate the fit cannot use (too few points, residuals at the start too
+ * large to square, an estimate without effect or without a starting value, the starting flight ending before the
+ * track does), with the field ("track", "estimate", a scenario path); the scenario's own errors from flying it at
+ * the start; DRAGARC_ESOLVER when GSL's solver fails. A fit that ends without meeting a tolerance is returned with
+ * DRAGARC_FIT_NOT_CONVERGED, not an error. */
 int dragarc_fit_run(const dragarc_scenario *s, const dragarc_track *track, const dragarc_fit_options *o,
                     dragarc_fit_result *r, dragarc_scenario *fitted, dragarc_error *err);
 

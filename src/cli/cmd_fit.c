@@ -241,8 +241,6 @@ int cmd_fit(int argc, char **argv)
         return cli_usage_error("fit", "needs a scenario file and a track file (CSV)");
     if (!files[1] || !*files[1])
         return cli_usage_error("fit", "needs a track file (CSV) after the scenario file");
-    if (strcmp(files[0], "-") == 0 && strcmp(files[1], "-") == 0)
-        return cli_usage_error("fit", "the scenario and the track cannot both come from standard input");
     if (plot && residuals && strcmp(plot, residuals) == 0)
         return cli_usage_error("fit", "--plot and --residuals name the same file '%s'", plot);
     dragarc_scenario s, fitted;

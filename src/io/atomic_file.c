@@ -106,6 +106,11 @@ int dragarc_output_open(dragarc_output *o, const char *path, dragarc_error *err)
     }
     if (strlen(path) + 16 >= sizeof o->tmp_path)
         return dragarc_error_set(err, DRAGARC_EIO, "", "output path is too long: %s", path);
+    /* a folder fails here, not at the rename: a command writing several files commits them after drawing its plot,
+     * which would otherwise be left in place beside an error */
+    struct stat st;
+    if (stat(path, &st) == 0 && S_ISDIR(st.st_mode))
+        return dragarc_error_set(err, DRAGARC_EIO, "", "cannot write %s: %s", path, strerror(EISDIR));
     snprintf(o->path, sizeof o->path, "%s", path);
     snprintf(o->tmp_path, sizeof o->tmp_path, "%s.tmp-XXXXXX", path);
     /* tracked before the file exists, so that a signal arriving just after mkstemp made it still removes it (before

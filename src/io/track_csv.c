@@ -83,9 +83,6 @@ static int grow(reading *r, const int *where, dragarc_error *err)
     dragarc_track *t = r->t;
     if (t->n < r->cap)
         return DRAGARC_OK;
-    if (t->n >= DRAGARC_TRACK_MAX_POINTS)
-        return dragarc_error_set(err, DRAGARC_EINVAL, "", "more than %d points: thin the track first",
-                                 DRAGARC_TRACK_MAX_POINTS);
     size_t m = r->cap ? 2 * r->cap : 64;
     int has_vel = where[COL_VX] >= 0, has_sd = where[COL_SD] >= 0 || where[COL_SD_X] >= 0;
     struct {
@@ -122,11 +119,17 @@ static int read_row(char **field, const int *where, size_t line, void *ctx, drag
 {
     reading *r = ctx;
     dragarc_track *t = r->t;
+    char at[48];
+    /* checked on every row, not only when the arrays grow (their capacity passes the limit between doublings) */
+    if (t->n >= DRAGARC_TRACK_MAX_POINTS) {
+        snprintf(at, sizeof at, "line %zu", line);
+        return dragarc_error_set(err, DRAGARC_EINVAL, at, "more than %d points: thin the track first",
+                                 DRAGARC_TRACK_MAX_POINTS);
+    }
     int rc = grow(r, where, err);
     if (rc != DRAGARC_OK)
         return rc;
     const size_t i = t->n;
-    char at[48];
     if ((rc = number(field, where, COL_T, line, &t->t[i], err)) != DRAGARC_OK)
         return rc;
     snprintf(at, sizeof at, "line %zu: t", line);

@@ -343,6 +343,33 @@ static int eval_f(fit_ctx *c, const double *x, double *f)
     return 0;
 }
 
+/* DRAGARC_OK when the squared residuals of the flown states sum to a finite number, weighted and in metres; else an
+ * error naming the track. A position or standard deviation far out of scale (x = 1e300 m, sd = 1e-200 m) would
+ * give an infinite chi-square, and standard errors of 0 or infinity printed as a result. */
+static int check_scale(const fit_ctx *c, const double *states, dragarc_error *err)
+{
+    const dragarc_track *t = c->track;
+    double *f = malloc(c->width * t->n * sizeof *f);
+    if (!f)
+        return dragarc_error_set(err, DRAGARC_ENOMEM, "", "out of memory for the residuals");
+    weigh(c, states, f);
+    double sw = 0.0, su = 0.0;
+    for (size_t i = 0; i < c->width * t->n; i++)
+        sw += f[i] * f[i];
+    free(f);
+    for (size_t i = 0; i < t->n; i++)
+        for (int k = 0; k < 3; k++) {
+            const double dp = t->pos[3 * i + k] - states[6 * i + k];
+            const double dv = t->vel ? t->vel[3 * i + k] - states[6 * i + 3 + k] : 0.0;
+            su += dp * dp + dv * dv;
+        }
+    if (isfinite(sw) && isfinite(su))
+        return DRAGARC_OK;
+    return dragarc_error_set(err, DRAGARC_EINVAL, "track",
+                             "the residuals of the starting flight are too large to square: a position, velocity or "
+                             "standard deviation is far out of scale (metres and metres per second)");
+}
+
 static int gsl_f(const gsl_vector *x, void *params, gsl_vector *f)
 {
     fit_ctx *c = params;
@@ -688,6 +715,12 @@ int dragarc_fit_run(const dragarc_scenario *s, const dragarc_track *track, const
                                  "%zu points give %zu residuals, no more than the %d estimates: measure more points",
                                  track->n, r->nresiduals, c.np);
     r->dof = r->nresiduals - (size_t)c.np;
+    /* flown past solver.max_time, a track would fail as "no ground impact", blaming the scenario */
+    if (track->t[track->n - 1] > s->solver.max_time)
+        return dragarc_error_set(err, DRAGARC_EINVAL, "track",
+                                 "the last point is at t = %g s, after the scenario's solver.max_time of %g s: the "
+                                 "times must be seconds since launch (or raise solver.max_time)",
+                                 track->t[track->n - 1], s->solver.max_time);
     for (int k = 0; k < c.np; k++) {
         int rc = check_estimable(s, c.param[k], err);
         if (rc != DRAGARC_OK)
@@ -728,7 +761,8 @@ int dragarc_fit_run(const dragarc_scenario *s, const dragarc_track *track, const
     for (int k = 0; k < c.np; k++)
         gsl_vector_set(x0, (size_t)k, r->start[k]);
     /* the start must fly, and every estimate must move the track */
-    if ((rc = fly(&c, r->start, c.states, err)) != DRAGARC_OK)
+    if ((rc = fly(&c, r->start, c.states, err)) != DRAGARC_OK ||
+        (rc = check_scale(&c, c.states, err)) != DRAGARC_OK)
         goto done;
     if (jacobian(&c, r->start, J0) != GSL_SUCCESS) {
         rc = c.unflyable ? (*err = c.first_err, err->code) :

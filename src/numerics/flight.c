@@ -1244,10 +1244,9 @@ static int run(const dragarc_scenario *s, double dt, const double *times, size_t
     c.t_limit = s->solver.max_time;
     if (track) {
         c.plane = -TRACK_DEPTH;
-        /* just past the last time, so that the last step holds it: the track, not solver.max_time, says how long
-         * the flight lasts */
+        /* just past the last time, so that the last step holds it */
         if (ntimes > 0)
-            c.t_limit = times[ntimes - 1] + 1e-9 * (1.0 + times[ntimes - 1]);
+            c.t_limit = fmin(c.t_limit, times[ntimes - 1] + 1e-9 * (1.0 + times[ntimes - 1]));
     }
     dragarc_forces_init(&c.forces, &s->projectile, &s->atmosphere, &s->wind, s->gravity, s->ground_elevation);
     if (s->projectile.evaporation.enabled) {

@@ -11,8 +11,8 @@
 
 /* The state (position m, velocity m/s) of scenario s's flight at each of the n listed times (s since launch,
  * increasing, >= 0) into states[6 i .. 6 i + 5]. The flight goes on through the ground plane, as if the ground were
- * not there (the wind and air still measure heights from it), to the last time, whatever solver.max_time says; it
- * has no bounces. Errors as dragarc_flight_run, and DRAGARC_EINVAL (field "track") when the flight ends before the
+ * not there (the wind and air still measure heights from it), to the last time (or solver.max_time, if that comes
+ * first: then the flight fails as dragarc_flight_run does without an impact); it has no bounces. Errors as dragarc_flight_run, and DRAGARC_EINVAL (field "track") when the flight ends before the
  * last time (an evaporating drop that vanishes). */
 int dragarc_flight_track(const dragarc_scenario *s, const double *times, size_t n, double *states,
                          dragarc_error *err);

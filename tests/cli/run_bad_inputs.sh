@@ -1,6 +1,7 @@
 #!/usr/bin/env bash
-# run_bad_inputs.sh: run dragarc on every bad scenario (and bad catch-can file) of bad_inputs.tsv and every
-# usage error of bad_usage.tsv, and check how it fails. A file in bad/ ending in .csv is run as
+# run_bad_inputs.sh: run dragarc on every bad scenario (and bad catch-can or track file) of bad_inputs.tsv and every
+# usage error of bad_usage.tsv, and check how it fails. A file in bad/ ending in .track.csv is run as
+# `dragarc fit VALID FILE --estimate cd` (VALID: the valid base scenario), any other ending in .csv as
 # `dragarc uniformity FILE`, any other as `dragarc fly FILE`.
 # SPDX-License-Identifier: GPL-3.0-or-later
 #
@@ -246,6 +247,8 @@ for i in "${!m_first[@]}"; do
         continue
     fi
     case $f in
+    *.track.csv)
+        run_case "$f" "${m_status[i]}" "$(subst "${m_text[i]}")" "dragarc: $path: " fit "$valid" "$path" --estimate cd ;;
     *.csv) run_case "$f" "${m_status[i]}" "$(subst "${m_text[i]}")" "dragarc: uniformity: $path: " uniformity "$path" ;;
     *) run_case "$f" "${m_status[i]}" "$(subst "${m_text[i]}")" "dragarc: $path: " fly "$path" ;;
     esac
