@@ -8,6 +8,7 @@
 #include <string.h>
 
 #include "cli/cli.h"
+#include "cli/cli_mpi.h"
 #include "core/constants.h"
 #include "dragarc/cautions.h"
 #include "dragarc/footprint.h"
@@ -159,40 +160,64 @@ int cli_footprint_load(const char *path, double samples, double seed, int quiet,
     memset(pop, 0, sizeof *pop);
     memset(sum, 0, sizeof *sum);
     *impacts = NULL;
+    int status = EXIT_OK;
     if (dragarc_footprint_spec_read(path, spec, &err) != DRAGARC_OK)
-        return cli_report(path, &err);
+        status = cli_report(path, &err);
+    else
+        status = cli_footprint_fly(path, samples, seed, quiet, spec, pop, impacts, sum);
+    return status;
+}
+
+int cli_footprint_fly(const char *path, double samples, double seed, int quiet, dragarc_footprint_spec *spec,
+                      dragarc_population *pop, dragarc_impact **impacts, dragarc_footprint_summary *sum)
+{
+    dragarc_error err;
     if (samples > 0.0)
         spec->samples = (size_t)samples;
     if (seed >= 0.0)
         spec->seed = (uint64_t)seed;
     int status = EXIT_OK;
     const dragarc_hazard_options *h = &spec->hazard;
+    /* Under MPI each process flies one block of the flights; rank 0 gathers them all and summarises, so it alone
+     * needs the whole run's memory and the population (cli_mpi.h). */
+    const int root = cli_mpi_rank() == 0;
+    const size_t total = spec->nclasses * spec->samples;
+    size_t k0 = 0, k1 = 0;
+    cli_mpi_block(total, &k0, &k1);
     const double need = dragarc_footprint_memory_estimate(spec);
     if (dragarc_footprint_check(spec, &err) != DRAGARC_OK)
         status = cli_report(path, &err);
-    else if ((status = cli_memory_check(path, "footprint.samples", need)) != EXIT_OK)
+    else if ((status = cli_memory_check(path, "footprint.samples",
+                                        root ? need : (double)(k1 - k0) * sizeof **impacts)) != EXIT_OK)
         ; /* reported: nothing is read, allocated or flown */
-    else if (h->population_given &&
+    else if (root && h->population_given &&
              (h->population_file[0] ? dragarc_population_read(h->population_file, pop, &err)
                                     : dragarc_population_uniform(pop, h->density, &err)) != DRAGARC_OK)
         status = cli_report(h->population_file[0] ? NULL : path, &err);
-    else if (h->population_file[0] && dragarc_population_set_background(pop, h->background, &err) != DRAGARC_OK)
+    else if (root && h->population_file[0] && dragarc_population_set_background(pop, h->background, &err) != DRAGARC_OK)
         status = cli_report(path, &err);
-    else if (!(*impacts = malloc(spec->nclasses * spec->samples * sizeof **impacts))) {
-        dragarc_error_set(&err, DRAGARC_ENOMEM, "", "out of memory for %zu flights", spec->nclasses * spec->samples);
+    else if (!(*impacts = malloc((root ? total : k1 - k0 + 1) * sizeof **impacts))) {
+        dragarc_error_set(&err, DRAGARC_ENOMEM, "", "out of memory for %zu flights", root ? total : k1 - k0);
         status = cli_report(path, &err);
     }
-    if (status == EXIT_OK) {
-        cli_progress bar;
-        cli_progress_begin(&bar, "flights", quiet);
-        cli_progress_plan(&bar, need);
-        int rc = dragarc_footprint_run(spec, *impacts, bar.enabled ? cli_progress_tick : NULL, &bar, &err);
-        cli_progress_end(&bar);
-        if (rc != DRAGARC_OK)
-            status = cli_report(path, &err);
-        else if (dragarc_footprint_summarise(spec, *impacts, h->population_given ? pop : NULL, sum, &err) != DRAGARC_OK)
-            status = cli_report(path, &err);
-    }
+    if ((status = cli_mpi_agree(status)) != EXIT_OK)
+        return status;
+    cli_progress bar;
+    cli_progress_begin(&bar, "flights", quiet || !root);
+    cli_progress_plan(&bar, need);
+    cli_progress_share(&bar, total, cli_mpi_size());
+    int rc = dragarc_footprint_run_range(spec, k0, k1, *impacts, bar.enabled ? cli_progress_tick : NULL, &bar, &err);
+    cli_progress_end(&bar);
+    if (rc == DRAGARC_OK && cli_mpi_test_fault())
+        rc = dragarc_error_set(&err, DRAGARC_ESOLVER, "", "a failure made on purpose (DRAGARC_MPI_TEST_FAULT)");
+    if (rc != DRAGARC_OK)
+        status = cli_report(path, &err);
+    /* agreed before gathering: a process that failed never leaves the others waiting for its block */
+    if ((status = cli_mpi_agree(status)) != EXIT_OK ||
+        (status = cli_mpi_gather(*impacts, *impacts, sizeof **impacts, total)) != EXIT_OK)
+        return status;
+    if (root && dragarc_footprint_summarise(spec, *impacts, h->population_given ? pop : NULL, sum, &err) != DRAGARC_OK)
+        status = cli_report(path, &err);
     return status;
 }
 
@@ -239,6 +264,8 @@ int cmd_footprint(int argc, char **argv)
     dragarc_impact *im = NULL;
     dragarc_error err;
     int status = cli_footprint_load(path, samples, seed, quiet, &spec, &pop, &im, &sum);
+    if (cli_mpi_rank() != 0)
+        goto done; /* rank 0 alone has the whole run and writes (cli_mpi.h) */
     /* the plot first: a plot that cannot be drawn (a driver, a folder) then leaves none of the other files */
     if (status == EXIT_OK && plot && dragarc_footprint_plot(plot, &spec, im, &sum, NULL, &err) != DRAGARC_OK)
         status = cli_plot_failed(&err);
@@ -257,6 +284,7 @@ int cmd_footprint(int argc, char **argv)
     else if (status == EXIT_OK) {
         print_summary(&spec, &sum);
     }
+done:
     dragarc_footprint_summary_clear(&sum);
     dragarc_population_clear(&pop);
     free(im);

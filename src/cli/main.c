@@ -8,6 +8,7 @@
 #include <unistd.h>
 
 #include "cli/cli.h"
+#include "cli/cli_mpi.h"
 #include "dragarc/output.h"
 
 static const char USAGE[] =
@@ -44,6 +45,9 @@ static const char USAGE[] =
     "iterations ran out),\n"
     "2 bad usage or input, 3 the computation (or a table row) failed; stopped by SIGINT, SIGTERM or SIGHUP:\n"
     "the run ends by that signal (a shell shows 128 + its number) and leaves no partial file.\n"
+    "Under MPI (a DRAGARC_MPI build, 'mpirun -n P dragarc ...'), footprint and table share their\n"
+    "flights among the processes with the same results; the other commands run on the first process alone\n"
+    "(docs/cluster.md).\n"
     "Scenario files, models and sources: see docs/ in the source tree.\n";
 
 static int run(int argc, char **argv);
@@ -82,14 +86,21 @@ static void catch_stop_signals(void)
 /* A result that did not reach standard output (a full disk, a closed pipe) is a failure, not success. */
 int main(int argc, char **argv)
 {
+    cli_mpi_start(&argc, &argv);
     catch_stop_signals();
     int status = run(argc, argv);
     cli_units_release();
     if (fflush(stdout) != 0 || ferror(stdout)) {
         fputs("dragarc: cannot write to standard output\n", stderr);
-        return EXIT_FAILED;
+        status = EXIT_FAILED;
     }
-    return status;
+    return cli_mpi_finish(status);
+}
+
+/* The commands that share their work among MPI processes (cli_mpi.h); the others run on rank 0 alone. */
+static int distributed(const char *cmd)
+{
+    return strcmp(cmd, "footprint") == 0 || strcmp(cmd, "table") == 0;
 }
 
 static int run(int argc, char **argv)
@@ -108,6 +119,8 @@ static int run(int argc, char **argv)
         printf("dragarc %s\n", dragarc_version());
         return EXIT_OK;
     }
+    if (!distributed(cmd) && cli_mpi_solo())
+        return EXIT_OK; /* not rank 0: it runs the command alone, and this process exits with its status */
     if (strcmp(cmd, "fly") == 0)
         return cmd_fly(argc - 1, argv + 1);
     if (strcmp(cmd, "aim") == 0)
