@@ -147,7 +147,10 @@ int cli_mpi_finish(int status)
     MPI_Finalize();
     if (captured)
         fclose(captured);
-    return status;
+    /* mpirun ends with the status of the first process that exits with one other than 0, and stops the processes
+     * still running then: were every process to exit with the agreed status, the first to exit would stop rank 0
+     * in its last steps. So rank 0 alone carries the status, and mpirun returns it. */
+    return world_rank == 0 ? status : 0;
 }
 
 /* One of `size` bytes as an MPI type, so that counts are items, not bytes (a block of 2^31 bytes is common). */

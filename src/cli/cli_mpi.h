@@ -22,8 +22,9 @@
  * and rank 0 does not (cli_mpi_agree), so a run prints each message once. */
 void cli_mpi_start(int *argc, char ***argv);
 
-/* Agree on the exit status (cli_mpi_agree), end MPI (MPI_Finalize) and return the status every process exits
- * with. */
+/* Agree on the exit status (cli_mpi_agree), end MPI (MPI_Finalize) and return the status to exit with: the agreed
+ * one on rank 0, 0 on the others, so that mpirun exits with the agreed status (it takes the first process that
+ * exits with another status than 0, and stops those still running). */
 int cli_mpi_finish(int status);
 
 /* This process's rank (0 .. size-1) and the number of processes (1 without MPI, or when running solo). */
