@@ -231,6 +231,12 @@ void dragarc_footprint_spec_clear(dragarc_footprint_spec *spec);
 /* A footprint scenario file (docs/footprint.md; src/io/scenario_json.c). */
 int dragarc_footprint_spec_read(const char *path, dragarc_footprint_spec *out, dragarc_error *err);
 int dragarc_footprint_spec_parse(const char *json, dragarc_footprint_spec *out, dragarc_error *err);
+/* dragarc_footprint_spec_read of the file at path changed first by `patch`, a JSON object applied as a JSON Merge
+ * Patch (RFC 7386: members replace the scenario's, objects merge member by member, null removes a member), e.g.
+ * {"breakup": {"altitude": "12 km", "speed": 480}}; NULL changes nothing. File names in the scenario still resolve
+ * against its folder. Errors as dragarc_footprint_spec_read, their fields those of the changed scenario. */
+int dragarc_footprint_spec_read_patched(const char *path, const char *patch, dragarc_footprint_spec *out,
+                                        dragarc_error *err);
 
 #ifdef __cplusplus
 }

@@ -53,6 +53,41 @@ static int write_grid(FILE *fp, const void *ctx, dragarc_error *err)
     return dragarc_footprint_write_grid_csv(fp, c[0], c[1], err);
 }
 
+static int write_json(FILE *fp, const void *ctx, dragarc_error *err)
+{
+    const void *const *c = ctx;
+    char *text = dragarc_footprint_json(c[0], c[1], c[2]);
+    if (!text)
+        return dragarc_error_set(err, DRAGARC_ENOMEM, "", "out of memory writing JSON");
+    int ok = fputs(text, fp) >= 0 && fputc('\n', fp) != EOF;
+    free(text);
+    return ok ? DRAGARC_OK : dragarc_error_set(err, DRAGARC_EIO, "", "write failed");
+}
+
+int cli_footprint_write(const cli_footprint_files *f, int by_path, const dragarc_footprint_spec *spec,
+                        const dragarc_impact *im, const dragarc_footprint_summary *sum)
+{
+    dragarc_error err;
+    int status = EXIT_OK;
+    /* the plot first: a plot that cannot be drawn (a driver, a folder) then leaves none of the other files */
+    if (f->plot && dragarc_footprint_plot(f->plot, spec, im, sum, NULL, &err) != DRAGARC_OK) {
+        if (!by_path)
+            return cli_plot_failed(&err);
+        err.field[0] = '\0';
+        return cli_report(f->plot, &err);
+    }
+    const void *points[2] = {spec, im}, *grid[2] = {spec, sum}, *doc[3] = {spec, im, sum};
+    if (f->points)
+        status = cli_write_output(by_path ? f->points : "--points", f->points, write_points, points);
+    if (status == EXIT_OK && f->grid)
+        status = cli_write_output(by_path ? f->grid : "--grid", f->grid, write_grid, grid);
+    if (status == EXIT_OK && f->geojson && dragarc_footprint_write_geojson(f->geojson, spec, im, sum, &err) != DRAGARC_OK)
+        status = cli_report(by_path ? f->geojson : "--geojson", &err);
+    if (status == EXIT_OK && f->json)
+        status = cli_write_output(f->json, f->json, write_json, doc);
+    return status;
+}
+
 /* v for printing with no decimals: what rounds to zero prints as 0, never -0 */
 static double whole(double v)
 {
@@ -134,12 +169,34 @@ static void print_summary(const dragarc_footprint_spec *sp, const dragarc_footpr
     } else {
         printf("  casualties      not estimated: the scenario gives no hazard.population\n");
     }
+    cli_print_debris_notes();
+}
+
+void cli_print_debris_notes(void)
+{
     size_t nref = 0;
     const dragarc_risk_reference *refs = dragarc_casualty_references(&nref);
     printf("  published criteria, for comparison only (not an approval):\n");
     for (size_t i = 0; i < nref; i++)
         printf("    - %s: %.3g (%s)\n", refs[i].quantity, refs[i].limit, refs[i].source);
     dragarc_cautions_print(stdout, DRAGARC_NOTE_DEBRIS, 100);
+}
+
+int cli_run_option(const char *cmd, int argc, char **argv, int *i, int *json, int *quiet, double *samples,
+                   double *seed)
+{
+    const char *a = argv[*i];
+    if (strcmp(a, "--json") == 0)
+        *json = 1;
+    else if (strcmp(a, "--quiet") == 0)
+        *quiet = 1;
+    else if (strcmp(a, "--samples") == 0)
+        return cli_count_argument(cmd, a, *i + 1 < argc ? argv[++*i] : NULL, 1, DRAGARC_FOOTPRINT_MAX_SAMPLES, samples);
+    else if (strcmp(a, "--seed") == 0)
+        return cli_count_argument(cmd, a, *i + 1 < argc ? argv[++*i] : NULL, 0, 9007199254740992.0, seed);
+    else
+        return -1;
+    return 0;
 }
 
 int cli_count_argument(const char *cmd, const char *opt, const char *text, double lo, double hi, double *out)
@@ -230,16 +287,8 @@ int cmd_footprint(int argc, char **argv)
         const char *a = argv[i];
         if (cli_help_asked(a, HELP))
             return EXIT_OK;
-        if (strcmp(a, "--json") == 0)
-            json = 1;
-        else if (strcmp(a, "--quiet") == 0)
-            quiet = 1;
-        else if (strcmp(a, "--samples") == 0) {
-            if ((st = cli_count_argument("footprint", a, i + 1 < argc ? argv[++i] : NULL, 1, DRAGARC_FOOTPRINT_MAX_SAMPLES,
-                                &samples)) != 0)
-                return st;
-        } else if (strcmp(a, "--seed") == 0) {
-            if ((st = cli_count_argument("footprint", a, i + 1 < argc ? argv[++i] : NULL, 0, 9007199254740992.0, &seed)) != 0)
+        if ((st = cli_run_option("footprint", argc, argv, &i, &json, &quiet, &samples, &seed)) >= 0) {
+            if (st != 0)
                 return st;
         } else if (strcmp(a, "--points") == 0 || strcmp(a, "--geojson") == 0 || strcmp(a, "--grid") == 0) {
             if (++i >= argc)
@@ -262,23 +311,12 @@ int cmd_footprint(int argc, char **argv)
     dragarc_population pop;
     dragarc_footprint_summary sum;
     dragarc_impact *im = NULL;
-    dragarc_error err;
     int status = cli_footprint_load(path, samples, seed, quiet, &spec, &pop, &im, &sum);
     if (cli_mpi_rank() != 0)
         goto done; /* rank 0 alone has the whole run and writes (cli_mpi.h) */
-    /* the plot first: a plot that cannot be drawn (a driver, a folder) then leaves none of the other files */
-    if (status == EXIT_OK && plot && dragarc_footprint_plot(plot, &spec, im, &sum, NULL, &err) != DRAGARC_OK)
-        status = cli_plot_failed(&err);
-    if (status == EXIT_OK && points) {
-        const void *ctx[2] = {&spec, im};
-        status = cli_write_output("--points", points, write_points, ctx);
-    }
-    if (status == EXIT_OK && grid) {
-        const void *ctx[2] = {&spec, &sum};
-        status = cli_write_output("--grid", grid, write_grid, ctx);
-    }
-    if (status == EXIT_OK && geojson && dragarc_footprint_write_geojson(geojson, &spec, im, &sum, &err) != DRAGARC_OK)
-        status = cli_report("--geojson", &err);
+    const cli_footprint_files out = {plot, points, grid, geojson, NULL};
+    if (status == EXIT_OK)
+        status = cli_footprint_write(&out, 0, &spec, im, &sum);
     if (status == EXIT_OK && json)
         status = cli_emit_json(dragarc_footprint_json(&spec, im, &sum), path);
     else if (status == EXIT_OK) {

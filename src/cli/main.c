@@ -33,6 +33,9 @@ static const char USAGE[] =
     "                        expectation; JSON, CSV points, GeoJSON, plot\n"
     "  uniformity CATCH.csv  how evenly a catch-can test was watered: Christiansen's CU, the\n"
     "                        low-quarter DU, CV\n"
+    "  campaign CAMPAIGN.json --out FOLDER\n"
+    "                        many footprint cases (breakups along a trajectory, say): each case's outputs\n"
+    "                        and one combined report\n"
     "  report SCENARIO -o FILE.html [--command KIND]\n"
     "                        one self-contained HTML page: inputs, results, figures, cautions, sources\n"
     "  demo                  fly built-in example scenarios and explain what they show\n"
@@ -45,7 +48,7 @@ static const char USAGE[] =
     "iterations ran out),\n"
     "2 bad usage or input, 3 the computation (or a table row) failed; stopped by SIGINT, SIGTERM or SIGHUP:\n"
     "the run ends by that signal (a shell shows 128 + its number) and leaves no partial file.\n"
-    "Under MPI (a DRAGARC_MPI build, 'mpirun -n P dragarc ...'), footprint and table share their\n"
+    "Under MPI (a DRAGARC_MPI build, 'mpirun -n P dragarc ...'), footprint, table and campaign share their\n"
     "flights among the processes with the same results; the other commands run on the first process alone\n"
     "(docs/cluster.md).\n"
     "Scenario files, models and sources: see docs/ in the source tree.\n";
@@ -100,7 +103,7 @@ int main(int argc, char **argv)
 /* The commands that share their work among MPI processes (cli_mpi.h); the others run on rank 0 alone. */
 static int distributed(const char *cmd)
 {
-    return strcmp(cmd, "footprint") == 0 || strcmp(cmd, "table") == 0;
+    return strcmp(cmd, "footprint") == 0 || strcmp(cmd, "table") == 0 || strcmp(cmd, "campaign") == 0;
 }
 
 static int run(int argc, char **argv)
@@ -145,6 +148,8 @@ static int run(int argc, char **argv)
         return cmd_drift(argc - 1, argv + 1);
     if (strcmp(cmd, "footprint") == 0)
         return cmd_footprint(argc - 1, argv + 1);
+    if (strcmp(cmd, "campaign") == 0)
+        return cmd_campaign(argc - 1, argv + 1);
     fprintf(stderr, "dragarc: unknown command '%s' (see 'dragarc --help')\n", cmd);
     return EXIT_BAD_INPUT;
 }

@@ -1,7 +1,8 @@
 #!/usr/bin/env python3
 # check_mpi.py: the MPI build (DRAGARC_MPI) under `mpirun -n 1`, `-n 2` and `-n 4` (4 oversubscribed on a small
 # machine) writes the same bytes as the ordinary build on one process: footprint (JSON, summary, --points, --grid,
-# --geojson, --plot), footprint with a population file, table (JSON with failed rows, CSV file), a campaign; more
+# --geojson, --plot), footprint with a population file, table (JSON with failed rows, CSV file), a campaign (every
+# file of its folder); more
 # processes than flights or rows; bad input (exit 2, one line on stderr, no file); a failure on one process in the
 # middle of a run (exit 3, one line, no file, no process left waiting); a command that is not distributed.
 # SPDX-License-Identifier: GPL-3.0-or-later
@@ -60,7 +61,11 @@ def main():
         files = {}
         for o in outs:
             p = os.path.join(d, o)
-            files[o] = open(p, "rb").read() if os.path.exists(p) else None
+            if os.path.isdir(p):  # a folder: every file in it, by its path
+                files[o] = {os.path.relpath(os.path.join(w, f), p): open(os.path.join(w, f), "rb").read()
+                            for w, _, fs in os.walk(p) for f in fs}
+            else:
+                files[o] = open(p, "rb").read() if os.path.exists(p) else None
         return r.returncode, r.stdout, r.stderr, files
 
     run.count = 0
@@ -112,22 +117,32 @@ def main():
     # a command that is not shared: rank 0 runs it alone
     same_as_serial("fly on rank 0 alone", ["fly", os.path.join(data, "ball-in-wind.json"), "--json"], ranks=(2,))
 
+    # a campaign: each case's flights shared among the processes, every file of the folder the same
+    ref = same_as_serial("campaign", ["campaign", os.path.join(examples, "campaign-ascent.json"), "--out", "c",
+                                      "--samples", "12", "--quiet"], ("c",))
+    check(isinstance(ref[3]["c"], dict) and len(ref[3]["c"]) == 11, "campaign: 11 files compared",
+          sorted(ref[3]["c"] or {}))
+
     # bad input: every process reads it, rank 0 alone says so, all exit 2, no file
     bad = dict(scen, breakup=dict(scen["breakup"], altitude=-5))
     badp = os.path.join(work, "bad-altitude.json")
     json.dump(bad, open(badp, "w"))
+    camp_bad = os.path.join(work, "bad-campaign.json")
+    json.dump({"scenario": rocket, "cases": [{}, {"set": {"breakup": {"altitude": -5}}}]}, open(camp_bad, "w"))
     for name, args in (("a missing scenario", [os.path.join(work, "none.json")]),
                        ("a bad breakup altitude", [badp]),
                        ("a bad --vary", ["table", throw, "--vary", "speed=1:2:0"]),
-                       ("an unknown option", ["--frobnicate", rocket])):
-        args = ["footprint"] + args + ["--points", "p.csv"] if args[0] != "table" else args + ["-o", "t.csv"]
-        ref = run(0, args, ("p.csv", "t.csv"))
-        got = run(4, args, ("p.csv", "t.csv"))
+                       ("an unknown option", ["--frobnicate", rocket]),
+                       ("a campaign's case", ["campaign", camp_bad, "--out", "c"])):
+        args = (args + ["-o", "t.csv"] if args[0] == "table" else args if args[0] == "campaign"
+                else ["footprint"] + args + ["--points", "p.csv"])
+        ref = run(0, args, ("p.csv", "t.csv", "c"))
+        got = run(4, args, ("p.csv", "t.csv", "c"))
         lines = got[2].decode(errors="replace").splitlines()
         check(got[0] == 2 and ref[0] == 2, f"bad input, {name}: exit 2 under mpirun -n 4", f"exit {got[0]}")
         check(len(lines) == 1 and got[2] == ref[2], f"bad input, {name}: one line on stderr, the serial one",
               repr(got[2][-400:]))
-        check(got[3]["p.csv"] is None and got[3]["t.csv"] is None and not got[1], f"bad input, {name}: no output")
+        check(all(v is None for v in got[3].values()) and not got[1], f"bad input, {name}: no output")
 
     # one process fails in the middle of the run: all end with exit 3, one line on stderr, nothing written
     for p, rank, args, out in ((2, 1, [rocket, "--samples", "20", "--json", "--points", "p.csv"], "p.csv"),
