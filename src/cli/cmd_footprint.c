@@ -39,7 +39,10 @@ static const char HELP[] =
     "                   north of the point below the breakup, into FILE, an .svg, .png or .pdf file\n"
     "                   (docs/plots.md); drawn first, so that a plot that fails leaves no other file\n"
     "  --quiet          no progress bar (it shows only when stderr is a terminal)\n"
-    "  -h, --help       this help\n";
+    "  -h, --help       this help\n"
+    "\n"
+    "Under MPI (a build with DRAGARC_MPI, 'mpirun -n P'), the flights are shared among the processes, with the\n"
+    "same results (docs/cluster.md).\n";
 
 static int write_points(FILE *fp, const void *ctx, dragarc_error *err)
 {

@@ -59,7 +59,9 @@ static const char HELP_TAIL[] =
     "A new diameter scales area and volume (and a mass given as density); see docs/table.md.\n"
     "A row whose flight fails (a value out of range, no impact, ...) stays in the table with its reason.\n"
     "exit status: 0 every row flew, 1 (aim table) a range is out of reach, 2 bad usage, scenario or --vary,\n"
-    "3 a row or the computation failed (the table is still written).\n";
+    "3 a row or the computation failed (the table is still written).\n"
+    "Under MPI (a build with DRAGARC_MPI, 'mpirun -n P'), the rows of --vary are shared among the processes,\n"
+    "with the same results (docs/cluster.md).\n";
 
 static void print_help(void)
 {
