@@ -29,7 +29,7 @@ enum {
     DRAGARC_CAMPAIGN_POINTS = 1u << 0,  /* points.csv: every sample's impact */
     DRAGARC_CAMPAIGN_GRID = 1u << 1,    /* grid.csv: the density of impacts */
     DRAGARC_CAMPAIGN_GEOJSON = 1u << 2, /* footprint.geojson */
-    DRAGARC_CAMPAIGN_PLOT = 1u << 3     /* footprint.svg, .png or .pdf */
+    DRAGARC_CAMPAIGN_PLOT = 1u << 3     /* footprint.svg, .png or .pdf; and the campaign's map, campaign.svg, ... */
 };
 
 typedef struct dragarc_campaign_case {
@@ -90,6 +90,12 @@ char *dragarc_campaign_json(const dragarc_campaign *c, const dragarc_campaign_ro
 /* The combined report as CSV, one row per case (columns in docs/cluster.md; numbers with 17 significant digits,
  * empty where a value is not known). DRAGARC_EIO when the write fails. */
 int dragarc_campaign_write_csv(FILE *fp, const dragarc_campaign_row *rows, size_t n, dragarc_error *err);
+
+/* The campaign's map into path (.svg, .png or .pdf; src/io/campaign_plot.c): every case's breakup point, mean impact
+ * and 1 sigma ellipse, in km east and north of the first case's breakup point (each case named in the legend when
+ * there are at most 8). Errors as dragarc_plot_write, DRAGARC_ENOMEM. */
+int dragarc_campaign_plot(const char *path, const dragarc_campaign *c, const dragarc_campaign_row *rows, size_t n,
+                          dragarc_error *err);
 
 #ifdef __cplusplus
 }

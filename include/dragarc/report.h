@@ -141,6 +141,15 @@ int dragarc_report_drift(dragarc_report *r, const char *where, const dragarc_dri
 int dragarc_report_footprint(dragarc_report *r, const char *where, const dragarc_footprint_spec *sp,
                              const dragarc_impact *impacts, const dragarc_footprint_summary *s, dragarc_error *err);
 
+/* The `campaign` report of campaign c (read from file `where`) from its cases' rows (dragarc_campaign_row_fill, n
+ * of them): every case's breakup, mean impact, 1 sigma ellipse, hazardous share and E_c against its criterion, the
+ * published criteria as references, the map of dragarc_campaign_plot, the debris cautions and the sources. SI
+ * units. Errors as dragarc_campaign_plot, DRAGARC_ENOMEM. */
+struct dragarc_campaign;
+struct dragarc_campaign_row;
+int dragarc_report_campaign(dragarc_report *r, const char *where, const struct dragarc_campaign *c,
+                            const struct dragarc_campaign_row *rows, size_t n, dragarc_error *err);
+
 #ifdef __cplusplus
 }
 #endif

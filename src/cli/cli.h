@@ -192,6 +192,10 @@ typedef struct cli_footprint_files {
 int cli_footprint_write(const cli_footprint_files *f, int by_path, const dragarc_footprint_spec *spec,
                         const dragarc_impact *im, const dragarc_footprint_summary *sum);
 
+/* The date a report's footer gives: $SOURCE_DATE_EPOCH (seconds since 1970, for reproducible files) when set, else
+ * now. 0, or the exit status of the usage error printed (under cmd) when the variable is no such number. */
+int cli_report_date(const char *cmd, time_t *when);
+
 /* The published casualty criteria (for comparison only) and the debris cautions, on standard output. */
 void cli_print_debris_notes(void);
 

@@ -1,6 +1,7 @@
 /* cli_util.c: error reporting, option parsing and human output shared by the commands.
  * SPDX-License-Identifier: GPL-3.0-or-later
  */
+#include <errno.h>
 #include <math.h>
 #include <stdarg.h>
 #include <stdlib.h>
@@ -654,4 +655,20 @@ void cli_progress_end(cli_progress *p)
     if (p->shown)
         fputs("\r\033[K", stderr);
     p->shown = 0;
+}
+
+int cli_report_date(const char *cmd, time_t *when)
+{
+    const char *env = getenv("SOURCE_DATE_EPOCH");
+    if (!env || !*env) {
+        *when = time(NULL);
+        return 0;
+    }
+    char *end = NULL;
+    errno = 0;
+    long long v = strtoll(env, &end, 10);
+    if (*end != '\0' || errno != 0 || v < 0 || env[0] < '0' || env[0] > '9')
+        return cli_usage_error(cmd, "SOURCE_DATE_EPOCH must be a whole number of seconds since 1970, not '%s'", env);
+    *when = (time_t)v;
+    return 0;
 }

@@ -14,18 +14,20 @@
 #include "core/constants.h"
 #include "dragarc/campaign.h"
 #include "dragarc/output.h"
+#include "dragarc/report.h"
 
 static const char HELP[] =
     "usage: dragarc campaign CAMPAIGN.json --out FOLDER [--samples N] [--seed S] [--json] [--quiet]\n"
     "\n"
     "Run every footprint case of a campaign file (docs/cluster.md): a footprint scenario (docs/footprint.md) with\n"
     "changes, such as the breakup's state at one time along a trajectory, and its own samples and seed if given.\n"
-    "Each case writes summary.json (what 'dragarc footprint --json' prints), and points.csv, grid.csv,\n"
-    "footprint.geojson and a plot when the campaign's outputs ask for them, into FOLDER/ its folder;\n"
+    "Each case writes summary.json (what 'dragarc footprint --json' prints) into a folder of its own in FOLDER,\n"
+    "and points.csv, grid.csv, footprint.geojson and a plot when the campaign's outputs ask for them.\n"
     "FOLDER/campaign.json and FOLDER/campaign.csv hold one row per case (the breakup, the mean impact, the 1 sigma\n"
-    "ellipse, the hazardous share, E_c), and the summary printed is their table with the cautions. Every case\n"
-    "is read and checked before the first one is flown. Under MPI each case's flights are shared among the\n"
-    "processes, with the same results.\n"
+    "ellipse, the hazardous share, E_c), FOLDER/campaign.html is the report of them all with a map (also drawn\n"
+    "into FOLDER/campaign.svg when the outputs ask for plots), and the summary printed is their table with the\n"
+    "cautions. Every case is read and checked before the first one is flown. Under MPI each case's flights are\n"
+    "shared among the processes, with the same results.\n"
     "\n"
     "  --out FOLDER     where the outputs go (made when missing; files of the same names are replaced)\n"
     "  --samples N      samples per class of every case (instead of the campaign's and the scenarios')\n"
@@ -115,6 +117,30 @@ static int write_json(FILE *fp, const void *ctx, dragarc_error *err)
     return DRAGARC_OK;
 }
 
+/* The combined report as HTML, out/campaign.html, its figures drawn for a moment in out. */
+static int write_report(const char *path, const char *out, const dragarc_campaign *camp,
+                        const dragarc_campaign_row *rows, time_t when)
+{
+    dragarc_report *r = NULL;
+    dragarc_error err;
+    char file[4200];
+    snprintf(file, sizeof file, "%s/campaign.html", out);
+    int rc = dragarc_report_new(&r, camp->name[0] ? camp->name : path, "campaign", &err);
+    if (rc == DRAGARC_OK) {
+        dragarc_report_set_date(r, when);
+        rc = dragarc_report_set_scratch_dir(r, out, &err);
+    }
+    if (rc == DRAGARC_OK)
+        rc = dragarc_report_campaign(r, path, camp, rows, camp->ncases, &err);
+    if (rc == DRAGARC_OK)
+        rc = dragarc_report_write_html(r, file, &err);
+    dragarc_report_free(r);
+    if (rc == DRAGARC_OK)
+        return EXIT_OK;
+    err.field[0] = '\0';
+    return cli_report(file, &err);
+}
+
 static void print_summary(const dragarc_campaign *camp, const dragarc_campaign_row *rows, const char *out)
 {
     printf("dragarc campaign%s%s\n", camp->name[0] ? ": " : "", camp->name);
@@ -174,6 +200,9 @@ int cmd_campaign(int argc, char **argv)
         return cli_usage_error("campaign", "needs a campaign file");
     if (!out)
         return cli_usage_error("campaign", "needs --out FOLDER for the outputs");
+    time_t when;
+    if ((st = cli_report_date("campaign", &when)) != 0)
+        return st;
 
     dragarc_campaign camp;
     dragarc_error err;
@@ -219,6 +248,16 @@ int cmd_campaign(int argc, char **argv)
             dragarc_error_set(&err, DRAGARC_ENOMEM, "", "out of memory writing JSON");
             status = cli_report(path, &err);
         }
+        if (status == EXIT_OK && (camp.outputs & DRAGARC_CAMPAIGN_PLOT)) {
+            char map[4200];
+            snprintf(map, sizeof map, "%s/campaign.%s", out, camp.plot_format);
+            if (dragarc_campaign_plot(map, &camp, rows, camp.ncases, &err) != DRAGARC_OK) {
+                err.field[0] = '\0';
+                status = cli_report(map, &err);
+            }
+        }
+        if (status == EXIT_OK)
+            status = write_report(path, out, &camp, rows, when);
         if (status == EXIT_OK)
             status = cli_write_output(file, file, write_csv, ctx);
         snprintf(file, sizeof file, "%s/campaign.json", out);

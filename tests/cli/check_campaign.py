@@ -2,7 +2,8 @@
 # check_campaign.py: `dragarc campaign` end to end on docs/examples/campaign-ascent.json: every case's files, each
 # case's summary.json byte for byte what `dragarc footprint --json` prints for the scenario changed here by the
 # case's merge patch (IETF RFC 7386, 2014, section 2, applied by this script's own few lines, apart from dragarc's),
-# the combined CSV and JSON against the cases' summaries number for number, the printed summary and its cautions;
+# the combined CSV and JSON against the cases' summaries number for number, the HTML report's parts, the printed
+# summary and its cautions;
 # bad campaigns and cases refused before anything is flown or written.
 # SPDX-License-Identifier: GPL-3.0-or-later
 #
@@ -78,6 +79,13 @@ def main():
         check(ref.returncode == 0 and ref.stdout == summ, f"{c['name']}: summary.json is what footprint --json prints "
               "for the patched scenario", ref.stderr[-300:])
 
+    check(sorted(os.listdir(out)) == ["campaign.csv", "campaign.html", "campaign.json", "campaign.svg"] +
+          sorted(c["folder"] for c in camp["cases"]), "the campaign's folder: the combined files, the map and a folder "
+          "per case", sorted(os.listdir(out)))
+    html = open(os.path.join(out, "campaign.html")).read() if os.path.exists(os.path.join(out, "campaign.html")) else ""
+    check(html.count("<svg") == 1 and "<script" not in html and all(f">{n}<" in html for n in names) and
+          "Read before acting" in html and "RFC 7386" in html and "Published criteria" in html,
+          "campaign.html: the cases' table, one map, the criteria, the cautions and the sources, no script")
     rows = list(csv.DictReader(open(os.path.join(out, "campaign.csv"))))
     doc = json.load(open(os.path.join(out, "campaign.json")))
     check(len(rows) == len(names) and [x["case"] for x in rows] == names, "campaign.csv has a row per case, in order",
@@ -136,6 +144,10 @@ def main():
     refused("not JSON", "{", [], "not valid JSON")
     r = run(["campaign", camp_file])
     check(r.returncode == 2 and "--out" in r.stderr, "refused: no --out", r.stderr)
+    r = subprocess.run([binary, "campaign", camp_file, "--out", os.path.join(work, "dated")], capture_output=True,
+                       text=True, env=dict(os.environ, SOURCE_DATE_EPOCH="yesterday"))
+    check(r.returncode == 2 and "SOURCE_DATE_EPOCH" in r.stderr and not os.path.exists(os.path.join(work, "dated")),
+          "refused: a SOURCE_DATE_EPOCH that is no number", r.stderr)
     blocker = os.path.join(work, "a-file")
     open(blocker, "w").write("x")
     r = run(["campaign", camp_file, "--out", blocker, "--samples", "5"])
