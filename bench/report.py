@@ -4,6 +4,7 @@
 #
 # report.py: write docs/performance.md from the JSON results of bench_flight and scipy_bench.py.
 # Usage: report.py MACHINE_TXT OUT_MD C_JSON SCIPY_JSON [C_JSON SCIPY_JSON ...] [--patterns JSON] [--fit JSON]
+#                  [--mpi JSON]
 #   (one pair per round)
 
 import json
@@ -53,6 +54,35 @@ def merge_rounds(crounds, prounds):
     return cres, pyres, round_ratios
 
 
+def mpi_section(L, path):
+    """The MPI build's scaling on this machine (bench/mpi.sh), docs/cluster.md."""
+    with open(path) as f:
+        m = json.load(f)
+    L.append("")
+    L.append("## MPI processes")
+    L.append("")
+    L.append("Measured by `bench/mpi.sh`: `dragarc footprint docs/examples/footprint-rocket.json --samples 4000 --json` "
+             "(%d flights) with the MPI build (`-DDRAGARC_MPI=ON`, [cluster.md](cluster.md)) under `mpirun -q "
+             "--bind-to none -n P`, one OpenMP thread a process, and with the ordinary build on 1 and 2 threads; "
+             "medians of 3 runs, wall time of the whole command. The load average of the machine was %.2f before "
+             "and %.2f after: the runs themselves keep up to 2 cores busy, so more than that means other programs "
+             "shared the machine and the times and ratios are less clean." % (
+                 m["flights"], m["load_before"], m["load_after"]))
+    L.append("")
+    L.append("| run | wall time | against 1 process |")
+    L.append("|---|---:|---:|")
+    base = m["processes1"]
+    for label, key in (("mpirun -n 1 (1 thread)", "processes1"), ("mpirun -n 2 (1 thread each)", "processes2"),
+                       ("ordinary build, 1 thread", "threads1"), ("ordinary build, 2 threads", "threads2"),
+                       ("mpirun -n 1 of `dragarc --version` (mpirun's own cost)", "mpirun_alone")):
+        L.append("| %s | %.2f s | %.2fx |" % (label, m[key], base / m[key]))
+    L.append("")
+    L.append("The outputs of 2 processes and of the ordinary build were %s. Processes add mpirun's start "
+             "(the last row) and the gathering of the impacts to rank 0 (88 bytes a flight); threads share one "
+             "process's memory, so on one machine threads are the better choice, and processes pay off across "
+             "machines." % ("the same bytes" if m["same_bytes"] else "NOT the same bytes (a fault: see cluster.md)"))
+
+
 def main():
     # report.py MACHINE_TXT OUT_MD C_JSON SCIPY_JSON [C_JSON SCIPY_JSON ...]
     args = sys.argv[1:]
@@ -65,6 +95,11 @@ def main():
     if "--fit" in args:
         k = args.index("--fit")
         fits = args[k + 1]
+        del args[k:k + 2]
+    mpi = None
+    if "--mpi" in args:
+        k = args.index("--mpi")
+        mpi = args[k + 1]
         del args[k:k + 2]
     machine_path, out_path = args[0:2]
     pairs = args[2:]
@@ -278,6 +313,8 @@ def main():
                 L.append("| ±%.0f %% | %s | %d of %d | %.1f | %.0f | %.2f | %.0f |" % (
                     100 * c["spread"], c["mode"], c["found"], fit["starts"], c["iterations"], c["flights"],
                     1e3 * c["seconds_per_fit"], c["seconds_per_fit"] / p["flight_seconds"]))
+    if mpi:
+        mpi_section(L, mpi)
     L.append("")
     with open(out_path, "w") as f:
         f.write("\n".join(L))

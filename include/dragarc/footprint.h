@@ -157,6 +157,16 @@ double dragarc_footprint_memory_estimate(const dragarc_footprint_spec *spec);
 int dragarc_footprint_run(const dragarc_footprint_spec *spec, dragarc_impact *out,
                           void (*progress)(size_t done, size_t total, void *user), void *user, dragarc_error *err);
 
+/* Fly the flights of global indices [k0, k1) of the run (index k = class x samples + sample, the order of
+ * dragarc_footprint_run's out) into out[0 .. k1 - k0) (the caller allocates). Each flight's random stream comes from
+ * its own (class, sample), so out[i] is bit for bit the entry k0 + i of the whole run: ranges flown apart (by other
+ * processes, on other machines) and put side by side in index order make exactly the whole run's array.
+ * dragarc_footprint_run is the range [0, nclasses x samples). `progress` counts the flights of this range.
+ * DRAGARC_EINVAL when k0 > k1 or k1 is past the run's flights. */
+int dragarc_footprint_run_range(const dragarc_footprint_spec *spec, size_t k0, size_t k1, dragarc_impact *out,
+                                void (*progress)(size_t done, size_t total, void *user), void *user,
+                                dragarc_error *err);
+
 /* The nominal C_D of a drag law, the one a ballistic coefficient refers to: at Mach 0.5, Re 1e6 (170 m/s for a
  * table against speed). */
 double dragarc_fragment_nominal_cd(const dragarc_drag *drag);
@@ -221,6 +231,12 @@ void dragarc_footprint_spec_clear(dragarc_footprint_spec *spec);
 /* A footprint scenario file (docs/footprint.md; src/io/scenario_json.c). */
 int dragarc_footprint_spec_read(const char *path, dragarc_footprint_spec *out, dragarc_error *err);
 int dragarc_footprint_spec_parse(const char *json, dragarc_footprint_spec *out, dragarc_error *err);
+/* dragarc_footprint_spec_read of the file at path changed first by `patch`, a JSON object applied as a JSON Merge
+ * Patch (RFC 7386: members replace the scenario's, objects merge member by member, null removes a member), e.g.
+ * {"breakup": {"altitude": "12 km", "speed": 480}}; NULL changes nothing. File names in the scenario still resolve
+ * against its folder. Errors as dragarc_footprint_spec_read, their fields those of the changed scenario. */
+int dragarc_footprint_spec_read_patched(const char *path, const char *patch, dragarc_footprint_spec *out,
+                                        dragarc_error *err);
 
 #ifdef __cplusplus
 }

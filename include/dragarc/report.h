@@ -154,6 +154,15 @@ int dragarc_report_fit(dragarc_report *r, const char *where, const char *track_f
                        const dragarc_fit_options *o, const dragarc_track *track, const dragarc_fit_result *res,
                        const dragarc_scenario *fitted, dragarc_error *err);
 
+/* The `campaign` report of campaign c (read from file `where`) from its cases' rows (dragarc_campaign_row_fill, n
+ * of them): every case's breakup, mean impact, 1 sigma ellipse, hazardous share and E_c against its criterion, the
+ * published criteria as references, the map of dragarc_campaign_plot, the debris cautions and the sources. SI
+ * units. Errors as dragarc_campaign_plot, DRAGARC_ENOMEM. */
+struct dragarc_campaign;
+struct dragarc_campaign_row;
+int dragarc_report_campaign(dragarc_report *r, const char *where, const struct dragarc_campaign *c,
+                            const struct dragarc_campaign_row *rows, size_t n, dragarc_error *err);
+
 #ifdef __cplusplus
 }
 #endif

@@ -176,12 +176,42 @@ int cli_drift_load(const char *path, dragarc_drift_spec *spec, dragarc_spectrum_
  * the usage error printed ("--samples must be a whole number from 1 to 10000000 (got 'x')"). */
 int cli_count_argument(const char *cmd, const char *opt, const char *text, double lo, double hi, double *out);
 
+/* The options of a footprint run shared by `footprint` and `campaign`: --json, --quiet, --samples N and --seed S. If
+ * argv[*i] is one, take it (and its value, advancing *i) and return 0, or the exit status of the usage error printed;
+ * -1 when it is none of them. */
+int cli_run_option(const char *cmd, int argc, char **argv, int *i, int *json, int *quiet, double *samples,
+                   double *seed);
+
 /* Read the footprint scenario at path (with --samples and --seed when > 0 and >= 0), check it and its memory need,
  * read its population, fly it with a progress bar unless quiet, and summarise it into *sum: shared by `footprint`
  * and `report`. EXIT_OK, or the exit status of the error printed; either way the caller clears *spec, *pop and *sum
  * and frees *impacts. */
 int cli_footprint_load(const char *path, double samples, double seed, int quiet, dragarc_footprint_spec *spec,
                        dragarc_population *pop, dragarc_impact **impacts, dragarc_footprint_summary *sum);
+/* cli_footprint_load of a spec already read into *spec (a campaign's case): from the --samples and --seed on. Under
+ * MPI every process calls it, each flies one block, and only rank 0 receives the whole *impacts and the summary
+ * (cli_mpi.h). */
+int cli_footprint_fly(const char *path, double samples, double seed, int quiet, dragarc_footprint_spec *spec,
+                      dragarc_population *pop, dragarc_impact **impacts, dragarc_footprint_summary *sum);
+/* The files of a footprint run (NULL: not asked for): the plot, every sample's impact, the density grid, the
+ * GeoJSON file and the JSON document. */
+typedef struct cli_footprint_files {
+    const char *plot, *points, *grid, *geojson, *json;
+} cli_footprint_files;
+
+/* Write the files of f: the plot first (a plot that cannot be drawn then leaves no other file), then each other file
+ * whole (temporary file and rename). Errors are reported against the option (--points, ...), or against the file's
+ * path when by_path. Returns the exit status. */
+int cli_footprint_write(const cli_footprint_files *f, int by_path, const dragarc_footprint_spec *spec,
+                        const dragarc_impact *im, const dragarc_footprint_summary *sum);
+
+/* The date a report's footer gives: $SOURCE_DATE_EPOCH (seconds since 1970, for reproducible files) when set, else
+ * now. 0, or the exit status of the usage error printed (under cmd) when the variable is no such number. */
+int cli_report_date(const char *cmd, time_t *when);
+
+/* The published casualty criteria (for comparison only) and the debris cautions, on standard output. */
+void cli_print_debris_notes(void);
+
 /* The machine's physical memory in bytes (sysconf _SC_PHYS_PAGES x _SC_PAGESIZE; 0 when unknown). */
 double cli_physical_memory(void);
 
@@ -201,6 +231,7 @@ int cmd_footprint(int argc, char **argv);
 int cmd_optimize(int argc, char **argv);
 int cmd_fit(int argc, char **argv);
 int cmd_uniformity(int argc, char **argv);
+int cmd_campaign(int argc, char **argv);
 
 /* A progress bar on stderr for long runs: shown only when stderr is a terminal and `quiet` is 0, first after a
  * second of work, with the share done and an estimate of the time left; cli_progress_end clears its line. `unit`
@@ -215,10 +246,15 @@ typedef struct cli_progress {
     const char *unit;
     struct timespec start;
     double bytes;
+    size_t whole; /* > 0: the run's count, of which this process flies one block (cli_progress_share) */
+    int procs;    /* processes sharing the run */
     int enabled, shown;
 } cli_progress;
 void cli_progress_begin(cli_progress *p, const char *unit, int quiet);
 void cli_progress_plan(cli_progress *p, double bytes);
+/* A run of `whole` flights or rows shared by procs processes (MPI), this one flying a block of them: the bar and
+ * the big run's line show the whole run, its progress taken from this block's (the blocks are of one size). */
+void cli_progress_share(cli_progress *p, size_t whole, int procs);
 void cli_progress_tick(size_t done, size_t total, void *user);
 void cli_progress_end(cli_progress *p);
 

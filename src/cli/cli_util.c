@@ -1,6 +1,7 @@
 /* cli_util.c: error reporting, option parsing and human output shared by the commands.
  * SPDX-License-Identifier: GPL-3.0-or-later
  */
+#include <errno.h>
 #include <math.h>
 #include <stdarg.h>
 #include <stdlib.h>
@@ -580,6 +581,8 @@ void cli_progress_begin(cli_progress *p, const char *unit, int quiet)
     p->unit = unit;
     timespec_get(&p->start, TIME_UTC); /* C17 has no monotonic clock; a second of drift only skews the estimate */
     p->bytes = 0.0;
+    p->whole = 0;
+    p->procs = 1;
     p->enabled = !quiet && isatty(STDERR_FILENO);
     p->shown = 0;
 }
@@ -587,6 +590,12 @@ void cli_progress_begin(cli_progress *p, const char *unit, int quiet)
 void cli_progress_plan(cli_progress *p, double bytes)
 {
     p->bytes = bytes;
+}
+
+void cli_progress_share(cli_progress *p, size_t whole, int procs)
+{
+    p->whole = procs > 1 ? whole : 0;
+    p->procs = procs > 1 ? procs : 1;
 }
 
 /* s seconds as "40 s", "11 min" or "2.5 h" */
@@ -611,7 +620,11 @@ static void print_plan(const cli_progress *p, size_t done, size_t total, double 
     }
     format_duration(el * (double)total / (double)done, when, sizeof when);
     int n = dragarc_threads();
-    fprintf(stderr, "dragarc: %zu %s%s, about %s on %d thread%s\n", total, p->unit, mem, when, n, n == 1 ? "" : "s");
+    char procs[48] = "";
+    if (p->procs > 1)
+        snprintf(procs, sizeof procs, "%d processes of ", p->procs);
+    fprintf(stderr, "dragarc: %zu %s%s, about %s on %s%d thread%s\n", total, p->unit, mem, when, procs, n,
+            n == 1 ? "" : "s");
 }
 
 void cli_progress_tick(size_t done, size_t total, void *user)
@@ -619,6 +632,10 @@ void cli_progress_tick(size_t done, size_t total, void *user)
     cli_progress *p = user;
     if (!p->enabled || total == 0)
         return;
+    if (p->whole > 0) { /* this process's block stands for the whole run */
+        done = done == total ? p->whole : (size_t)((double)done / (double)total * (double)p->whole);
+        total = p->whole;
+    }
     struct timespec now;
     timespec_get(&now, TIME_UTC);
     double el = (double)(now.tv_sec - p->start.tv_sec) + 1e-9 * (double)(now.tv_nsec - p->start.tv_nsec);
@@ -638,4 +655,20 @@ void cli_progress_end(cli_progress *p)
     if (p->shown)
         fputs("\r\033[K", stderr);
     p->shown = 0;
+}
+
+int cli_report_date(const char *cmd, time_t *when)
+{
+    const char *env = getenv("SOURCE_DATE_EPOCH");
+    if (!env || !*env) {
+        *when = time(NULL);
+        return 0;
+    }
+    char *end = NULL;
+    errno = 0;
+    long long v = strtoll(env, &end, 10);
+    if (*end != '\0' || errno != 0 || v < 0 || env[0] < '0' || env[0] > '9')
+        return cli_usage_error(cmd, "SOURCE_DATE_EPOCH must be a whole number of seconds since 1970, not '%s'", env);
+    *when = (time_t)v;
+    return 0;
 }

@@ -8,6 +8,7 @@
 #include <string.h>
 
 #include "cli/cli.h"
+#include "cli/cli_mpi.h"
 #include "core/constants.h"
 #include "dragarc/cautions.h"
 #include "dragarc/footprint.h"
@@ -38,7 +39,10 @@ static const char HELP[] =
     "                   north of the point below the breakup, into FILE, an .svg, .png or .pdf file\n"
     "                   (docs/plots.md); drawn first, so that a plot that fails leaves no other file\n"
     "  --quiet          no progress bar (it shows only when stderr is a terminal)\n"
-    "  -h, --help       this help\n";
+    "  -h, --help       this help\n"
+    "\n"
+    "Under MPI (a build with DRAGARC_MPI, 'mpirun -n P'), the flights are shared among the processes, with the\n"
+    "same results (docs/cluster.md).\n";
 
 static int write_points(FILE *fp, const void *ctx, dragarc_error *err)
 {
@@ -50,6 +54,41 @@ static int write_grid(FILE *fp, const void *ctx, dragarc_error *err)
 {
     const void *const *c = ctx;
     return dragarc_footprint_write_grid_csv(fp, c[0], c[1], err);
+}
+
+static int write_json(FILE *fp, const void *ctx, dragarc_error *err)
+{
+    const void *const *c = ctx;
+    char *text = dragarc_footprint_json(c[0], c[1], c[2]);
+    if (!text)
+        return dragarc_error_set(err, DRAGARC_ENOMEM, "", "out of memory writing JSON");
+    int ok = fputs(text, fp) >= 0 && fputc('\n', fp) != EOF;
+    free(text);
+    return ok ? DRAGARC_OK : dragarc_error_set(err, DRAGARC_EIO, "", "write failed");
+}
+
+int cli_footprint_write(const cli_footprint_files *f, int by_path, const dragarc_footprint_spec *spec,
+                        const dragarc_impact *im, const dragarc_footprint_summary *sum)
+{
+    dragarc_error err;
+    int status = EXIT_OK;
+    /* the plot first: a plot that cannot be drawn (a driver, a folder) then leaves none of the other files */
+    if (f->plot && dragarc_footprint_plot(f->plot, spec, im, sum, NULL, &err) != DRAGARC_OK) {
+        if (!by_path)
+            return cli_plot_failed(&err);
+        err.field[0] = '\0';
+        return cli_report(f->plot, &err);
+    }
+    const void *points[2] = {spec, im}, *grid[2] = {spec, sum}, *doc[3] = {spec, im, sum};
+    if (f->points)
+        status = cli_write_output(by_path ? f->points : "--points", f->points, write_points, points);
+    if (status == EXIT_OK && f->grid)
+        status = cli_write_output(by_path ? f->grid : "--grid", f->grid, write_grid, grid);
+    if (status == EXIT_OK && f->geojson && dragarc_footprint_write_geojson(f->geojson, spec, im, sum, &err) != DRAGARC_OK)
+        status = cli_report(by_path ? f->geojson : "--geojson", &err);
+    if (status == EXIT_OK && f->json)
+        status = cli_write_output(f->json, f->json, write_json, doc);
+    return status;
 }
 
 /* v for printing with no decimals: what rounds to zero prints as 0, never -0 */
@@ -133,12 +172,34 @@ static void print_summary(const dragarc_footprint_spec *sp, const dragarc_footpr
     } else {
         printf("  casualties      not estimated: the scenario gives no hazard.population\n");
     }
+    cli_print_debris_notes();
+}
+
+void cli_print_debris_notes(void)
+{
     size_t nref = 0;
     const dragarc_risk_reference *refs = dragarc_casualty_references(&nref);
     printf("  published criteria, for comparison only (not an approval):\n");
     for (size_t i = 0; i < nref; i++)
         printf("    - %s: %.3g (%s)\n", refs[i].quantity, refs[i].limit, refs[i].source);
     dragarc_cautions_print(stdout, DRAGARC_NOTE_DEBRIS, 100);
+}
+
+int cli_run_option(const char *cmd, int argc, char **argv, int *i, int *json, int *quiet, double *samples,
+                   double *seed)
+{
+    const char *a = argv[*i];
+    if (strcmp(a, "--json") == 0)
+        *json = 1;
+    else if (strcmp(a, "--quiet") == 0)
+        *quiet = 1;
+    else if (strcmp(a, "--samples") == 0)
+        return cli_count_argument(cmd, a, *i + 1 < argc ? argv[++*i] : NULL, 1, DRAGARC_FOOTPRINT_MAX_SAMPLES, samples);
+    else if (strcmp(a, "--seed") == 0)
+        return cli_count_argument(cmd, a, *i + 1 < argc ? argv[++*i] : NULL, 0, 9007199254740992.0, seed);
+    else
+        return -1;
+    return 0;
 }
 
 int cli_count_argument(const char *cmd, const char *opt, const char *text, double lo, double hi, double *out)
@@ -159,40 +220,64 @@ int cli_footprint_load(const char *path, double samples, double seed, int quiet,
     memset(pop, 0, sizeof *pop);
     memset(sum, 0, sizeof *sum);
     *impacts = NULL;
+    int status = EXIT_OK;
     if (dragarc_footprint_spec_read(path, spec, &err) != DRAGARC_OK)
-        return cli_report(path, &err);
+        status = cli_report(path, &err);
+    else
+        status = cli_footprint_fly(path, samples, seed, quiet, spec, pop, impacts, sum);
+    return status;
+}
+
+int cli_footprint_fly(const char *path, double samples, double seed, int quiet, dragarc_footprint_spec *spec,
+                      dragarc_population *pop, dragarc_impact **impacts, dragarc_footprint_summary *sum)
+{
+    dragarc_error err;
     if (samples > 0.0)
         spec->samples = (size_t)samples;
     if (seed >= 0.0)
         spec->seed = (uint64_t)seed;
     int status = EXIT_OK;
     const dragarc_hazard_options *h = &spec->hazard;
+    /* Under MPI each process flies one block of the flights; rank 0 gathers them all and summarises, so it alone
+     * needs the whole run's memory and the population (cli_mpi.h). */
+    const int root = cli_mpi_rank() == 0;
+    const size_t total = spec->nclasses * spec->samples;
+    size_t k0 = 0, k1 = 0;
+    cli_mpi_block(total, &k0, &k1);
     const double need = dragarc_footprint_memory_estimate(spec);
     if (dragarc_footprint_check(spec, &err) != DRAGARC_OK)
         status = cli_report(path, &err);
-    else if ((status = cli_memory_check(path, "footprint.samples", need)) != EXIT_OK)
+    else if ((status = cli_memory_check(path, "footprint.samples",
+                                        root ? need : (double)(k1 - k0) * sizeof **impacts)) != EXIT_OK)
         ; /* reported: nothing is read, allocated or flown */
-    else if (h->population_given &&
+    else if (root && h->population_given &&
              (h->population_file[0] ? dragarc_population_read(h->population_file, pop, &err)
                                     : dragarc_population_uniform(pop, h->density, &err)) != DRAGARC_OK)
         status = cli_report(h->population_file[0] ? NULL : path, &err);
-    else if (h->population_file[0] && dragarc_population_set_background(pop, h->background, &err) != DRAGARC_OK)
+    else if (root && h->population_file[0] && dragarc_population_set_background(pop, h->background, &err) != DRAGARC_OK)
         status = cli_report(path, &err);
-    else if (!(*impacts = malloc(spec->nclasses * spec->samples * sizeof **impacts))) {
-        dragarc_error_set(&err, DRAGARC_ENOMEM, "", "out of memory for %zu flights", spec->nclasses * spec->samples);
+    else if (!(*impacts = malloc((root ? total : k1 - k0 + 1) * sizeof **impacts))) {
+        dragarc_error_set(&err, DRAGARC_ENOMEM, "", "out of memory for %zu flights", root ? total : k1 - k0);
         status = cli_report(path, &err);
     }
-    if (status == EXIT_OK) {
-        cli_progress bar;
-        cli_progress_begin(&bar, "flights", quiet);
-        cli_progress_plan(&bar, need);
-        int rc = dragarc_footprint_run(spec, *impacts, bar.enabled ? cli_progress_tick : NULL, &bar, &err);
-        cli_progress_end(&bar);
-        if (rc != DRAGARC_OK)
-            status = cli_report(path, &err);
-        else if (dragarc_footprint_summarise(spec, *impacts, h->population_given ? pop : NULL, sum, &err) != DRAGARC_OK)
-            status = cli_report(path, &err);
-    }
+    if ((status = cli_mpi_agree(status)) != EXIT_OK)
+        return status;
+    cli_progress bar;
+    cli_progress_begin(&bar, "flights", quiet || !root);
+    cli_progress_plan(&bar, need);
+    cli_progress_share(&bar, total, cli_mpi_size());
+    int rc = dragarc_footprint_run_range(spec, k0, k1, *impacts, bar.enabled ? cli_progress_tick : NULL, &bar, &err);
+    cli_progress_end(&bar);
+    if (rc == DRAGARC_OK && cli_mpi_test_fault())
+        rc = dragarc_error_set(&err, DRAGARC_ESOLVER, "", "a failure made on purpose (DRAGARC_MPI_TEST_FAULT)");
+    if (rc != DRAGARC_OK)
+        status = cli_report(path, &err);
+    /* agreed before gathering: a process that failed never leaves the others waiting for its block */
+    if ((status = cli_mpi_agree(status)) != EXIT_OK ||
+        (status = cli_mpi_gather(*impacts, *impacts, sizeof **impacts, total)) != EXIT_OK)
+        return status;
+    if (root && dragarc_footprint_summarise(spec, *impacts, h->population_given ? pop : NULL, sum, &err) != DRAGARC_OK)
+        status = cli_report(path, &err);
     return status;
 }
 
@@ -205,16 +290,8 @@ int cmd_footprint(int argc, char **argv)
         const char *a = argv[i];
         if (cli_help_asked(a, HELP))
             return EXIT_OK;
-        if (strcmp(a, "--json") == 0)
-            json = 1;
-        else if (strcmp(a, "--quiet") == 0)
-            quiet = 1;
-        else if (strcmp(a, "--samples") == 0) {
-            if ((st = cli_count_argument("footprint", a, i + 1 < argc ? argv[++i] : NULL, 1, DRAGARC_FOOTPRINT_MAX_SAMPLES,
-                                &samples)) != 0)
-                return st;
-        } else if (strcmp(a, "--seed") == 0) {
-            if ((st = cli_count_argument("footprint", a, i + 1 < argc ? argv[++i] : NULL, 0, 9007199254740992.0, &seed)) != 0)
+        if ((st = cli_run_option("footprint", argc, argv, &i, &json, &quiet, &samples, &seed)) >= 0) {
+            if (st != 0)
                 return st;
         } else if (strcmp(a, "--points") == 0 || strcmp(a, "--geojson") == 0 || strcmp(a, "--grid") == 0) {
             if (++i >= argc)
@@ -237,26 +314,18 @@ int cmd_footprint(int argc, char **argv)
     dragarc_population pop;
     dragarc_footprint_summary sum;
     dragarc_impact *im = NULL;
-    dragarc_error err;
     int status = cli_footprint_load(path, samples, seed, quiet, &spec, &pop, &im, &sum);
-    /* the plot first: a plot that cannot be drawn (a driver, a folder) then leaves none of the other files */
-    if (status == EXIT_OK && plot && dragarc_footprint_plot(plot, &spec, im, &sum, NULL, &err) != DRAGARC_OK)
-        status = cli_plot_failed(&err);
-    if (status == EXIT_OK && points) {
-        const void *ctx[2] = {&spec, im};
-        status = cli_write_output("--points", points, write_points, ctx);
-    }
-    if (status == EXIT_OK && grid) {
-        const void *ctx[2] = {&spec, &sum};
-        status = cli_write_output("--grid", grid, write_grid, ctx);
-    }
-    if (status == EXIT_OK && geojson && dragarc_footprint_write_geojson(geojson, &spec, im, &sum, &err) != DRAGARC_OK)
-        status = cli_report("--geojson", &err);
+    if (cli_mpi_rank() != 0)
+        goto done; /* rank 0 alone has the whole run and writes (cli_mpi.h) */
+    const cli_footprint_files out = {plot, points, grid, geojson, NULL};
+    if (status == EXIT_OK)
+        status = cli_footprint_write(&out, 0, &spec, im, &sum);
     if (status == EXIT_OK && json)
         status = cli_emit_json(dragarc_footprint_json(&spec, im, &sum), path);
     else if (status == EXIT_OK) {
         print_summary(&spec, &sum);
     }
+done:
     dragarc_footprint_summary_clear(&sum);
     dragarc_population_clear(&pop);
     free(im);

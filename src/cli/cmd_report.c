@@ -403,23 +403,6 @@ static int kind_fit(const report_job *job, dragarc_report **out)
 }
 
 /* SOURCE_DATE_EPOCH when set (a whole number of seconds), else now. 0, or the exit status of the error printed. */
-static int report_date(time_t *when)
-{
-    const char *env = getenv("SOURCE_DATE_EPOCH");
-    if (!env || !*env) {
-        *when = time(NULL);
-        return 0;
-    }
-    char *end = NULL;
-    errno = 0;
-    long long v = strtoll(env, &end, 10);
-    if (*end != '\0' || errno != 0 || v < 0 || env[0] < '0' || env[0] > '9')
-        return cli_usage_error("report", "SOURCE_DATE_EPOCH must be a whole number of seconds since 1970, not '%s'",
-                               env);
-    *when = (time_t)v;
-    return 0;
-}
-
 /* A file name ending in .html or .htm (any case), or "-". */
 static int html_name(const char *path)
 {
@@ -471,7 +454,7 @@ int cmd_report(int argc, char **argv)
         st = cli_usage_error("report", "-o '%s': the report is HTML, name it FILE.html", output);
     int written_status = EXIT_OK;
     report_job job = {.kind = kind, .argc = nrest, .argv = rest, .written_status = &written_status};
-    if (st < 0 && report_date(&job.date) != 0)
+    if (st < 0 && cli_report_date("report", &job.date) != 0)
         st = EXIT_BAD_INPUT;
     if (st >= 0) {
         free(rest);

@@ -9,6 +9,7 @@
 #include <string.h>
 
 #include "cli/cli.h"
+#include "cli/cli_mpi.h"
 #include "dragarc/aim.h"
 #include "dragarc/cautions.h"
 #include "dragarc/output.h"
@@ -58,7 +59,9 @@ static const char HELP_TAIL[] =
     "A new diameter scales area and volume (and a mass given as density); see docs/table.md.\n"
     "A row whose flight fails (a value out of range, no impact, ...) stays in the table with its reason.\n"
     "exit status: 0 every row flew, 1 (aim table) a range is out of reach, 2 bad usage, scenario or --vary,\n"
-    "3 a row or the computation failed (the table is still written).\n";
+    "3 a row or the computation failed (the table is still written).\n"
+    "Under MPI (a build with DRAGARC_MPI, 'mpirun -n P'), the rows of --vary are shared among the processes,\n"
+    "with the same results (docs/cluster.md).\n";
 
 static void print_help(void)
 {
@@ -343,6 +346,91 @@ static int aim_table(const char *file, const char *spec, double height, table_fo
     return status;
 }
 
+static int out_of_memory(const char *file)
+{
+    dragarc_error err;
+    dragarc_error_set(&err, DRAGARC_ENOMEM, "", "out of memory for the table's rows");
+    return cli_report(file, &err);
+}
+
+/* Fly the table of the scenario at `file` over axes (nrows rows) into *t, with a progress bar unless quiet. Under MPI
+ * each process flies one block of rows and rank 0 gathers them, with the errors of the failed ones, into *t in row
+ * order (the other processes' *t stays empty). Returns the exit status (message printed); the caller clears *t. */
+static int sweep_rows(const char *file, const dragarc_sweep_axis *axes, size_t naxes, size_t nrows, int quiet,
+                      dragarc_sweep *t)
+{
+    typedef struct row_error { int present; dragarc_error e; } row_error;
+    dragarc_error err;
+    const int root = cli_mpi_rank() == 0;
+    size_t r0, r1;
+    cli_mpi_block(nrows, &r0, &r1);
+    memset(t, 0, sizeof *t);
+    const double need = dragarc_sweep_memory_estimate(nrows);
+    dragarc_sweep_row *mine = NULL; /* a block of another process than rank 0 */
+    dragarc_scenario s;
+    int have_s = 0, status = cli_memory_check("table", "--vary", root ? need : dragarc_sweep_memory_estimate(r1 - r0));
+    if (status == EXIT_OK && dragarc_scenario_read(file, cli_profile_path(), &s, &err) != DRAGARC_OK)
+        status = cli_report(file, &err);
+    else if (status == EXIT_OK)
+        have_s = 1;
+    if (status == EXIT_OK && root && dragarc_sweep_init(&s, axes, naxes, t, &err) != DRAGARC_OK)
+        status = cli_report(file, &err);
+    else if (status == EXIT_OK && !root && !(mine = calloc(r1 - r0 + 1, sizeof *mine)))
+        status = out_of_memory(file);
+    /* Each agreement below is reached by every process or by none: statuses are agreed before any gathering. */
+    if ((status = cli_mpi_agree(status)) == EXIT_OK) {
+        cli_progress bar;
+        cli_progress_begin(&bar, "rows", quiet || !root);
+        cli_progress_plan(&bar, need);
+        cli_progress_share(&bar, nrows, cli_mpi_size());
+        int rc = dragarc_sweep_run_range(&s, axes, naxes, r0, r1, root ? t->rows : mine,
+                                         bar.enabled ? cli_progress_tick : NULL, &bar, &err);
+        if (rc == DRAGARC_OK && cli_mpi_test_fault())
+            rc = dragarc_error_set(&err, DRAGARC_ESOLVER, "", "a failure made on purpose (DRAGARC_MPI_TEST_FAULT)");
+        if (rc != DRAGARC_OK)
+            status = cli_report(file, &err);
+        cli_progress_end(&bar);
+        status = cli_mpi_agree(status);
+    }
+    /* the rows go as bytes (their error pointers mean nothing on rank 0), then the failed rows' errors in row order */
+    row_error *lost = NULL, *found = NULL;
+    size_t nlost = 0, nfound = 0;
+    if (status == EXIT_OK) {
+        for (size_t i = 0; mine && i < r1 - r0; i++)
+            nlost += mine[i].status != DRAGARC_OK;
+        if (nlost && !(lost = calloc(nlost, sizeof *lost)))
+            status = out_of_memory(file);
+        for (size_t i = 0, k = 0; lost && i < r1 - r0; i++)
+            if (mine[i].status != DRAGARC_OK) {
+                lost[k].present = mine[i].error != NULL;
+                if (mine[i].error)
+                    lost[k].e = *mine[i].error;
+                k++;
+            }
+        if ((status = cli_mpi_agree(status)) == EXIT_OK &&
+            (status = cli_mpi_gather(root ? t->rows : NULL, mine, sizeof *mine, nrows)) == EXIT_OK)
+            status = cli_mpi_gather_any(lost, nlost, sizeof *lost, (void **)&found, &nfound);
+    }
+    if (status == EXIT_OK && root) {
+        size_t own = r1, k = 0;
+        for (size_t r = own; r < nrows; r++) {
+            t->rows[r].error = NULL;
+            if (t->rows[r].status != DRAGARC_OK && k < nfound) {
+                const row_error *f = &found[k++];
+                if (f->present && (t->rows[r].error = malloc(sizeof *t->rows[r].error)))
+                    *t->rows[r].error = f->e;
+            }
+        }
+        dragarc_sweep_tally(t);
+    }
+    for (size_t i = 0; mine && i < r1 - r0; i++)
+        free(mine[i].error);
+    free(mine), free(lost), free(found);
+    if (have_s)
+        dragarc_scenario_clear(&s);
+    return status;
+}
+
 int cmd_table(int argc, char **argv)
 {
     const char *output = NULL, *format_option = NULL, *ranges = NULL, *plot = NULL, *plot_column = NULL;
@@ -420,33 +508,21 @@ int cmd_table(int argc, char **argv)
     if ((st = cli_display_options("table", c.system, c.specs, c.nspecs, &d)) != 0)
         return st;
     const dragarc_display *dp = c.system || c.nspecs ? &d : NULL; /* NULL: SI, as the library names it */
-    if (ranges)
-        return aim_table(file, ranges, height, format, output, plot, dp);
+    if (ranges) /* an aim table is not shared among MPI processes: rank 0 makes it alone */
+        return cli_mpi_rank() == 0 ? aim_table(file, ranges, height, format, output, plot, dp) : EXIT_OK;
     if (naxes == 0)
         return cli_usage_error("table", "needs at least one --vary NAME=START:STOP:STEP");
     size_t nrows;
     if (dragarc_sweep_axes_check(axes, naxes, &nrows, &err) != DRAGARC_OK)
         return cli_usage_error("table", "--vary: %s%s%s", err.field, err.field[0] ? ": " : "", err.message);
-    const double need = dragarc_sweep_memory_estimate(nrows);
-    if ((st = cli_memory_check("table", "--vary", need)) != 0)
-        return st;
     dragarc_sweep_column column = DRAGARC_SWEEP_RANGE;
     if (plot && (st = plot_choice(plot_column, axes, naxes, &column)) != 0)
         return st;
-
-    dragarc_scenario s;
-    if (dragarc_scenario_read(file, cli_profile_path(), &s, &err) != DRAGARC_OK)
-        return cli_report(file, &err);
     dragarc_sweep t;
-    cli_progress bar;
-    cli_progress_begin(&bar, "rows", quiet);
-    cli_progress_plan(&bar, need);
-    int rc = dragarc_sweep_run_progress(&s, axes, naxes, bar.enabled ? cli_progress_tick : NULL, &bar, &t, &err);
-    cli_progress_end(&bar);
-    dragarc_scenario_clear(&s);
-    if (rc != DRAGARC_OK) {
+    int rc = sweep_rows(file, axes, naxes, nrows, quiet, &t);
+    if (rc != EXIT_OK || cli_mpi_rank() != 0) {
         dragarc_sweep_clear(&t);
-        return cli_report(file, &err);
+        return rc; /* rank 0 alone has the whole table and writes it */
     }
     /* The picture first: when it cannot be drawn, the table is not written either. */
     if (plot && (rc = dragarc_sweep_plot(plot, &t, column, dp, NULL, &err)) != DRAGARC_OK) {

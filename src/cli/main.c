@@ -8,6 +8,7 @@
 #include <unistd.h>
 
 #include "cli/cli.h"
+#include "cli/cli_mpi.h"
 #include "dragarc/output.h"
 
 static const char USAGE[] =
@@ -32,6 +33,9 @@ static const char USAGE[] =
     "                        expectation; JSON, CSV points, GeoJSON, plot\n"
     "  uniformity CATCH.csv  how evenly a catch-can test was watered: Christiansen's CU, the\n"
     "                        low-quarter DU, CV\n"
+    "  campaign CAMPAIGN.json --out FOLDER\n"
+    "                        many footprint cases (breakups along a trajectory, say): each case's outputs\n"
+    "                        and one combined report\n"
     "  report SCENARIO -o FILE.html [--command KIND]\n"
     "                        one self-contained HTML page: inputs, results, figures, cautions, sources\n"
     "  demo                  fly built-in example scenarios and explain what they show\n"
@@ -41,9 +45,12 @@ static const char USAGE[] =
     "  -V, --version         print the version\n"
     "\n"
     "exit status: 0 success, 1 no solution (aim: target out of reach; optimize: no launch lands; fit: the\n"
-    "iterations ran out), 2 bad usage or input, 3 the computation (or a table row) failed; stopped by\n"
-    "SIGINT, SIGTERM or SIGHUP: the run ends by that signal (a shell shows 128 + its number) and leaves\n"
-    "no partial file.\n"
+    "iterations ran out),\n"
+    "2 bad usage or input, 3 the computation (or a table row) failed; stopped by SIGINT, SIGTERM or SIGHUP:\n"
+    "the run ends by that signal (a shell shows 128 + its number) and leaves no partial file.\n"
+    "Under MPI (a DRAGARC_MPI build, 'mpirun -n P dragarc ...'), footprint, table and campaign share their\n"
+    "flights among the processes with the same results; the other commands run on the first process alone\n"
+    "(docs/cluster.md).\n"
     "Scenario files, models and sources: see docs/ in the source tree.\n";
 
 static int run(int argc, char **argv);
@@ -82,14 +89,21 @@ static void catch_stop_signals(void)
 /* A result that did not reach standard output (a full disk, a closed pipe) is a failure, not success. */
 int main(int argc, char **argv)
 {
+    cli_mpi_start(&argc, &argv);
     catch_stop_signals();
     int status = run(argc, argv);
     cli_units_release();
     if (fflush(stdout) != 0 || ferror(stdout)) {
         fputs("dragarc: cannot write to standard output\n", stderr);
-        return EXIT_FAILED;
+        status = EXIT_FAILED;
     }
-    return status;
+    return cli_mpi_finish(status);
+}
+
+/* The commands that share their work among MPI processes (cli_mpi.h); the others run on rank 0 alone. */
+static int distributed(const char *cmd)
+{
+    return strcmp(cmd, "footprint") == 0 || strcmp(cmd, "table") == 0 || strcmp(cmd, "campaign") == 0;
 }
 
 static int run(int argc, char **argv)
@@ -108,6 +122,8 @@ static int run(int argc, char **argv)
         printf("dragarc %s\n", dragarc_version());
         return EXIT_OK;
     }
+    if (!distributed(cmd) && cli_mpi_solo())
+        return EXIT_OK; /* not rank 0: it runs the command alone, and this process exits with its status */
     if (strcmp(cmd, "fly") == 0)
         return cmd_fly(argc - 1, argv + 1);
     if (strcmp(cmd, "aim") == 0)
@@ -132,6 +148,8 @@ static int run(int argc, char **argv)
         return cmd_drift(argc - 1, argv + 1);
     if (strcmp(cmd, "footprint") == 0)
         return cmd_footprint(argc - 1, argv + 1);
+    if (strcmp(cmd, "campaign") == 0)
+        return cmd_campaign(argc - 1, argv + 1);
     fprintf(stderr, "dragarc: unknown command '%s' (see 'dragarc --help')\n", cmd);
     return EXIT_BAD_INPUT;
 }

@@ -17,6 +17,7 @@
 #include "dragarc/drift.h"
 #include "dragarc/fit.h"
 #include "dragarc/footprint.h"
+#include "dragarc/campaign.h"
 #include "dragarc/geodesy.h"
 #include "dragarc/optimize.h"
 #include "dragarc/sprinkler.h"
@@ -567,6 +568,21 @@ static cJSON *footprint_group(const dragarc_footprint_spec *spec, const dragarc_
     return o;
 }
 
+/* The published casualty criteria, as references to compare with (not approvals). */
+static void add_published_criteria(cJSON *doc)
+{
+    size_t nref = 0;
+    const dragarc_risk_reference *refs = dragarc_casualty_references(&nref);
+    cJSON *rf = cJSON_AddArrayToObject(doc, "published_criteria");
+    for (size_t i = 0; i < nref; i++) {
+        cJSON *o = cJSON_CreateObject();
+        cJSON_AddStringToObject(o, "quantity", refs[i].quantity);
+        add_num(o, "limit", refs[i].limit);
+        cJSON_AddStringToObject(o, "source", refs[i].source);
+        cJSON_AddItemToArray(rf, o);
+    }
+}
+
 char *dragarc_footprint_json(const dragarc_footprint_spec *spec, const dragarc_impact *impacts,
                              const dragarc_footprint_summary *s)
 {
@@ -625,16 +641,7 @@ char *dragarc_footprint_json(const dragarc_footprint_spec *spec, const dragarc_i
     }
     if (s->grid_ok)
         add_num(doc, "grid_cell", s->grid.cell);
-    size_t nref = 0;
-    const dragarc_risk_reference *refs = dragarc_casualty_references(&nref);
-    cJSON *rf = cJSON_AddArrayToObject(doc, "published_criteria");
-    for (size_t i = 0; i < nref; i++) {
-        cJSON *o = cJSON_CreateObject();
-        cJSON_AddStringToObject(o, "quantity", refs[i].quantity);
-        add_num(o, "limit", refs[i].limit);
-        cJSON_AddStringToObject(o, "source", refs[i].source);
-        cJSON_AddItemToArray(rf, o);
-    }
+    add_published_criteria(doc);
     static const char *const U[][2] = {
         {"latitude", "degree"}, {"longitude", "degree"}, {"altitude", "m"}, {"velocity", "m/s"},
         {"downrange_azimuth", "degree"}, {"hazard_energy", "J"}, {"east", "m"}, {"north", "m"},
@@ -643,6 +650,67 @@ char *dragarc_footprint_json(const dragarc_footprint_spec *spec, const dragarc_i
         {"impact_energy_mean", "J"}, {"impact_energy_median", "J"}, {"impact_energy_max", "J"},
         {"time_median", "s"}, {"impact_speed", "m/s"}, {"impact_energy", "J"}, {"mass", "kg"}, {"area", "m^2"}, {"ballistic_coefficient", "kg/m^2"},
         {"density_threshold", "1/km^2"}, {"grid_cell", "m"}};
+    add_units(doc, U, sizeof U / sizeof U[0]);
+    add_cautions(doc, DRAGARC_NOTE_DEBRIS);
+    return finish(doc);
+}
+
+/* ---- campaigns of footprint cases ---- */
+
+char *dragarc_campaign_json(const dragarc_campaign *c, const dragarc_campaign_row *rows, size_t n)
+{
+    cJSON *doc = cJSON_CreateObject();
+    if (!doc)
+        return NULL;
+    cJSON_AddStringToObject(doc, "campaign", c->name);
+    cJSON_AddStringToObject(doc, "dragarc_version", DRAGARC_VERSION_STRING);
+    cJSON *cases = cJSON_AddArrayToObject(doc, "cases");
+    for (size_t i = 0; i < n; i++) {
+        const dragarc_campaign_row *r = &rows[i];
+        cJSON *o = cJSON_CreateObject();
+        cJSON_AddStringToObject(o, "name", r->name);
+        cJSON_AddStringToObject(o, "folder", r->folder);
+        cJSON *b = cJSON_AddObjectToObject(o, "breakup");
+        add_num(b, "latitude", r->latitude);
+        add_num(b, "longitude", r->longitude);
+        add_num(b, "altitude", r->altitude);
+        add_num(b, "speed", r->speed);
+        cJSON_AddNumberToObject(o, "samples", (double)r->samples);
+        cJSON_AddNumberToObject(o, "seed", (double)r->seed);
+        cJSON_AddNumberToObject(o, "flights", (double)r->flights);
+        cJSON_AddNumberToObject(o, "landed", (double)r->landed);
+        add_num(o, "fragments", r->fragments);
+        if (r->mean_ok) {
+            cJSON *m = cJSON_AddObjectToObject(o, "mean_impact");
+            add_num(m, "east", r->mean_east);
+            add_num(m, "north", r->mean_north);
+            add_num(m, "latitude", r->mean_latitude);
+            add_num(m, "longitude", r->mean_longitude);
+        }
+        if (r->ellipse_ok) {
+            cJSON *e = cJSON_AddObjectToObject(o, "ellipse_1sigma");
+            add_num(e, "semi_major", r->semi_major);
+            add_num(e, "semi_minor", r->semi_minor);
+            add_num(e, "azimuth", r->azimuth / DRAGARC_DEG);
+        }
+        add_num(o, "hazardous_share", r->hazardous_share);
+        add_num(o, "impact_energy_max", r->energy_max);
+        if (r->casualty_done) {
+            add_num(o, "expected_casualties", r->expected_casualties);
+            if (r->criterion > 0.0) {
+                add_num(o, "criterion", r->criterion);
+                cJSON_AddBoolToObject(o, "within_criterion", r->expected_casualties <= r->criterion);
+            }
+        }
+        if (r->note[0])
+            cJSON_AddStringToObject(o, "note", r->note);
+        cJSON_AddItemToArray(cases, o);
+    }
+    add_published_criteria(doc);
+    static const char *const U[][2] = {{"latitude", "degree"}, {"longitude", "degree"}, {"altitude", "m"},
+                                       {"speed", "m/s"},       {"east", "m"},          {"north", "m"},
+                                       {"semi_major", "m"},    {"semi_minor", "m"},    {"azimuth", "degree"},
+                                       {"impact_energy_max", "J"}};
     add_units(doc, U, sizeof U / sizeof U[0]);
     add_cautions(doc, DRAGARC_NOTE_DEBRIS);
     return finish(doc);

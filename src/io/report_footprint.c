@@ -153,15 +153,7 @@ static int summary(dragarc_report *r, const dragarc_footprint_spec *sp, const dr
         report_add(&p, "expected casualties", "not estimated: the scenario gives no hazard.population");
     }
     int rc = report_pairs_emit(r, "Summary", &p, err);
-    if (rc != DRAGARC_OK)
-        return rc;
-    /* the published criteria, as references only */
-    size_t nref = 0;
-    const dragarc_risk_reference *refs = dragarc_casualty_references(&nref);
-    report_pairs q = {.n = 0};
-    for (size_t i = 0; i < nref; i++)
-        report_add(&q, refs[i].quantity, "%.3g (%s)", refs[i].limit, refs[i].source);
-    return report_pairs_emit(r, "Published criteria, for comparison only (not an approval)", &q, err);
+    return rc == DRAGARC_OK ? report_published_criteria(r, err) : rc;
 }
 
 typedef struct plot_job {

@@ -8,6 +8,7 @@
 #include <stdlib.h>
 #include <string.h>
 
+#include "dragarc/casualty.h"
 #include "io/report_kind.h"
 
 #define DEG REPORT_DEG
@@ -352,4 +353,14 @@ int report_spray_sources(dragarc_report *r, const dragarc_scenario *base, dragar
         return rc;
     return dragarc_report_source(r, "size classes", "the spectrum cut into classes, each flown at its volume-weighted "
                                  "mean diameter", "dragarc, docs/models.md (Droplet size spectra)", err);
+}
+
+int report_published_criteria(dragarc_report *r, dragarc_error *err)
+{
+    size_t nref = 0;
+    const dragarc_risk_reference *refs = dragarc_casualty_references(&nref);
+    report_pairs q = {.n = 0};
+    for (size_t i = 0; i < nref; i++)
+        report_add(&q, refs[i].quantity, "%.3g (%s)", refs[i].limit, refs[i].source);
+    return report_pairs_emit(r, "Published criteria, for comparison only (not an approval)", &q, err);
 }

@@ -76,6 +76,9 @@ int report_flight_sources(dragarc_report *r, const dragarc_scenario *s, dragarc_
 void report_spectrum_inputs(report_pairs *p, const dragarc_spectrum *sp, size_t nclasses,
                             dragarc_spectrum_spacing spacing);
 
+/* The published casualty criteria as a key-value table, captioned as references for comparison only. */
+int report_published_criteria(dragarc_report *r, dragarc_error *err);
+
 /* The models of a spray's flights (report_flight_sources of its base scenario) and of its drop sizes, with sources. */
 int report_spray_sources(dragarc_report *r, const dragarc_scenario *base, dragarc_spectrum_form form,
                          dragarc_error *err);

@@ -18,6 +18,7 @@
 #include "dragarc/drift.h"
 #include "dragarc/casualty.h"
 #include "dragarc/footprint.h"
+#include "io/text_file.h"
 #include "dragarc/sprinkler.h"
 #include "dragarc/output.h"
 #include "dragarc/units.h"
@@ -1214,8 +1215,7 @@ int dragarc_scenario_parse(const char *json, const char *base_dir, const char *p
     return rc;
 }
 
-/* Read the file at path (at most 16 MiB) into *text and its folder into dir ("." for a bare name). */
-static int read_file_and_folder(const char *path, char **text, char *dir, size_t n, dragarc_error *err)
+int dragarc_io_read_file_and_folder(const char *path, char **text, char *dir, size_t n, dragarc_error *err)
 {
     int rc = dragarc_text_file_read(path, 16u << 20, text, err);
     if (rc != DRAGARC_OK)
@@ -1233,7 +1233,7 @@ int dragarc_scenario_read(const char *path, const char *profile_path, dragarc_sc
 {
     dragarc_scenario_default(out);
     char *text = NULL, dir[4096];
-    int rc = read_file_and_folder(path, &text, dir, sizeof dir, err);
+    int rc = dragarc_io_read_file_and_folder(path, &text, dir, sizeof dir, err);
     if (rc != DRAGARC_OK)
         return rc;
     rc = dragarc_scenario_parse(text, dir, profile_path, out, err);
@@ -2026,11 +2026,68 @@ int dragarc_footprint_spec_parse(const char *json, dragarc_footprint_spec *out, 
     return parse_footprint(json, NULL, out, err);
 }
 
+/* RFC 7386 (JSON Merge Patch): each member of patch replaces target's member of that name, objects are merged member
+ * by member, and null removes the member. Both are objects. -1 when out of memory. */
+static int merge_patch(cJSON *target, const cJSON *patch)
+{
+    for (const cJSON *p = patch->child; p; p = p->next) {
+        cJSON *t = cJSON_GetObjectItemCaseSensitive(target, p->string);
+        if (cJSON_IsNull(p)) {
+            cJSON_DeleteItemFromObjectCaseSensitive(target, p->string);
+            continue;
+        }
+        if (cJSON_IsObject(p) && cJSON_IsObject(t)) {
+            if (merge_patch(t, p) != 0)
+                return -1;
+            continue;
+        }
+        /* a new or replaced member: an object patched onto nothing, so that its nulls are dropped too */
+        cJSON *v = cJSON_IsObject(p) ? cJSON_CreateObject() : cJSON_Duplicate(p, 1);
+        if (!v || (cJSON_IsObject(p) && merge_patch(v, p) != 0)) {
+            cJSON_Delete(v);
+            return -1;
+        }
+        if (t ? !cJSON_ReplaceItemInObjectCaseSensitive(target, p->string, v)
+              : !cJSON_AddItemToObject(target, p->string, v)) {
+            cJSON_Delete(v);
+            return -1;
+        }
+    }
+    return 0;
+}
+
+int dragarc_footprint_spec_read_patched(const char *path, const char *patch, dragarc_footprint_spec *out,
+                                        dragarc_error *err)
+{
+    if (!patch)
+        return dragarc_footprint_spec_read(path, out, err);
+    memset(out, 0, sizeof *out);
+    char *text = NULL, *merged = NULL, dir[4096];
+    cJSON *root = NULL, *p = NULL;
+    int rc = dragarc_io_read_file_and_folder(path, &text, dir, sizeof dir, err);
+    if (rc == DRAGARC_OK)
+        rc = parse_text(text, "the scenario", &root, err);
+    if (rc == DRAGARC_OK && (rc = parse_text(patch, "the changes", &p, err)) == DRAGARC_OK && !cJSON_IsObject(p))
+        rc = dragarc_error_set(err, DRAGARC_EINVAL, "", "the changes to a scenario must be a JSON object");
+    /* a root that is no object is left to the reader to refuse, in its own words */
+    if (rc == DRAGARC_OK && cJSON_IsObject(root) && merge_patch(root, p) != 0)
+        rc = dragarc_error_set(err, DRAGARC_ENOMEM, "", "out of memory applying the changes to the scenario");
+    if (rc == DRAGARC_OK && !(merged = cJSON_PrintUnformatted(root)))
+        rc = dragarc_error_set(err, DRAGARC_ENOMEM, "", "out of memory applying the changes to the scenario");
+    if (rc == DRAGARC_OK)
+        rc = parse_footprint(merged, dir, out, err); /* numbers print so that they read back exactly */
+    cJSON_Delete(root);
+    cJSON_Delete(p);
+    free(text);
+    free(merged);
+    return rc;
+}
+
 int dragarc_footprint_spec_read(const char *path, dragarc_footprint_spec *out, dragarc_error *err)
 {
     memset(out, 0, sizeof *out);
     char *text = NULL, dir[4096];
-    int rc = read_file_and_folder(path, &text, dir, sizeof dir, err);
+    int rc = dragarc_io_read_file_and_folder(path, &text, dir, sizeof dir, err);
     if (rc != DRAGARC_OK)
         return rc;
     rc = parse_footprint(text, dir, out, err);

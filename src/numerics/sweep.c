@@ -513,6 +513,18 @@ int dragarc_sweep_run_progress(const dragarc_scenario *base, const dragarc_sweep
                                void (*progress)(size_t done, size_t total, void *user), void *user,
                                dragarc_sweep *out, dragarc_error *err)
 {
+    int rc = dragarc_sweep_init(base, axes, naxes, out, err);
+    if (rc != DRAGARC_OK)
+        return rc;
+    rc = dragarc_sweep_run_range(base, out->axes, naxes, 0, out->nrows, out->rows, progress, user, err);
+    if (rc == DRAGARC_OK)
+        dragarc_sweep_tally(out);
+    return rc;
+}
+
+int dragarc_sweep_init(const dragarc_scenario *base, const dragarc_sweep_axis *axes, size_t naxes, dragarc_sweep *out,
+                       dragarc_error *err)
+{
     memset(out, 0, sizeof *out);
     size_t n = 0;
     int rc = dragarc_sweep_check(base, axes, naxes, &n, err);
@@ -525,21 +537,40 @@ int dragarc_sweep_run_progress(const dragarc_scenario *base, const dragarc_sweep
     out->naxes = naxes;
     memcpy(out->axes, axes, naxes * sizeof *axes);
     out->nrows = n;
-    const dragarc_sweep_axis *ax = out->axes;
-    dragarc_sweep_row *rows = out->rows;
-    progress_count prog = progress_start(progress, user, n, PROGRESS_EVERY);
-#pragma omp parallel for schedule(dynamic) default(none) shared(base, ax, naxes, n, rows, prog)
-    for (size_t r = 0; r < n; r++) {
-        fly_row(base, ax, naxes, r, &rows[r]);
+    return DRAGARC_OK;
+}
+
+int dragarc_sweep_run_range(const dragarc_scenario *base, const dragarc_sweep_axis *axes, size_t naxes, size_t r0,
+                            size_t r1, dragarc_sweep_row *rows,
+                            void (*progress)(size_t done, size_t total, void *user), void *user, dragarc_error *err)
+{
+    size_t n = 0;
+    int rc = dragarc_sweep_check(base, axes, naxes, &n, err);
+    if (rc != DRAGARC_OK)
+        return rc;
+    if (!(r0 <= r1 && r1 <= n))
+        return dragarc_error_set(err, DRAGARC_EINVAL, "", "rows %zu to %zu are not within the table's %zu", r0, r1, n);
+    const size_t count = r1 - r0;
+    progress_count prog = progress_start(progress, user, count, PROGRESS_EVERY);
+#pragma omp parallel for schedule(dynamic) default(none) shared(base, axes, naxes, r0, count, rows, prog)
+    for (size_t i = 0; i < count; i++) {
+        memset(&rows[i], 0, sizeof rows[i]);
+        fly_row(base, axes, naxes, r0 + i, &rows[i]);
         progress_step(&prog);
     }
-    for (size_t r = 0; r < n; r++) {
-        if (rows[r].status != DRAGARC_OK)
-            out->nfailed++;
-        else
-            out->notes |= rows[r].notes;
-    }
     return DRAGARC_OK;
+}
+
+void dragarc_sweep_tally(dragarc_sweep *t)
+{
+    t->nfailed = 0;
+    t->notes = 0;
+    for (size_t r = 0; r < t->nrows; r++) {
+        if (t->rows[r].status != DRAGARC_OK)
+            t->nfailed++;
+        else
+            t->notes |= t->rows[r].notes;
+    }
 }
 
 void dragarc_sweep_clear(dragarc_sweep *t)

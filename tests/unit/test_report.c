@@ -1,6 +1,6 @@
 /* test_report.c: the HTML report writer: text escaped, figures' ids prefixed so that several share a page, SVG
  * that could reach outside the page refused, files written whole or not at all; each kind (fly, aim, sprinkler,
- * drift, footprint, fit) holds its tables and its figure, and exactly the cautions its command prints.
+ * drift, footprint, fit, campaign) holds its tables and its figure, and exactly the cautions its command prints.
  * SPDX-License-Identifier: GPL-3.0-or-later
  */
 #define _POSIX_C_SOURCE 200809L
@@ -15,6 +15,8 @@
 #include <unistd.h>
 
 #include "check.h"
+#include "dragarc/campaign.h"
+#include "dragarc/geodesy.h"
 #include "dragarc/cautions.h"
 #include "dragarc/output.h"
 #include "dragarc/report.h"
@@ -712,6 +714,55 @@ TEST(the_fit_report_of_an_unweighted_fit_that_ran_out_of_iterations_says_so_firs
     fit_case_clear(&c);
 }
 
+/* The campaign report: every case's row (its name, landed flights, E_c against its criterion), the published
+ * criteria, one map, the debris cautions exactly as `campaign` prints them, and the sources; no case refused. The
+ * rows are made up here: the report only formats them. */
+TEST(the_campaign_report_holds_every_case_the_criteria_the_map_and_the_cautions)
+{
+    dragarc_campaign c;
+    dragarc_error e;
+    CHECK(dragarc_campaign_parse("{\"name\": \"two breakups\", \"scenario\": \"x.json\", \"cases\": [{\"name\": "
+                                 "\"early\"}, {\"name\": \"late <2>\"}]}", "", &c, &e) == DRAGARC_OK);
+    dragarc_campaign_row rows[2];
+    memset(rows, 0, sizeof rows);
+    for (int i = 0; i < 2; i++) {
+        dragarc_campaign_row *w = &rows[i];
+        snprintf(w->name, sizeof w->name, "%s", c.cases[i].name);
+        w->latitude = 34.5 + 0.05 * i, w->longitude = -106.5, w->altitude = 9000.0 * (i + 1), w->speed = 500;
+        w->flights = 90, w->landed = 90 - i;
+        w->mean_ok = w->ellipse_ok = w->casualty_done = 1;
+        w->mean_east = 9000.0 * (i + 1), w->mean_north = 1000.0;
+        CHECK(dragarc_geo_from_local(w->latitude, w->longitude, w->mean_east, w->mean_north, &w->mean_latitude,
+                                     &w->mean_longitude, &e) == DRAGARC_OK);
+        w->semi_major = 3000, w->semi_minor = 1500, w->azimuth = 1.6, w->hazardous_share = 0.18;
+        w->expected_casualties = i ? 2e-4 : 5e-5, w->criterion = 1e-4;
+    }
+    dragarc_report *r;
+    CHECK(dragarc_report_new(&r, c.name, "campaign", &e) == DRAGARC_OK);
+    CHECK(dragarc_report_set_scratch_dir(r, dir, &e) == DRAGARC_OK);
+    CHECK_ERROR(dragarc_report_campaign(r, "two.json", &c, rows, 0, &e), DRAGARC_EINVAL, e, "", "at least one case");
+    CHECK(dragarc_report_campaign(r, "two.json", &c, rows, 2, &e) == DRAGARC_OK);
+    char *html = written(r, "campaign.html");
+    CHECK(html != NULL);
+    if (html) {
+        CHECK(strstr(html, "<td>early</td>") && strstr(html, "<td>late &lt;2&gt;</td>"));
+        CHECK(strstr(html, "90 of 90") && strstr(html, "89 of 90"));
+        CHECK(strstr(html, "5.000e-05") && strstr(html, "2.000e-04"));
+        CHECK(strstr(html, "<td>within</td>") && strstr(html, "<td>ABOVE</td>"));
+        CHECK(strstr(html, "9000, 1000") && strstr(html, "18000, 1000") && strstr(html, "3000 x 1500, 92"));
+        CHECK(strstr(html, "Published criteria, for comparison only (not an approval)") != NULL);
+        CHECK(count(html, "<figure>") == 1 && count(html, "<svg ") == 1);
+        CHECK(strstr(html, "RFC 7386") && strstr(html, "Karney"));
+        const char *k[DRAGARC_CAUTIONS_MAX];
+        size_t nc = dragarc_cautions_notes(DRAGARC_NOTE_DEBRIS, k, DRAGARC_CAUTIONS_MAX);
+        CHECK(nc >= 2 && cautions_exactly(html, k, nc));
+    }
+    CHECK(entries(dir) == 0);
+    free(html);
+    dragarc_report_free(r);
+    dragarc_campaign_clear(&c);
+}
+
 int main(void)
 {
     dragarc_init();
@@ -733,6 +784,7 @@ int main(void)
     RUN(the_fit_report_holds_the_track_estimates_correlations_figure_and_cautions);
     RUN(the_fit_report_of_a_track_with_velocities_shows_their_weights_and_residuals);
     RUN(the_fit_report_of_an_unweighted_fit_that_ran_out_of_iterations_says_so_first);
+    RUN(the_campaign_report_holds_every_case_the_criteria_the_map_and_the_cautions);
     rmdir(dir);
     return check_summary();
 }

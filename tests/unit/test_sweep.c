@@ -135,13 +135,19 @@ static int shared_storage(dragarc_scenario *s)
     return 0;
 }
 
+/* 25 speeds (0 to 12 m/s) by 13 heights (-0.5 to 2.5 m): 325 rows, of which -0.5 and 0 m with a 0 m/s launch fail */
+static void speed_height_axes(dragarc_sweep_axis ax[2])
+{
+    axis(&ax[0], "speed", 0.0, 12.0, 0.5);
+    axis(&ax[1], "height", -0.5, 2.5, 0.25);
+}
+
 TEST(the_thread_count_changes_no_digit)
 {
     dragarc_scenario s;
     CHECK(shared_storage(&s) == 0);
     dragarc_sweep_axis ax[2];
-    axis(&ax[0], "speed", 0.0, 12.0, 0.5);
-    axis(&ax[1], "height", -0.5, 2.5, 0.25); /* -0.5 and 0 with a 0 m/s launch fail: compared too */
+    speed_height_axes(ax); /* -0.5 and 0 with a 0 m/s launch fail: compared too */
     const double *x = s.projectile.drag.x;
     const dragarc_wind_layer *layers = s.wind.layers;
     dragarc_sweep one, two;
@@ -159,6 +165,41 @@ TEST(the_thread_count_changes_no_digit)
     CHECK(s.projectile.drag.x == x && s.wind.layers == layers && s.wind.layers[1].speed == 2.5);
     dragarc_sweep_clear(&one);
     dragarc_sweep_clear(&two);
+    dragarc_scenario_clear(&s);
+}
+
+TEST(row_blocks_flown_apart_make_the_whole_table)
+{
+    /* what an MPI run relies on (docs/cluster.md): row r depends on r alone, whatever block it is flown in; blocks
+     * cut inside the failing rows too */
+    dragarc_scenario s;
+    CHECK(shared_storage(&s) == 0);
+    dragarc_sweep_axis ax[2];
+    speed_height_axes(ax);
+    dragarc_sweep whole, pieced;
+    CHECK(dragarc_sweep_run(&s, ax, 2, &whole, NULL) == DRAGARC_OK);
+    CHECK(dragarc_sweep_init(&s, ax, 2, &pieced, NULL) == DRAGARC_OK);
+    CHECK(pieced.nrows == 325 && pieced.nfailed == 0 && pieced.rows[7].status == DRAGARC_OK);
+    const size_t cut[] = {0, 1, 14, 200, 325, 325};
+    for (size_t b = 0; b + 1 < sizeof cut / sizeof cut[0]; b++) {
+        omp_set_num_threads(1 + (int)(b % 2));
+        CHECK(dragarc_sweep_run_range(&s, ax, 2, cut[b], cut[b + 1], pieced.rows + cut[b], NULL, NULL, NULL) ==
+              DRAGARC_OK);
+    }
+    dragarc_sweep_tally(&pieced);
+    CHECK(pieced.nfailed > 0 && pieced.nfailed == whole.nfailed && pieced.notes == whole.notes);
+    size_t differ = 0;
+    for (size_t r = 0; r < whole.nrows; r++)
+        differ += !same_row(&whole.rows[r], &pieced.rows[r], 2);
+    CHECK(differ == 0);
+    dragarc_error e;
+    dragarc_sweep_row row;
+    CHECK_ERROR(dragarc_sweep_run_range(&s, ax, 2, 3, 2, &row, NULL, NULL, &e), DRAGARC_EINVAL, e, "", "not within");
+    CHECK_ERROR(dragarc_sweep_run_range(&s, ax, 2, 325, 326, &row, NULL, NULL, &e), DRAGARC_EINVAL, e, "",
+                "not within the table's 325");
+    CHECK_ERROR(dragarc_sweep_run_range(&s, ax, 0, 0, 1, &row, NULL, NULL, &e), DRAGARC_EINVAL, e, "", "1 to 3");
+    dragarc_sweep_clear(&whole);
+    dragarc_sweep_clear(&pieced);
     dragarc_scenario_clear(&s);
 }
 
@@ -187,8 +228,7 @@ TEST(a_progress_callback_sees_every_row_done_and_changes_no_digit)
     dragarc_scenario s;
     CHECK(shared_storage(&s) == 0);
     dragarc_sweep_axis ax[2];
-    axis(&ax[0], "speed", 0.0, 12.0, 0.5);
-    axis(&ax[1], "height", -0.5, 2.5, 0.25);
+    speed_height_axes(ax);
     for (int threads = 1; threads <= 2; threads++) {
         omp_set_num_threads(threads);
         dragarc_sweep plain, watched;
@@ -697,6 +737,7 @@ int main(void)
     RUN(a_two_parameter_table_equals_the_flights_flown_one_by_one);
     RUN(a_drag_free_table_of_elevations_gives_the_vacuum_range);
     RUN(the_thread_count_changes_no_digit);
+    RUN(row_blocks_flown_apart_make_the_whole_table);
     RUN(a_progress_callback_sees_every_row_done_and_changes_no_digit);
     RUN(every_name_and_alias_sets_its_field);
     RUN(a_new_diameter_keeps_the_body_geometrically_similar);
