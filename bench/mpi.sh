@@ -1,11 +1,12 @@
 #!/bin/bash
 # SPDX-License-Identifier: GPL-3.0-or-later
 # bench/mpi.sh DRAGARC_MPI DRAGARC OUT_JSON [REPEATS]: time a debris footprint (docs/examples/footprint-rocket.json,
-# 3 classes x 4000 samples: 12000 flights, some 5 s on one core) with the MPI build (DRAGARC_MPI) under mpirun on 1
+# 3 classes x 4000 samples: 12000 flights, about 4 s on one core) with the MPI build (DRAGARC_MPI) under mpirun on 1
 # and on 2 processes of one thread each, and with the ordinary build (DRAGARC) on 1 and 2 threads, REPEATS times
 # each (default 3); write the medians (s) and the load average before and after as JSON (docs/cluster.md,
 # docs/performance.md). Open MPI's mpirun; as root it needs OMPI_ALLOW_RUN_AS_ROOT(_CONFIRM), set here for these
-# runs only.
+# runs only. bench/run runs it; alone, `bench/report.py --update-mpi docs/performance.md OUT_JSON` puts its numbers
+# into docs/performance.md.
 set -euo pipefail
 mpi_bin=$1 bin=$2 out=$3 n=${4:-3}
 cd "$(dirname "$0")/.."
@@ -38,6 +39,6 @@ p1=$(median <"$tmp/p1") p2=$(median <"$tmp/p2") t1=$(median <"$tmp/t1") t2=$(med
 same=true
 a=$(OMP_NUM_THREADS=1 mpirun -q -n 2 "$mpi_bin" "${args[@]}" | sha256sum) b=$("$bin" "${args[@]}" | sha256sum)
 [ "$a" = "$b" ] || same=false
-printf '{"flights": 12000, "processes1": %s, "processes2": %s, "mpirun_alone": %s, "threads1": %s, "threads2": %s, "same_bytes": %s, "load_before": %s, "load_after": %s}\n' \
-  "$p1" "$p2" "$p0" "$t1" "$t2" "$same" "$l0" "$l1" >"$out"
+printf '{"flights": 12000, "rounds": %s, "processes1": %s, "processes2": %s, "mpirun_alone": %s, "threads1": %s, "threads2": %s, "same_bytes": %s, "load_before": %s, "load_after": %s}\n' \
+  "$n" "$p1" "$p2" "$p0" "$t1" "$t2" "$same" "$l0" "$l1" >"$out"
 cat "$out"
