@@ -74,9 +74,9 @@ def mpi_section(L, path):
     L.append("|---|---:|---:|")
     base = m["processes1"]
     for label, key in (("mpirun -n 1 (1 thread)", "processes1"), ("mpirun -n 2 (1 thread each)", "processes2"),
-                       ("ordinary build, 1 thread", "threads1"), ("ordinary build, 2 threads", "threads2"),
-                       ("mpirun -n 1 of `dragarc --version` (mpirun's own cost)", "mpirun_alone")):
+                       ("ordinary build, 1 thread", "threads1"), ("ordinary build, 2 threads", "threads2")):
         L.append("| %s | %.2f s | %.2fx |" % (label, m[key], base / m[key]))
+    L.append("| mpirun -n 1 of `dragarc --version` (mpirun's own start and end) | %.2f s | |" % m["mpirun_alone"])
     L.append("")
     L.append("The outputs of 2 processes and of the ordinary build were %s. Processes add mpirun's start "
              "(the last row) and the gathering of the impacts to rank 0 (88 bytes a flight); threads share one "
