@@ -48,6 +48,7 @@ static int gather_alone(const void *mine, size_t nmine, size_t size, void **all,
 #include <limits.h>
 #include <mpi.h>
 #include <stdio.h>
+#include <time.h>
 #include <unistd.h>
 
 static int world_rank = 0, world_size = 1, solo = 0;
@@ -113,15 +114,30 @@ static void take_captured(char *buf, size_t n)
     forwarded = end > forwarded ? end : forwarded;
 }
 
+/* MPI_Allreduce of one int that waits without spinning: a process that waits here (for rank 0 to finish a command
+ * it runs alone, or to summarise and write a run) would otherwise keep a core busy polling, taking it from the
+ * threads of the processes still working on the same machine. It looks every millisecond. */
+static int allreduce_int(int mine, MPI_Op op)
+{
+    int out = mine, done = 0;
+    MPI_Request req;
+    MPI_Iallreduce(&mine, &out, 1, MPI_INT, op, MPI_COMM_WORLD, &req);
+    MPI_Test(&req, &done, MPI_STATUS_IGNORE);
+    while (!done) {
+        struct timespec ms = {0, 1000000};
+        nanosleep(&ms, NULL);
+        MPI_Test(&req, &done, MPI_STATUS_IGNORE);
+    }
+    return out;
+}
+
 int cli_mpi_agree(int status)
 {
     if (cli_mpi_size() == 1)
         return status;
-    int worst = status;
-    MPI_Allreduce(&status, &worst, 1, MPI_INT, MPI_MAX, MPI_COMM_WORLD);
+    int worst = allreduce_int(status, MPI_MAX);
     char msg[4096];
-    int first = status != 0 ? world_rank : world_size, who = world_size;
-    MPI_Allreduce(&first, &who, 1, MPI_INT, MPI_MIN, MPI_COMM_WORLD);
+    int who = allreduce_int(status != 0 ? world_rank : world_size, MPI_MIN);
     if (worst == 0 || who == 0) {
         take_captured(msg, sizeof msg); /* rank 0 said it already, or all went well: nothing to bring */
         return worst;
