@@ -5,6 +5,7 @@
 # report.py: write docs/performance.md from the JSON results of bench_flight and scipy_bench.py.
 # Usage: report.py MACHINE_TXT OUT_MD C_JSON SCIPY_JSON [C_JSON SCIPY_JSON ...] [--patterns JSON] [--fit JSON]
 #                  [--mpi JSON]
+#        report.py --update-mpi OUT_MD MPI_JSON   (only the MPI section of an existing file, after bench/mpi.sh)
 #   (one pair per round)
 
 import json
@@ -64,18 +65,18 @@ def mpi_section(L, path):
     L.append("Measured by `bench/mpi.sh`: `dragarc footprint docs/examples/footprint-rocket.json --samples 4000 --json` "
              "(%d flights) with the MPI build (`-DDRAGARC_MPI=ON`, [cluster.md](cluster.md)) under `mpirun -q "
              "--bind-to none -n P`, one OpenMP thread a process, and with the ordinary build on 1 and 2 threads; "
-             "medians of 3 runs, wall time of the whole command. The load average of the machine was %.2f before "
-             "and %.2f after: the runs themselves keep up to 2 cores busy, so more than that means other programs "
-             "shared the machine and the times and ratios are less clean." % (
-                 m["flights"], m["load_before"], m["load_after"]))
+             "the runs take turns, %d rounds, and the table gives the medians of the wall time of the whole "
+             "command. The load average of the machine was %.2f before and %.2f after: the runs themselves keep up "
+             "to 2 cores busy, so more than that means other programs shared the machine and the times and ratios "
+             "are less clean." % (m["flights"], m.get("rounds", 3), m["load_before"], m["load_after"]))
     L.append("")
     L.append("| run | wall time | against 1 process |")
     L.append("|---|---:|---:|")
     base = m["processes1"]
     for label, key in (("mpirun -n 1 (1 thread)", "processes1"), ("mpirun -n 2 (1 thread each)", "processes2"),
-                       ("ordinary build, 1 thread", "threads1"), ("ordinary build, 2 threads", "threads2"),
-                       ("mpirun -n 1 of `dragarc --version` (mpirun's own cost)", "mpirun_alone")):
+                       ("ordinary build, 1 thread", "threads1"), ("ordinary build, 2 threads", "threads2")):
         L.append("| %s | %.2f s | %.2fx |" % (label, m[key], base / m[key]))
+    L.append("| mpirun -n 1 of `dragarc --version` (mpirun's own start and end) | %.2f s | |" % m["mpirun_alone"])
     L.append("")
     L.append("The outputs of 2 processes and of the ordinary build were %s. Processes add mpirun's start "
              "(the last row) and the gathering of the impacts to rank 0 (88 bytes a flight); threads share one "
@@ -83,9 +84,29 @@ def mpi_section(L, path):
              "machines." % ("the same bytes" if m["same_bytes"] else "NOT the same bytes (a fault: see cluster.md)"))
 
 
+def update_mpi(out_path, mpi_path):
+    """Replace (or add) the MPI section of an existing docs/performance.md, the rest left as it is: for a run of
+    bench/mpi.sh alone (bench/run writes the whole file)."""
+    with open(out_path) as f:
+        text = f.read().rstrip("\n")
+    start = text.find("\n## MPI processes")
+    if start >= 0:
+        end = text.find("\n## ", start + 1)
+        text = text[:start] + (text[end:] if end >= 0 else "")
+    L = [text.rstrip("\n")]
+    mpi_section(L, mpi_path)
+    L.append("")
+    with open(out_path, "w") as f:
+        f.write("\n".join(L))
+    return 0
+
+
 def main():
     # report.py MACHINE_TXT OUT_MD C_JSON SCIPY_JSON [C_JSON SCIPY_JSON ...]
+    # report.py --update-mpi OUT_MD MPI_JSON
     args = sys.argv[1:]
+    if args[:1] == ["--update-mpi"] and len(args) == 3:
+        return update_mpi(args[1], args[2])
     patterns = None
     if "--patterns" in args:
         k = args.index("--patterns")

@@ -157,15 +157,16 @@ double dragarc_footprint_memory_estimate(const dragarc_footprint_spec *spec);
 int dragarc_footprint_run(const dragarc_footprint_spec *spec, dragarc_impact *out,
                           void (*progress)(size_t done, size_t total, void *user), void *user, dragarc_error *err);
 
-/* Fly the flights of global indices [k0, k1) of the run (index k = class x samples + sample, the order of
- * dragarc_footprint_run's out) into out[0 .. k1 - k0) (the caller allocates). Each flight's random stream comes from
- * its own (class, sample), so out[i] is bit for bit the entry k0 + i of the whole run: ranges flown apart (by other
- * processes, on other machines) and put side by side in index order make exactly the whole run's array.
- * dragarc_footprint_run is the range [0, nclasses x samples). `progress` counts the flights of this range.
- * DRAGARC_EINVAL when k0 > k1 or k1 is past the run's flights. */
-int dragarc_footprint_run_range(const dragarc_footprint_spec *spec, size_t k0, size_t k1, dragarc_impact *out,
-                                void (*progress)(size_t done, size_t total, void *user), void *user,
-                                dragarc_error *err);
+/* Fly the flights of global indices k0, k0 + step, k0 + 2 step, ... below k1 (index k = class x samples + sample,
+ * the order of dragarc_footprint_run's out) into out[0], out[1], ... ((k1 - k0 + step - 1) / step of them; the
+ * caller allocates). Each flight's random stream comes from its own (class, sample), so out[i] is bit for bit the
+ * entry k0 + i step of the whole run: parts flown apart (by other processes, on other machines) and put back at
+ * their indices make exactly the whole run's array. dragarc_footprint_run is the range [0, nclasses x samples) with
+ * step 1; MPI processes take every P-th flight (docs/cluster.md). `progress` counts the flights of this range.
+ * DRAGARC_EINVAL when k0 > k1, k1 is past the run's flights or step is 0. */
+int dragarc_footprint_run_range(const dragarc_footprint_spec *spec, size_t k0, size_t k1, size_t step,
+                                dragarc_impact *out, void (*progress)(size_t done, size_t total, void *user),
+                                void *user, dragarc_error *err);
 
 /* The nominal C_D of a drag law, the one a ballistic coefficient refers to: at Mach 0.5, Re 1e6 (170 m/s for a
  * table against speed). */

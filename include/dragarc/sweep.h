@@ -151,20 +151,21 @@ int dragarc_sweep_run_progress(const dragarc_scenario *base, const dragarc_sweep
                                dragarc_sweep *out, dragarc_error *err);
 
 /* The table of base over axes with its rows allocated (zeroed) but not flown, its name and axes copied, nfailed and
- * notes 0: to be filled by dragarc_sweep_run_range (by one process, or block by block by several) and counted by
+ * notes 0: to be filled by dragarc_sweep_run_range (by one process, or part by part by several) and counted by
  * dragarc_sweep_tally. Errors as dragarc_sweep_run; the caller frees *out with dragarc_sweep_clear (also after
  * failure). */
 int dragarc_sweep_init(const dragarc_scenario *base, const dragarc_sweep_axis *axes, size_t naxes, dragarc_sweep *out,
                        dragarc_error *err);
 
-/* Fly rows [r0, r1) of the table of base over axes into rows[0 .. r1 - r0) (the caller allocates; any contents are
- * overwritten). Row r depends on nothing but base, the axes and r, so rows[i] is bit for bit row r0 + i of
- * dragarc_sweep_run's table: blocks flown apart (by other processes) and put side by side in row order make exactly
- * the whole table. A failed row's error is malloc'ed and owned by the row (free() it, or let dragarc_sweep_clear do
- * it once the row is in a table). `progress` counts the rows of this range. Errors those of dragarc_sweep_check, and
- * DRAGARC_EINVAL when r0 > r1 or r1 is past the table's rows. */
+/* Fly rows r0, r0 + step, r0 + 2 step, ... below r1 of the table of base over axes into rows[0], rows[1], ...
+ * ((r1 - r0 + step - 1) / step of them; the caller allocates; any contents are overwritten). Row r depends on
+ * nothing but base, the axes and r, so rows[i] is bit for bit row r0 + i step of dragarc_sweep_run's table: parts
+ * flown apart (by other processes) and put back at their row numbers make exactly the whole table. A failed row's
+ * error is malloc'ed and owned by the row (free() it, or let dragarc_sweep_clear do it once the row is in a table).
+ * `progress` counts the rows of this range. Errors those of dragarc_sweep_check, and DRAGARC_EINVAL when r0 > r1,
+ * r1 is past the table's rows or step is 0. */
 int dragarc_sweep_run_range(const dragarc_scenario *base, const dragarc_sweep_axis *axes, size_t naxes, size_t r0,
-                            size_t r1, dragarc_sweep_row *rows,
+                            size_t r1, size_t step, dragarc_sweep_row *rows,
                             void (*progress)(size_t done, size_t total, void *user), void *user, dragarc_error *err);
 
 /* Count the failed rows of t into t->nfailed and join the notes of the rows that flew into t->notes. */

@@ -189,7 +189,7 @@ int cli_run_option(const char *cmd, int argc, char **argv, int *i, int *json, in
 int cli_footprint_load(const char *path, double samples, double seed, int quiet, dragarc_footprint_spec *spec,
                        dragarc_population *pop, dragarc_impact **impacts, dragarc_footprint_summary *sum);
 /* cli_footprint_load of a spec already read into *spec (a campaign's case): from the --samples and --seed on. Under
- * MPI every process calls it, each flies one block, and only rank 0 receives the whole *impacts and the summary
+ * MPI every process calls it, each flies its share, and only rank 0 receives the whole *impacts and the summary
  * (cli_mpi.h). */
 int cli_footprint_fly(const char *path, double samples, double seed, int quiet, dragarc_footprint_spec *spec,
                       dragarc_population *pop, dragarc_impact **impacts, dragarc_footprint_summary *sum);
@@ -246,14 +246,14 @@ typedef struct cli_progress {
     const char *unit;
     struct timespec start;
     double bytes;
-    size_t whole; /* > 0: the run's count, of which this process flies one block (cli_progress_share) */
+    size_t whole; /* > 0: the run's count, of which this process flies a share (cli_progress_share) */
     int procs;    /* processes sharing the run */
     int enabled, shown;
 } cli_progress;
 void cli_progress_begin(cli_progress *p, const char *unit, int quiet);
 void cli_progress_plan(cli_progress *p, double bytes);
-/* A run of `whole` flights or rows shared by procs processes (MPI), this one flying a block of them: the bar and
- * the big run's line show the whole run, its progress taken from this block's (the blocks are of one size). */
+/* A run of `whole` flights or rows shared by procs processes (MPI), this one flying its share: the bar and the big
+ * run's line show the whole run, its progress taken from this share's (the shares are dealt alike). */
 void cli_progress_share(cli_progress *p, size_t whole, int procs);
 void cli_progress_tick(size_t done, size_t total, void *user);
 void cli_progress_end(cli_progress *p);

@@ -1,14 +1,16 @@
-/* cli_mpi.c: the MPI glue of the command-line program (cli_mpi.h): start and end, blocks of work, agreeing on a
- * status, gathering blocks to rank 0. Built with MPI only when DRAGARC_MPI is on; otherwise one process, rank 0 of
+/* cli_mpi.c: the MPI glue of the command-line program (cli_mpi.h): start and end, shares of work, agreeing on a
+ * status, putting the shares back in order on rank 0. Built with MPI only when DRAGARC_MPI is on; otherwise one process, rank 0 of
  * 1, and nothing here talks to anyone.
  * SPDX-License-Identifier: GPL-3.0-or-later
  *
  * Why the results are the same bit for bit for any number of processes: a flight (or a table row) depends only on
- * its global index (its random stream is seeded from it), each process flies a contiguous block of indices, and the
- * blocks are gathered as raw bytes into one array on rank 0 in index order. Rank 0 thus holds exactly the array a
+ * its global index (its random stream is seeded from it), process r of P flies the indices r, r + P, r + 2P, ...,
+ * and rank 0 puts every record, as raw bytes, back at its index in one array. Rank 0 thus holds exactly the array a
  * single process fills, and summarises it with the same code in the same order: means, quantiles, density grids,
  * contours and E_c cannot differ. Nothing is summed across processes (no MPI_Reduce of doubles, whose order would
- * depend on the number of processes).
+ * depend on the number of processes). The indices are dealt every P-th rather than cut in blocks because the cost
+ * of a flight changes along them: a footprint's classes follow one another (a light panel flies far longer than a
+ * heavy case) and a table's first axis varies slowest; blocks would leave one process with the slow end.
  */
 #define _POSIX_C_SOURCE 200809L
 #include "cli/cli_mpi.h"
@@ -18,12 +20,12 @@
 
 #include "cli/cli.h"
 
-void cli_mpi_block(size_t n, size_t *k0, size_t *k1)
+void cli_mpi_share(size_t n, size_t *first, size_t *step, size_t *count)
 {
     size_t p = (size_t)cli_mpi_size(), r = (size_t)cli_mpi_rank();
-    size_t base = n / p, extra = n % p;
-    *k0 = r * base + (r < extra ? r : extra);
-    *k1 = *k0 + base + (r < extra ? 1 : 0);
+    *first = r;
+    *step = p;
+    *count = n > r ? (n - r + p - 1) / p : 0;
 }
 
 /* cli_mpi_gather_any on one process: a copy of its own items. */
@@ -46,6 +48,7 @@ static int gather_alone(const void *mine, size_t nmine, size_t size, void **all,
 #include <limits.h>
 #include <mpi.h>
 #include <stdio.h>
+#include <time.h>
 #include <unistd.h>
 
 static int world_rank = 0, world_size = 1, solo = 0;
@@ -111,15 +114,30 @@ static void take_captured(char *buf, size_t n)
     forwarded = end > forwarded ? end : forwarded;
 }
 
+/* MPI_Allreduce of one int that waits without spinning: a process that waits here (for rank 0 to finish a command
+ * it runs alone, or to summarise and write a run) would otherwise keep a core busy polling, taking it from the
+ * threads of the processes still working on the same machine. It looks every millisecond. */
+static int allreduce_int(int mine, MPI_Op op)
+{
+    int out = mine, done = 0;
+    MPI_Request req;
+    MPI_Iallreduce(&mine, &out, 1, MPI_INT, op, MPI_COMM_WORLD, &req);
+    MPI_Test(&req, &done, MPI_STATUS_IGNORE);
+    while (!done) {
+        struct timespec ms = {0, 1000000};
+        nanosleep(&ms, NULL);
+        MPI_Test(&req, &done, MPI_STATUS_IGNORE);
+    }
+    return out;
+}
+
 int cli_mpi_agree(int status)
 {
     if (cli_mpi_size() == 1)
         return status;
-    int worst = status;
-    MPI_Allreduce(&status, &worst, 1, MPI_INT, MPI_MAX, MPI_COMM_WORLD);
+    int worst = allreduce_int(status, MPI_MAX);
     char msg[4096];
-    int first = status != 0 ? world_rank : world_size, who = world_size;
-    MPI_Allreduce(&first, &who, 1, MPI_INT, MPI_MIN, MPI_COMM_WORLD);
+    int who = allreduce_int(status != 0 ? world_rank : world_size, MPI_MIN);
     if (worst == 0 || who == 0) {
         take_captured(msg, sizeof msg); /* rank 0 said it already, or all went well: nothing to bring */
         return worst;
@@ -153,7 +171,7 @@ int cli_mpi_finish(int status)
     return world_rank == 0 ? status : 0;
 }
 
-/* One of `size` bytes as an MPI type, so that counts are items, not bytes (a block of 2^31 bytes is common). */
+/* One of `size` bytes as an MPI type, so that counts are items, not bytes (a share of 2^31 bytes is common). */
 static int item_type(size_t size, MPI_Datatype *t)
 {
     if (size > INT_MAX)
@@ -165,7 +183,7 @@ static int item_type(size_t size, MPI_Datatype *t)
 
 static int too_large(void)
 {
-    fputs("dragarc: a block of work is too large to gather between processes: use more processes\n", stderr);
+    fputs("dragarc: a share of work is too large to gather between processes: use more processes\n", stderr);
     return EXIT_FAILED;
 }
 
@@ -174,41 +192,29 @@ int cli_mpi_gather(void *all, const void *mine, size_t size, size_t n)
     int p = cli_mpi_size();
     if (p == 1)
         return EXIT_OK;
-    if (n > INT_MAX)
-        return too_large(); /* counts and displacements are ints of items; every process sees the same n */
-    MPI_Datatype t;
-    if (item_type(size, &t) != 0)
-        return too_large();
-    int *counts = NULL, *displs = NULL;
-    if (world_rank == 0) {
-        counts = malloc((size_t)p * sizeof *counts);
-        displs = malloc((size_t)p * sizeof *displs);
+    if (n > INT_MAX || size > INT_MAX / (size_t)p)
+        return too_large(); /* counts are ints of items; every process sees the same n and size */
+    size_t first, step, count;
+    cli_mpi_share(n, &first, &step, &count);
+    MPI_Datatype item, spaced;
+    MPI_Type_contiguous((int)size, MPI_BYTE, &item);
+    MPI_Type_commit(&item);
+    if (world_rank != 0) {
+        MPI_Send(mine, (int)count, item, 0, 0, MPI_COMM_WORLD);
+        MPI_Type_free(&item);
+        return EXIT_OK;
     }
-    int ok = world_rank != 0 || (counts && displs);
-    MPI_Bcast(&ok, 1, MPI_INT, 0, MPI_COMM_WORLD);
-    if (!ok) {
-        free(counts), free(displs);
-        MPI_Type_free(&t);
-        if (world_rank == 0)
-            fputs("dragarc: out of memory gathering the results\n", stderr);
-        return EXIT_FAILED;
+    /* rank 0: item j of process q goes to index q + j p, so the items received lie p items apart */
+    MPI_Type_create_resized(item, 0, (MPI_Aint)size * p, &spaced);
+    MPI_Type_commit(&spaced);
+    for (size_t j = 0; j < count; j++)
+        memcpy((char *)all + j * (size_t)p * size, (const char *)mine + j * size, size);
+    for (int q = 1; q < p; q++) {
+        size_t cq = n > (size_t)q ? (n - (size_t)q + (size_t)p - 1) / (size_t)p : 0;
+        MPI_Recv((char *)all + (size_t)q * size, (int)cq, spaced, q, 0, MPI_COMM_WORLD, MPI_STATUS_IGNORE);
     }
-    size_t k0, k1;
-    cli_mpi_block(n, &k0, &k1);
-    if (world_rank == 0) {
-        size_t base = n / (size_t)p, extra = n % (size_t)p, at = 0;
-        for (int r = 0; r < p; r++) {
-            size_t c = base + ((size_t)r < extra ? 1 : 0);
-            counts[r] = (int)c;
-            displs[r] = (int)at;
-            at += c;
-        }
-        MPI_Gatherv(MPI_IN_PLACE, (int)(k1 - k0), t, all, counts, displs, t, 0, MPI_COMM_WORLD);
-    } else {
-        MPI_Gatherv(mine, (int)(k1 - k0), t, NULL, NULL, NULL, t, 0, MPI_COMM_WORLD);
-    }
-    free(counts), free(displs);
-    MPI_Type_free(&t);
+    MPI_Type_free(&spaced);
+    MPI_Type_free(&item);
     return EXIT_OK;
 }
 

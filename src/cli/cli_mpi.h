@@ -6,11 +6,11 @@
  * dragarc_sweep_run_range). Without DRAGARC_MPI there is one process, rank 0 of 1, and every function here is a
  * no-op: the commands run exactly as they always did.
  *
- * How a distributed command goes: every process reads and checks the same input, each flies one contiguous block
- * of the global flight (or row) indices, the processes agree on a status (cli_mpi_agree) before any gathering so
- * that a failure on one never leaves the others waiting, the blocks are gathered to rank 0 in index order
- * (cli_mpi_gather), and rank 0 alone summarises and writes. Rank 0 then holds exactly the array one process would
- * have made, so every statistic computed from it is the same bit for bit whatever the number of processes.
+ * How a distributed command goes: every process reads and checks the same input, each flies its share of the
+ * global flight (or row) indices (every P-th one), the processes agree on a status (cli_mpi_agree) before any
+ * gathering so that a failure on one never leaves the others waiting, the shares are put back at their indices on
+ * rank 0 (cli_mpi_gather), and rank 0 alone summarises and writes. Rank 0 then holds exactly the array one process
+ * would have made, so every statistic computed from it is the same bit for bit whatever the number of processes.
  */
 #ifndef DRAGARC_CLI_MPI_H
 #define DRAGARC_CLI_MPI_H
@@ -35,19 +35,21 @@ int cli_mpi_size(void);
  * 0's status); 0 on rank 0, which runs it as if it were alone. */
 int cli_mpi_solo(void);
 
-/* The block [*k0, *k1) of n items (flights, rows) this process takes: contiguous, in rank order, sizes differing
- * by at most one (the first n % size processes take one more). Rank 0's block starts at 0. */
-void cli_mpi_block(size_t n, size_t *k0, size_t *k1);
+/* This process's share of n items (flights, rows), dealt like cards: the items first, first + step, first + 2 step,
+ * ..., *count of them, with first the rank and step the number of processes (0, 1, n for one process). Dealt rather
+ * than cut in blocks, so that work whose cost changes along the index (a footprint's classes, a table's first
+ * axis) falls on every process alike. */
+void cli_mpi_share(size_t n, size_t *first, size_t *step, size_t *count);
 
 /* Collective: the worst (largest) of every process's exit status, returned on all of them. When some process
  * failed and rank 0 did not, the first failing process's standard error since the last agreement (its one-line
  * message) is printed on rank 0's standard error, or, when it printed nothing, a line naming the process. */
 int cli_mpi_agree(int status);
 
-/* Collective: gather every process's block of n items of `size` bytes (the blocks of cli_mpi_block) into all[0 ..
- * n) on rank 0, in index order. Rank 0 passes its own block already in place at the start of `all` (mine ignored);
- * the others pass theirs in `mine` (all ignored). Returns an exit status: EXIT_FAILED (after a message) when a
- * block is too large for MPI's int counts. */
+/* Collective: put every process's share (cli_mpi_share) of n items of `size` bytes back at their indices in all[0 ..
+ * n) on rank 0: rank 0 copies its own from mine, the others send theirs (all ignored). With one process it does
+ * nothing: that process flies straight into all. Returns an exit status: EXIT_FAILED (after a message) when n is
+ * too large for MPI's int counts. */
 int cli_mpi_gather(void *all, const void *mine, size_t size, size_t n);
 
 /* Collective: gather every process's nmine items of `size` bytes (any counts) to rank 0, in rank order, into a new
@@ -56,7 +58,7 @@ int cli_mpi_gather(void *all, const void *mine, size_t size, size_t n);
 int cli_mpi_gather_any(const void *mine, size_t nmine, size_t size, void **all, size_t *nall);
 
 /* For the tests only: 1 on the process whose rank the environment variable DRAGARC_MPI_TEST_FAULT names (an MPI
- * build run on more than one process), which then fails its block as a flight that cannot be computed would; 0
+ * build run on more than one process), which then fails its share as a flight that cannot be computed would; 0
  * everywhere else. It lets tests/cli/check_mpi.py check that a failure on one process ends every process with one
  * message and no file. */
 int cli_mpi_test_fault(void);

@@ -66,10 +66,12 @@ static int load_case(const char *path, size_t i, const dragarc_campaign_case *c,
         spec->seed = (uint64_t)s;
     if (dragarc_footprint_check(spec, &err) != DRAGARC_OK)
         return cli_report(where, &err);
-    size_t k0, k1;
-    cli_mpi_block(spec->nclasses * spec->samples, &k0, &k1);
-    return cli_memory_check(where, "footprint.samples", cli_mpi_rank() == 0 ? dragarc_footprint_memory_estimate(spec)
-                                                                         : (double)(k1 - k0) * sizeof(dragarc_impact));
+    size_t first, step, count;
+    cli_mpi_share(spec->nclasses * spec->samples, &first, &step, &count);
+    const double share = (double)count * sizeof(dragarc_impact);
+    return cli_memory_check(where, "footprint.samples",
+                            cli_mpi_rank() != 0 ? share
+                                                : dragarc_footprint_memory_estimate(spec) + (step > 1 ? share : 0.0));
 }
 
 /* Make folder `path` unless it is one already. */

@@ -238,17 +238,19 @@ int cli_footprint_fly(const char *path, double samples, double seed, int quiet, 
         spec->seed = (uint64_t)seed;
     int status = EXIT_OK;
     const dragarc_hazard_options *h = &spec->hazard;
-    /* Under MPI each process flies one block of the flights; rank 0 gathers them all and summarises, so it alone
-     * needs the whole run's memory and the population (cli_mpi.h). */
-    const int root = cli_mpi_rank() == 0;
+    /* Under MPI each process flies its share of the flights (every P-th); rank 0 puts them all back in order and
+     * summarises, so it alone needs the whole run's memory and the population (cli_mpi.h). One process flies
+     * straight into the whole array; with several, rank 0 flies its share into a buffer of its own first. */
+    const int root = cli_mpi_rank() == 0, alone = cli_mpi_size() == 1;
     const size_t total = spec->nclasses * spec->samples;
-    size_t k0 = 0, k1 = 0;
-    cli_mpi_block(total, &k0, &k1);
-    const double need = dragarc_footprint_memory_estimate(spec);
+    size_t first, step, count;
+    cli_mpi_share(total, &first, &step, &count);
+    const double share = (double)count * sizeof **impacts;
+    const double need = dragarc_footprint_memory_estimate(spec) + (root && !alone ? share : 0.0);
+    dragarc_impact *mine = NULL; /* this process's share, when it is not flown in place */
     if (dragarc_footprint_check(spec, &err) != DRAGARC_OK)
         status = cli_report(path, &err);
-    else if ((status = cli_memory_check(path, "footprint.samples",
-                                        root ? need : (double)(k1 - k0) * sizeof **impacts)) != EXIT_OK)
+    else if ((status = cli_memory_check(path, "footprint.samples", root ? need : share)) != EXIT_OK)
         ; /* reported: nothing is read, allocated or flown */
     else if (root && h->population_given &&
              (h->population_file[0] ? dragarc_population_read(h->population_file, pop, &err)
@@ -256,27 +258,30 @@ int cli_footprint_fly(const char *path, double samples, double seed, int quiet, 
         status = cli_report(h->population_file[0] ? NULL : path, &err);
     else if (root && h->population_file[0] && dragarc_population_set_background(pop, h->background, &err) != DRAGARC_OK)
         status = cli_report(path, &err);
-    else if (!(*impacts = malloc((root ? total : k1 - k0 + 1) * sizeof **impacts))) {
-        dragarc_error_set(&err, DRAGARC_ENOMEM, "", "out of memory for %zu flights", root ? total : k1 - k0);
+    else if ((root && !(*impacts = malloc(total * sizeof **impacts))) ||
+             (!alone && !(mine = malloc((count + 1) * sizeof *mine)))) {
+        dragarc_error_set(&err, DRAGARC_ENOMEM, "", "out of memory for %zu flights", root ? total : count);
         status = cli_report(path, &err);
     }
-    if ((status = cli_mpi_agree(status)) != EXIT_OK)
-        return status;
-    cli_progress bar;
-    cli_progress_begin(&bar, "flights", quiet || !root);
-    cli_progress_plan(&bar, need);
-    cli_progress_share(&bar, total, cli_mpi_size());
-    int rc = dragarc_footprint_run_range(spec, k0, k1, *impacts, bar.enabled ? cli_progress_tick : NULL, &bar, &err);
-    cli_progress_end(&bar);
-    if (rc == DRAGARC_OK && cli_mpi_test_fault())
-        rc = dragarc_error_set(&err, DRAGARC_ESOLVER, "", "a failure made on purpose (DRAGARC_MPI_TEST_FAULT)");
-    if (rc != DRAGARC_OK)
-        status = cli_report(path, &err);
-    /* agreed before gathering: a process that failed never leaves the others waiting for its block */
-    if ((status = cli_mpi_agree(status)) != EXIT_OK ||
-        (status = cli_mpi_gather(*impacts, *impacts, sizeof **impacts, total)) != EXIT_OK)
-        return status;
-    if (root && dragarc_footprint_summarise(spec, *impacts, h->population_given ? pop : NULL, sum, &err) != DRAGARC_OK)
+    if ((status = cli_mpi_agree(status)) == EXIT_OK) {
+        cli_progress bar;
+        cli_progress_begin(&bar, "flights", quiet || !root);
+        cli_progress_plan(&bar, need);
+        cli_progress_share(&bar, total, cli_mpi_size());
+        int rc = dragarc_footprint_run_range(spec, first, total, step, alone ? *impacts : mine,
+                                             bar.enabled ? cli_progress_tick : NULL, &bar, &err);
+        cli_progress_end(&bar);
+        if (rc == DRAGARC_OK && cli_mpi_test_fault())
+            rc = dragarc_error_set(&err, DRAGARC_ESOLVER, "", "a failure made on purpose (DRAGARC_MPI_TEST_FAULT)");
+        if (rc != DRAGARC_OK)
+            status = cli_report(path, &err);
+        /* agreed before gathering: a process that failed never leaves the others waiting for its share */
+        if ((status = cli_mpi_agree(status)) == EXIT_OK)
+            status = cli_mpi_gather(*impacts, mine, sizeof **impacts, total);
+    }
+    free(mine);
+    if (status == EXIT_OK && root &&
+        dragarc_footprint_summarise(spec, *impacts, h->population_given ? pop : NULL, sum, &err) != DRAGARC_OK)
         status = cli_report(path, &err);
     return status;
 }

@@ -354,28 +354,36 @@ static int out_of_memory(const char *file)
 }
 
 /* Fly the table of the scenario at `file` over axes (nrows rows) into *t, with a progress bar unless quiet. Under MPI
- * each process flies one block of rows and rank 0 gathers them, with the errors of the failed ones, into *t in row
- * order (the other processes' *t stays empty). Returns the exit status (message printed); the caller clears *t. */
+ * each process flies its share of the rows (every P-th) and rank 0 puts them back in row order into *t, with the
+ * errors of the failed ones (the other processes' *t stays empty). Returns the exit status (message printed); the
+ * caller clears *t. */
 static int sweep_rows(const char *file, const dragarc_sweep_axis *axes, size_t naxes, size_t nrows, int quiet,
                       dragarc_sweep *t)
 {
-    typedef struct row_error { int present; dragarc_error e; } row_error;
+    /* a failed row's error, sent apart from the rows (whose error pointers mean nothing on rank 0) */
+    typedef struct row_error {
+        size_t row;
+        int present;
+        dragarc_error e;
+    } row_error;
     dragarc_error err;
-    const int root = cli_mpi_rank() == 0;
-    size_t r0, r1;
-    cli_mpi_block(nrows, &r0, &r1);
+    const int root = cli_mpi_rank() == 0, alone = cli_mpi_size() == 1;
+    size_t first, step, count;
+    cli_mpi_share(nrows, &first, &step, &count);
     memset(t, 0, sizeof *t);
-    const double need = dragarc_sweep_memory_estimate(nrows);
-    dragarc_sweep_row *mine = NULL; /* a block of another process than rank 0 */
+    const double share = dragarc_sweep_memory_estimate(count);
+    const double need = dragarc_sweep_memory_estimate(nrows) + (root && !alone ? share : 0.0);
+    dragarc_sweep_row *mine = NULL; /* this process's share, when it is not flown in place */
+    int moved = 0;                  /* rank 0's share (and its errors) now lives in t */
     dragarc_scenario s;
-    int have_s = 0, status = cli_memory_check("table", "--vary", root ? need : dragarc_sweep_memory_estimate(r1 - r0));
+    int have_s = 0, status = cli_memory_check("table", "--vary", root ? need : share);
     if (status == EXIT_OK && dragarc_scenario_read(file, cli_profile_path(), &s, &err) != DRAGARC_OK)
         status = cli_report(file, &err);
     else if (status == EXIT_OK)
         have_s = 1;
     if (status == EXIT_OK && root && dragarc_sweep_init(&s, axes, naxes, t, &err) != DRAGARC_OK)
         status = cli_report(file, &err);
-    else if (status == EXIT_OK && !root && !(mine = calloc(r1 - r0 + 1, sizeof *mine)))
+    else if (status == EXIT_OK && !alone && !(mine = calloc(count + 1, sizeof *mine)))
         status = out_of_memory(file);
     /* Each agreement below is reached by every process or by none: statuses are agreed before any gathering. */
     if ((status = cli_mpi_agree(status)) == EXIT_OK) {
@@ -383,7 +391,7 @@ static int sweep_rows(const char *file, const dragarc_sweep_axis *axes, size_t n
         cli_progress_begin(&bar, "rows", quiet || !root);
         cli_progress_plan(&bar, need);
         cli_progress_share(&bar, nrows, cli_mpi_size());
-        int rc = dragarc_sweep_run_range(&s, axes, naxes, r0, r1, root ? t->rows : mine,
+        int rc = dragarc_sweep_run_range(&s, axes, naxes, first, nrows, step, alone ? t->rows : mine,
                                          bar.enabled ? cli_progress_tick : NULL, &bar, &err);
         if (rc == DRAGARC_OK && cli_mpi_test_fault())
             rc = dragarc_error_set(&err, DRAGARC_ESOLVER, "", "a failure made on purpose (DRAGARC_MPI_TEST_FAULT)");
@@ -392,38 +400,39 @@ static int sweep_rows(const char *file, const dragarc_sweep_axis *axes, size_t n
         cli_progress_end(&bar);
         status = cli_mpi_agree(status);
     }
-    /* the rows go as bytes (their error pointers mean nothing on rank 0), then the failed rows' errors in row order */
     row_error *lost = NULL, *found = NULL;
     size_t nlost = 0, nfound = 0;
-    if (status == EXIT_OK) {
-        for (size_t i = 0; mine && i < r1 - r0; i++)
+    if (status == EXIT_OK && !alone) {
+        for (size_t i = 0; !root && i < count; i++)
             nlost += mine[i].status != DRAGARC_OK;
         if (nlost && !(lost = calloc(nlost, sizeof *lost)))
             status = out_of_memory(file);
-        for (size_t i = 0, k = 0; lost && i < r1 - r0; i++)
+        for (size_t i = 0, k = 0; lost && i < count; i++)
             if (mine[i].status != DRAGARC_OK) {
+                lost[k].row = first + i * step;
                 lost[k].present = mine[i].error != NULL;
                 if (mine[i].error)
                     lost[k].e = *mine[i].error;
                 k++;
             }
         if ((status = cli_mpi_agree(status)) == EXIT_OK &&
-            (status = cli_mpi_gather(root ? t->rows : NULL, mine, sizeof *mine, nrows)) == EXIT_OK)
+            (status = cli_mpi_gather(root ? t->rows : NULL, mine, sizeof *mine, nrows)) == EXIT_OK) {
+            moved = root;
+            for (size_t r = 0; root && r < nrows; r++) /* the rows of the others: their errors come next */
+                if (r % step != 0)
+                    t->rows[r].error = NULL;
             status = cli_mpi_gather_any(lost, nlost, sizeof *lost, (void **)&found, &nfound);
+        }
     }
     if (status == EXIT_OK && root) {
-        size_t own = r1, k = 0;
-        for (size_t r = own; r < nrows; r++) {
-            t->rows[r].error = NULL;
-            if (t->rows[r].status != DRAGARC_OK && k < nfound) {
-                const row_error *f = &found[k++];
-                if (f->present && (t->rows[r].error = malloc(sizeof *t->rows[r].error)))
-                    *t->rows[r].error = f->e;
-            }
+        for (size_t k = 0; k < nfound; k++) {
+            dragarc_sweep_row *row = &t->rows[found[k].row < nrows ? found[k].row : 0];
+            if (found[k].present && found[k].row < nrows && (row->error = malloc(sizeof *row->error)))
+                *row->error = found[k].e;
         }
         dragarc_sweep_tally(t);
     }
-    for (size_t i = 0; mine && i < r1 - r0; i++)
+    for (size_t i = 0; mine && !moved && i < count; i++)
         free(mine[i].error);
     free(mine), free(lost), free(found);
     if (have_s)

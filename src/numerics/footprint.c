@@ -331,19 +331,19 @@ static void fly_sample(const run_ctx *ctx, gsl_rng *r, uint32_t ci, uint32_t si,
 int dragarc_footprint_run(const dragarc_footprint_spec *spec, dragarc_impact *out,
                           void (*progress)(size_t done, size_t total, void *user), void *user, dragarc_error *err)
 {
-    return dragarc_footprint_run_range(spec, 0, spec->nclasses * spec->samples, out, progress, user, err);
+    return dragarc_footprint_run_range(spec, 0, spec->nclasses * spec->samples, 1, out, progress, user, err);
 }
 
-int dragarc_footprint_run_range(const dragarc_footprint_spec *spec, size_t k0, size_t k1, dragarc_impact *out,
-                                void (*progress)(size_t done, size_t total, void *user), void *user,
-                                dragarc_error *err)
+int dragarc_footprint_run_range(const dragarc_footprint_spec *spec, size_t k0, size_t k1, size_t step,
+                                dragarc_impact *out, void (*progress)(size_t done, size_t total, void *user),
+                                void *user, dragarc_error *err)
 {
     int rc = dragarc_footprint_check(spec, err);
     if (rc != DRAGARC_OK)
         return rc;
-    if (!(k0 <= k1 && k1 <= spec->nclasses * spec->samples))
-        return dragarc_error_set(err, DRAGARC_EINVAL, "", "flights %zu to %zu are not within the run's %zu", k0, k1,
-                                 spec->nclasses * spec->samples);
+    if (!(k0 <= k1 && k1 <= spec->nclasses * spec->samples && step >= 1))
+        return dragarc_error_set(err, DRAGARC_EINVAL, "", "flights %zu to %zu by %zu are not within the run's %zu", k0,
+                                 k1, step, spec->nclasses * spec->samples);
     run_ctx ctx = {spec, {0}};
     if (spec->breakup.covariance_given) {
         gsl_matrix *m = gsl_matrix_alloc(6, 6), *v = gsl_matrix_alloc(6, 6);
@@ -370,10 +370,10 @@ int dragarc_footprint_run_range(const dragarc_footprint_spec *spec, size_t k0, s
             return dragarc_error_set(err, DRAGARC_EINVAL, "breakup.covariance",
                                      "is not positive semi-definite (an eigenvalue below zero)");
     }
-    const size_t count = k1 - k0;
+    const size_t count = (k1 - k0 + step - 1) / step;
     progress_count prog = progress_start(progress, user, count, 64);
     int nomem = 0;
-#pragma omp parallel default(none) shared(ctx, out, spec, k0, count, prog, nomem, gsl_rng_mt19937)
+#pragma omp parallel default(none) shared(ctx, out, spec, k0, step, count, prog, nomem, gsl_rng_mt19937)
     {
         gsl_rng *r = gsl_rng_alloc(gsl_rng_mt19937);
         if (!r) {
@@ -383,7 +383,7 @@ int dragarc_footprint_run_range(const dragarc_footprint_spec *spec, size_t k0, s
 #pragma omp for schedule(dynamic, 8)
         for (size_t i = 0; i < count; i++) {
             /* the global index k names the sample, and so its stream: the flight is the same in any range */
-            const size_t k = k0 + i;
+            const size_t k = k0 + i * step;
             dragarc_impact *o = &out[i];
             memset(o, 0, sizeof *o);
             o->cls = (uint32_t)(k / spec->samples), o->sample = (uint32_t)(k % spec->samples);

@@ -516,7 +516,7 @@ int dragarc_sweep_run_progress(const dragarc_scenario *base, const dragarc_sweep
     int rc = dragarc_sweep_init(base, axes, naxes, out, err);
     if (rc != DRAGARC_OK)
         return rc;
-    rc = dragarc_sweep_run_range(base, out->axes, naxes, 0, out->nrows, out->rows, progress, user, err);
+    rc = dragarc_sweep_run_range(base, out->axes, naxes, 0, out->nrows, 1, out->rows, progress, user, err);
     if (rc == DRAGARC_OK)
         dragarc_sweep_tally(out);
     return rc;
@@ -541,21 +541,22 @@ int dragarc_sweep_init(const dragarc_scenario *base, const dragarc_sweep_axis *a
 }
 
 int dragarc_sweep_run_range(const dragarc_scenario *base, const dragarc_sweep_axis *axes, size_t naxes, size_t r0,
-                            size_t r1, dragarc_sweep_row *rows,
+                            size_t r1, size_t step, dragarc_sweep_row *rows,
                             void (*progress)(size_t done, size_t total, void *user), void *user, dragarc_error *err)
 {
     size_t n = 0;
     int rc = dragarc_sweep_check(base, axes, naxes, &n, err);
     if (rc != DRAGARC_OK)
         return rc;
-    if (!(r0 <= r1 && r1 <= n))
-        return dragarc_error_set(err, DRAGARC_EINVAL, "", "rows %zu to %zu are not within the table's %zu", r0, r1, n);
-    const size_t count = r1 - r0;
+    if (!(r0 <= r1 && r1 <= n && step >= 1))
+        return dragarc_error_set(err, DRAGARC_EINVAL, "", "rows %zu to %zu by %zu are not within the table's %zu", r0,
+                                 r1, step, n);
+    const size_t count = (r1 - r0 + step - 1) / step;
     progress_count prog = progress_start(progress, user, count, PROGRESS_EVERY);
-#pragma omp parallel for schedule(dynamic) default(none) shared(base, axes, naxes, r0, count, rows, prog)
+#pragma omp parallel for schedule(dynamic) default(none) shared(base, axes, naxes, r0, step, count, rows, prog)
     for (size_t i = 0; i < count; i++) {
         memset(&rows[i], 0, sizeof rows[i]);
-        fly_row(base, axes, naxes, r0 + i, &rows[i]);
+        fly_row(base, axes, naxes, r0 + i * step, &rows[i]);
         progress_step(&prog);
     }
     return DRAGARC_OK;

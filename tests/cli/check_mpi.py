@@ -86,7 +86,7 @@ def main():
         return ref
 
     rocket = os.path.join(examples, "footprint-rocket.json")
-    # footprint: every output, 3 classes x 40 samples (blocks of 120, 60 + 60, 30 x 4 cut inside the classes)
+    # footprint: every output, 3 classes x 40 samples (120 flights dealt to 1, 2 and 4 processes)
     same_as_serial("footprint outputs", ["footprint", rocket, "--samples", "40", "--json", "--points", "p.csv", "--grid", "g.csv",
                                          "--geojson", "f.geojson", "--plot", "f.svg", "--quiet"],
                    ("p.csv", "g.csv", "f.geojson", "f.svg"))

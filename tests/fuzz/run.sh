@@ -4,7 +4,7 @@
 #
 #   tests/fuzz/run.sh [HARNESS ...]        all harnesses when none is named (tests/fuzz/harnesses.cmake)
 #
-# Environment: FUZZ_SECONDS (default 72, 8 s a harness) is the time for all the harnesses together, shared evenly;
+# Environment: FUZZ_SECONDS (default 50, 5 s a harness) is the time for all the harnesses together, shared evenly;
 # FUZZ_BUILD (default build-fuzz in the source tree) is the clang build folder, configured here when it has no
 # CMakeCache.txt; FUZZ_KEEP=1 keeps the work folder (grown corpora, logs) even when every harness passed;
 # FUZZ_ARGS adds libFuzzer options (e.g. "-detect_leaks=0" for a faster exploring run, whose grown corpus is then
@@ -19,7 +19,7 @@ set -uo pipefail
 here="$(cd "$(dirname "$0")" && pwd)"
 root="$(cd "$here/../.." && pwd)"
 build="${FUZZ_BUILD:-$root/build-fuzz}"
-total="${FUZZ_SECONDS:-72}"
+total="${FUZZ_SECONDS:-50}"
 
 harnesses=("$@")
 if [ ${#harnesses[@]} -eq 0 ]; then

@@ -65,42 +65,46 @@ TEST(the_same_seed_gives_the_same_impacts_on_any_thread_count)
     dragarc_footprint_spec_clear(&sp);
 }
 
-TEST(ranges_flown_apart_and_put_side_by_side_are_the_whole_run)
+TEST(ranges_flown_apart_and_put_back_are_the_whole_run)
 {
-    /* what an MPI run relies on (docs/cluster.md): flight k depends on its global index only, whatever range it is
-     * flown in; two classes, so that a range boundary falls inside a class and across the class boundary */
+    /* what an MPI run relies on (docs/cluster.md): flight k depends on its global index only, whatever range or
+     * step it is flown in; two classes, so that ranges cross the class boundary */
     const double sd[6] = {50, 50, 30, 5, 1, 1};
     dragarc_footprint_spec sp;
     CHECK(load(&sp, sd, ", \"beta_spread\": 0.2, \"delta_v\": {\"distribution\": \"uniform\", \"speed\": 20}", 37,
                5) == DRAGARC_OK);
     CHECK(sp.nclasses == 1);
     dragarc_impact *whole = fly(&sp);
-    const size_t n = sp.samples, cuts[][2] = {{0, 37}, {0, 1}, {5, 19}, {19, 37}, {36, 37}, {37, 37}};
+    const size_t cuts[][2] = {{0, 37}, {0, 1}, {5, 19}, {19, 37}, {36, 37}, {37, 37}};
     dragarc_impact part[37];
     for (size_t c = 0; c < sizeof cuts / sizeof cuts[0]; c++) {
         size_t k0 = cuts[c][0], k1 = cuts[c][1];
-        CHECK(dragarc_footprint_run_range(&sp, k0, k1, part, NULL, NULL, NULL) == DRAGARC_OK);
+        CHECK(dragarc_footprint_run_range(&sp, k0, k1, 1, part, NULL, NULL, NULL) == DRAGARC_OK);
         CHECK(k1 == k0 || memcmp(part, whole + k0, (k1 - k0) * sizeof *part) == 0);
     }
-    /* three blocks of a two-class run make it whole, one thread or two */
+    /* a two-class run dealt to 3 "processes", every 3rd flight each, on one thread or two, put back in place */
+    const size_t n = sp.samples;
     sp.classes = realloc(sp.classes, 2 * sizeof *sp.classes);
     sp.classes[1] = sp.classes[0];
     CHECK(dragarc_drag_copy(&sp.classes[1].drag, &sp.classes[0].drag, NULL) == DRAGARC_OK);
     sp.classes[1].mass = 7.0;
     sp.nclasses = 2;
-    dragarc_impact *two = fly(&sp), *blocks = calloc(2 * n, sizeof *blocks);
-    omp_set_num_threads(1);
-    CHECK(dragarc_footprint_run_range(&sp, 0, 25, blocks, NULL, NULL, NULL) == DRAGARC_OK);
-    omp_set_num_threads(2);
-    CHECK(dragarc_footprint_run_range(&sp, 25, 49, blocks + 25, NULL, NULL, NULL) == DRAGARC_OK);
-    CHECK(dragarc_footprint_run_range(&sp, 49, 2 * n, blocks + 49, NULL, NULL, NULL) == DRAGARC_OK);
-    CHECK(memcmp(blocks, two, 2 * n * sizeof *two) == 0);
-    CHECK(blocks[40].cls == 1 && blocks[40].sample == 3 && blocks[40].weight == 10.0 / 37.0);
+    dragarc_impact *two = fly(&sp), *dealt = calloc(2 * n, sizeof *dealt);
+    for (size_t r = 0; r < 3; r++) {
+        omp_set_num_threads(1 + (int)(r % 2));
+        size_t count = (2 * n - r + 2) / 3;
+        CHECK(dragarc_footprint_run_range(&sp, r, 2 * n, 3, part, NULL, NULL, NULL) == DRAGARC_OK);
+        for (size_t j = 0; j < count; j++)
+            dealt[r + 3 * j] = part[j];
+    }
+    CHECK(memcmp(dealt, two, 2 * n * sizeof *two) == 0);
+    CHECK(dealt[40].cls == 1 && dealt[40].sample == 3 && dealt[40].weight == 10.0 / 37.0);
     dragarc_error e;
-    CHECK_ERROR(dragarc_footprint_run_range(&sp, 5, 4, part, NULL, NULL, &e), DRAGARC_EINVAL, e, "", "not within");
-    CHECK_ERROR(dragarc_footprint_run_range(&sp, 0, 2 * n + 1, part, NULL, NULL, &e), DRAGARC_EINVAL, e, "",
-                  "not within the run's 74");
-    free(whole), free(two), free(blocks);
+    CHECK_ERROR(dragarc_footprint_run_range(&sp, 5, 4, 1, part, NULL, NULL, &e), DRAGARC_EINVAL, e, "", "not within");
+    CHECK_ERROR(dragarc_footprint_run_range(&sp, 0, 2 * n + 1, 1, part, NULL, NULL, &e), DRAGARC_EINVAL, e, "",
+                "not within the run's 74");
+    CHECK_ERROR(dragarc_footprint_run_range(&sp, 0, 3, 0, part, NULL, NULL, &e), DRAGARC_EINVAL, e, "", "by 0");
+    free(whole), free(two), free(dealt);
     dragarc_footprint_spec_clear(&sp);
 }
 
@@ -273,7 +277,7 @@ int main(void)
 {
     dragarc_init();
     RUN(the_same_seed_gives_the_same_impacts_on_any_thread_count);
-    RUN(ranges_flown_apart_and_put_side_by_side_are_the_whole_run);
+    RUN(ranges_flown_apart_and_put_back_are_the_whole_run);
     RUN(small_spreads_scatter_as_the_linearised_propagation_says);
     RUN(bad_footprint_scenarios_name_the_field);
     RUN(a_csv_catalogue_flies_as_the_same_classes_in_the_scenario);
