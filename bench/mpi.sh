@@ -3,7 +3,8 @@
 # bench/mpi.sh DRAGARC_MPI DRAGARC OUT_JSON [REPEATS]: time a debris footprint (docs/examples/footprint-rocket.json,
 # 3 classes x 4000 samples: 12000 flights, about 4 s on one core) with the MPI build (DRAGARC_MPI) under mpirun on 1
 # and on 2 processes of one thread each, and with the ordinary build (DRAGARC) on 1 and 2 threads, REPEATS times
-# each (default 3); write the medians (s) and the load average before and after as JSON (docs/cluster.md,
+# each (default 3), taking turns; write the fastest of each (s: on a machine others share, the run least disturbed
+# by them) and the load average before and after as JSON (docs/cluster.md,
 # docs/performance.md). Open MPI's mpirun; as root it needs OMPI_ALLOW_RUN_AS_ROOT(_CONFIRM), set here for these
 # runs only. bench/run runs it; alone, `bench/report.py --update-mpi docs/performance.md OUT_JSON` puts its numbers
 # into docs/performance.md.
@@ -11,7 +12,7 @@ set -euo pipefail
 mpi_bin=$1 bin=$2 out=$3 n=${4:-3}
 cd "$(dirname "$0")/.."
 args=(footprint docs/examples/footprint-rocket.json --samples 4000 --json --quiet)
-median() { sort -g | awk '{a[NR] = $1} END {print (NR % 2) ? a[(NR + 1) / 2] : (a[NR / 2] + a[NR / 2 + 1]) / 2}'; }
+fastest() { sort -g | head -1; }
 seconds() { # seconds COMMAND...: the wall time of one run
   local t0 t1
   t0=$(date +%s%N)
@@ -34,7 +35,7 @@ for _ in $(seq 1 "$n"); do
   seconds mpirun -q -n 1 "$mpi_bin" --version >>"$tmp/p0" # mpirun's own start and end
 done
 l1=$(load)
-p1=$(median <"$tmp/p1") p2=$(median <"$tmp/p2") t1=$(median <"$tmp/t1") t2=$(median <"$tmp/t2") p0=$(median <"$tmp/p0")
+p1=$(fastest <"$tmp/p1") p2=$(fastest <"$tmp/p2") t1=$(fastest <"$tmp/t1") t2=$(fastest <"$tmp/t2") p0=$(fastest <"$tmp/p0")
 # the same bytes on 1 and 2 processes and from the ordinary build (docs/cluster.md says why)
 same=true
 a=$(OMP_NUM_THREADS=1 mpirun -q -n 2 "$mpi_bin" "${args[@]}" | sha256sum) b=$("$bin" "${args[@]}" | sha256sum)

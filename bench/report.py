@@ -65,10 +65,11 @@ def mpi_section(L, path):
     L.append("Measured by `bench/mpi.sh`: `dragarc footprint docs/examples/footprint-rocket.json --samples 4000 --json` "
              "(%d flights) with the MPI build (`-DDRAGARC_MPI=ON`, [cluster.md](cluster.md)) under `mpirun -q "
              "--bind-to none -n P`, one OpenMP thread a process, and with the ordinary build on 1 and 2 threads; "
-             "the runs take turns, %d rounds, and the table gives the medians of the wall time of the whole "
-             "command. The load average of the machine was %.2f before and %.2f after: the runs themselves keep up "
-             "to 2 cores busy, so more than that means other programs shared the machine and the times and ratios "
-             "are less clean." % (m["flights"], m.get("rounds", 3), m["load_before"], m["load_after"]))
+             "the runs take turns, %d rounds, and the table gives the fastest wall time of the whole command of "
+             "each (the machine is shared with other work, and the fastest run is the one it disturbed least). The "
+             "load average of the machine was %.2f before and %.2f after: the runs themselves keep up to 2 cores "
+             "busy, so more than that means other programs shared the machine." % (
+                 m["flights"], m.get("rounds", 3), m["load_before"], m["load_after"]))
     L.append("")
     L.append("| run | wall time | against 1 process |")
     L.append("|---|---:|---:|")
