@@ -252,7 +252,7 @@ static int fit_sources(dragarc_report *r, const dragarc_fit_options *o, const dr
                                     "weighted nonlinear least squares by GSL's trust-region Levenberg-Marquardt "
                                     "(multifit_nlinear), the Jacobian by central differences of flights",
                                     "Mor\xc3\xa9, J. J. (1978), The Levenberg-Marquardt algorithm: implementation and "
-                                    "theory, in Numerical Analysis, Lecture Notes in Mathematics 630, Springer, 105-116",
+                                    "theory, in Numerical Analysis, ed. G. A. Watson, Springer LNM 630, 105-116",
                                     err)) != DRAGARC_OK ||
         (rc = dragarc_report_source(r, "acceleration", geodesic,
                                     "Transtrum, M. K. & Sethna, J. P. (2012), Improvements to the Levenberg-Marquardt "

@@ -4,8 +4,8 @@
  * The residuals r_ik = (x_ik - X_k(t_i; p)) / sigma_ik compare the track with the scenario flown at the candidate
  * parameters p (dragarc_flight_track: the flight sampled at the track's times, through the ground plane if a
  * candidate comes down early). GSL's multifit_nlinear minimises |r|^2 with its trust-region Levenberg-Marquardt
- * method (More 1978, "The Levenberg-Marquardt algorithm: implementation and theory", Lecture Notes in Mathematics
- * 630), optionally with the geodesic acceleration of Transtrum & Sethna (2012, "Improvements to the Levenberg-
+ * method (More 1978, "The Levenberg-Marquardt algorithm: implementation and theory", in Numerical Analysis,
+ * ed. G. A. Watson, Springer LNM 630), optionally with the geodesic acceleration of Transtrum & Sethna (2012, "Improvements to the Levenberg-
  * Marquardt algorithm for nonlinear least-squares minimization", arXiv:1201.5885). The Jacobian is by central
  * differences, with the flights integrated tightly enough (rtol 1e-10) that their error stays far below the
  * difference. At the solution the covariance is C = (J^T J)^-1 (Seber & Wild 1989, "Nonlinear Regression", ch. 2),
